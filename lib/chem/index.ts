@@ -1,0 +1,4 @@
+export * from "./version";
+export * from "./units";
+export * from "./schema";
+export * from "./types";

@@ -1,0 +1,135 @@
+/**
+ * The typed work-up description shared by the app's forms, the server, the CLI and the engine (one schema per
+ * input). Raw input carries units at every quantity; the parsed output is in canonical units (mL, mmol, g, mol/L,
+ * °C) and is what the simulator consumes without further checks.
+ */
+import { z } from "zod";
+import { componentAmountSchema, finiteNumber, pHSchema, massSchema, temperatureSchema, volumeSchema } from "./schema-quantities";
+import { operationSchema } from "./schema-operations";
+import { toMmol } from "./units";
+
+export const PROVENANCES = ["measured", "literature", "estimated", "group"] as const;
+export const ROLES = ["product", "starting_material", "reagent", "byproduct", "impurity", "catalyst", "other"] as const;
+/** Reagent and structure classes the failure-mode and safety checks look for (§3 F16, F20, F28, F29; §4). */
+export const COMPONENT_TAGS = [
+  "oxidant", "peroxide", "cyanide", "azide", "hf_source", "hydride", "organometallic",
+  "aluminium", "tin", "copper", "zinc", "boron", "titanium", "palladium", "nickel", "iron", "quaternary_ammonium",
+] as const;
+
+const provenance = z.enum(PROVENANCES, { error: () => `provenance must be one of ${PROVENANCES.join(", ")}` });
+const standardError = z.number().positive({ error: "se must be > 0" }).max(5, { error: "se must be ≤ 5" });
+
+export const logValueSchema = z.object({
+  value: finiteNumber("log value").refine((v) => v >= -15 && v <= 15, { error: "log value must be between −15 and 15" }),
+  provenance,
+  source: z.string().max(500).optional(),
+  se: standardError.optional(),
+  /** Number of observations pooled into a group value. */
+  n: z.number().int().min(1).optional(),
+});
+
+export const pKaSchema = z.object({
+  value: finiteNumber("pKa").refine((v) => v >= -12 && v <= 30, { error: "pKa must be between −12 and 30" }),
+  /** "acid": HA ⇌ A⁻ + H⁺. "base": the value is the pKa of the conjugate acid BH⁺. */
+  kind: z.enum(["acid", "base"], { error: () => "pKa kind must be 'acid' or 'base'" }),
+  provenance,
+  source: z.string().max(500).optional(),
+  se: standardError.optional(),
+});
+
+export const componentSchema = z.object({
+  key: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, { error: "key must be 1–64 letters, digits, '_', '-' or '.'" }),
+  name: z.string().trim().min(1, { error: "name is required" }).max(200),
+  role: z.enum(ROLES, { error: () => `role must be one of ${ROLES.join(", ")}` }),
+  molarMass: z.number({ error: "molarMass must be a number" }).positive({ error: "molarMass must be > 0" }).max(1e5, { error: "molarMass must be ≤ 100000 g/mol" }),
+  amount: componentAmountSchema,
+  smiles: z.string().max(2000).optional(),
+  logP: logValueSchema.optional(),
+  /** Partition coefficient for a named solvent (group or literature value); overrides the estimate from log P. */
+  logK: z.record(z.string(), logValueSchema).default({}),
+  pKas: z.array(pKaSchema).max(12, { error: "at most 12 pKa values" }).default([]),
+  /** Permanent charge of every form (quaternary ammonium +1); paired with an inert counter-ion. */
+  fixedCharge: z.number().int().min(-4).max(4).default(0),
+  /** Counter-ion of the charged form: lipophilic ions (TFA, OTf, OTs, BF₄, PF₆, I⁻) pair into chlorinated solvents. */
+  counterIon: z.enum(["hydrophilic", "lipophilic"]).optional(),
+  /** log K_ion − log K_neutral when known; default −3.5 (common practice). */
+  ionLogKOffset: z.number().min(-12).max(2).optional(),
+  /** Setschenow constant in NaCl, L/mol; default from log P. */
+  setschenowK: z.number().min(-0.5).max(1).optional(),
+  bpC: z.number().min(-200).max(800).optional(),
+  /** Intrinsic solubility of the neutral form in water, and solubility in the organic solvent, mg/mL. */
+  solubility: z.object({ water: z.number().positive().optional(), organic: z.number().positive().optional() }).optional(),
+  labile: z.array(z.enum(["acid", "base"])).default([]),
+  chelating: z.boolean().default(false),
+  surfactant: z.boolean().default(false),
+  tags: z.array(z.enum(COMPONENT_TAGS)).default([]),
+  waterSoluble: z.boolean().optional(),
+  notes: z.string().max(5000).optional(),
+}).transform(({ amount, ...c }) => ({ ...c, amountMmol: toMmol(amount.value, amount.unit, c.molarMass) }));
+
+const mixtureSchema = z.object({
+  /** Reaction solvents (and water) present at the start of the work-up. */
+  solvents: z.array(z.object({ solvent: z.string().trim().min(1, { error: "solvent is required" }), volume: volumeSchema() })
+    .transform(({ solvent, volume }) => ({ solvent, volumeMl: volume }))).default([]),
+  /** Aqueous reagents already in the mixture (e.g. the base of a saponification). */
+  reagents: z.array(z.object({ reagent: z.string().trim().min(1), volume: volumeSchema() })
+    .transform(({ reagent, volume }) => ({ reagent, volumeMl: volume }))).default([]),
+});
+
+const outcomeSchema = z.object({
+  crudeMass: massSchema("crude mass").optional(),
+  purityPct: z.number().min(0).max(100, { error: "purityPct must be ≤ 100" }).optional(),
+  purityMethod: z.enum(["qnmr_internal_standard", "hplc_calibrated", "hplc_area", "nmr_no_standard", "none"]).optional(),
+  /** A quantitative in-process assay of the product was taken before the quench. */
+  inProcessAssay: z.boolean().optional(),
+  observedPh: pHSchema().optional(),
+}).transform(({ crudeMass, ...o }) => ({ ...o, crudeMassG: crudeMass }));
+
+export const workupInputSchema = z.object({
+  name: z.string().max(200).optional(),
+  temperature: temperatureSchema().optional(),
+  components: z.array(componentSchema).min(1, { error: "at least one component is required" }).max(50),
+  mixture: mixtureSchema,
+  operations: z.array(operationSchema).min(1, { error: "at least one operation is required" }).max(200),
+  /** Separatory funnel capacity, for the gas-headspace check (F13). */
+  funnel: volumeSchema("funnel volume").optional(),
+  outcome: outcomeSchema.optional(),
+}).superRefine((w, ctx) => {
+  const seen = new Set<string>();
+  w.components.forEach((c, i) => {
+    if (seen.has(c.key)) ctx.addIssue({ code: "custom", path: ["components", i, "key"], message: `duplicate component key '${c.key}'` });
+    seen.add(c.key);
+  });
+  const saved = new Set<string>();
+  w.operations.forEach((op, i) => {
+    if (op.type === "combine") {
+      op.streams.forEach((s, j) => {
+        if (!saved.has(s)) ctx.addIssue({ code: "custom", path: ["operations", i, "streams", j], message: `no stream saved as '${s}' before step ${i + 1}` });
+        saved.delete(s);
+      });
+    }
+    if (op.type === "filter") {
+      op.solidComponents.forEach((k, j) => {
+        if (!seen.has(k)) ctx.addIssue({ code: "custom", path: ["operations", i, "solidComponents", j], message: `unknown component '${k}'` });
+      });
+    }
+    if ("saveAs" in op && op.saveAs !== undefined) {
+      if (saved.has(op.saveAs)) ctx.addIssue({ code: "custom", path: ["operations", i, "saveAs"], message: `a stream named '${op.saveAs}' is already saved` });
+      saved.add(op.saveAs);
+    }
+  });
+  if (w.mixture.solvents.length === 0 && w.mixture.reagents.length === 0 && w.operations[0]?.type !== "charge") {
+    ctx.addIssue({ code: "custom", path: ["mixture", "solvents"], message: "the mixture needs a solvent, or the first operation must charge one" });
+  }
+}).transform(({ temperature, funnel, ...w }) => ({ ...w, temperatureC: temperature ?? 20, funnelMl: funnel }));
+
+export type WorkupInputRaw = z.input<typeof workupInputSchema>;
+export type WorkupInput = z.output<typeof workupInputSchema>;
+export type Component = WorkupInput["components"][number];
+export type PKa = Component["pKas"][number];
+export type LogValue = z.output<typeof logValueSchema>;
+export type Provenance = (typeof PROVENANCES)[number];
+export type ComponentRole = (typeof ROLES)[number];
+export type ComponentTag = (typeof COMPONENT_TAGS)[number];
+
+export * from "./schema-operations";
