@@ -12,6 +12,8 @@ const nextConfig = {
     "bcryptjs",
   ],
   typedRoutes: false,
+  // forbidden() and forbidden.tsx, so a page refused by the authorization guard answers 403 (lib/authz/page.ts).
+  experimental: { authInterrupts: true },
   poweredByHeader: false,
 };
 
