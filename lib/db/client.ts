@@ -1,0 +1,133 @@
+// The one place that knows which database Layerwise runs on. Embedded PGlite (PostgreSQL in WebAssembly) in the
+// data dir by default; PostgreSQL through node-postgres when DATABASE_URL is set. Everything else gets a PrismaClient.
+// Opening a database also brings it up to date with the committed migrations (lib/db/migrate.ts), on the same PGlite
+// instance the client then uses, because PGlite is single-process.
+import { PrismaClient } from "@/generated/prisma/client";
+import { env } from "@/lib/env";
+import { displayPath, lockDataDir } from "./lock";
+import { migrate, type MigrateOptions } from "./migrate";
+import { pgSession, pgliteSession } from "./sql";
+
+/**
+ * Secret columns are left out of every result unless a query asks for them, e.g.
+ * `db.user.findUnique({ where: { email }, omit: { passwordHash: false } })`.
+ */
+export const secretColumns = {
+  user: { passwordHash: true },
+  apiToken: { tokenHash: true },
+  invite: { tokenHash: true },
+} as const;
+
+export type Db = PrismaClient<never, typeof secretColumns>;
+
+export interface Database {
+  db: Db;
+  /** Disconnects, closes an embedded database and releases its data-dir lock. */
+  close: () => Promise<void>;
+}
+
+export interface CreateDbOptions {
+  /** `postgresql://…`, `pglite:<dir>` (an embedded data dir, created if missing) or `pglite:memory` (throw-away). */
+  url: string;
+  /** Apply pending migrations before returning (default true). */
+  migrate?: boolean;
+  migrationsDir?: MigrateOptions["migrationsDir"];
+  log?: MigrateOptions["log"];
+}
+
+async function openPglite(dir: string, options: CreateDbOptions): Promise<Database> {
+  const release = dir === "memory" ? () => undefined : lockDataDir(dir);
+  try {
+    const { PGlite } = await import("@electric-sql/pglite");
+    const { PrismaPGlite } = await import("pglite-prisma-adapter");
+    const pglite = dir === "memory" ? new PGlite() : new PGlite(dir);
+    try {
+      await pglite.waitReady;
+      if (options.migrate !== false) await migrate(pgliteSession(pglite), options);
+      const db = new PrismaClient({ adapter: new PrismaPGlite(pglite), omit: secretColumns });
+      return {
+        db,
+        close: async () => {
+          try {
+            await db.$disconnect();
+            await pglite.close();
+          } finally {
+            release();
+          }
+        },
+      };
+    } catch (e) {
+      await pglite.close().catch(() => undefined);
+      throw e;
+    }
+  } catch (e) {
+    release();
+    throw e;
+  }
+}
+
+async function openPostgres(url: string, options: CreateDbOptions): Promise<Database> {
+  const { default: pg } = await import("pg");
+  const { PrismaPg } = await import("@prisma/adapter-pg");
+  if (options.migrate !== false) {
+    const session = new pg.Client({ connectionString: url });
+    await session.connect();
+    try {
+      await migrate(pgSession(session), options);
+    } finally {
+      await session.end();
+    }
+  }
+  const db = new PrismaClient({ adapter: new PrismaPg({ connectionString: url }), omit: secretColumns });
+  return { db, close: () => db.$disconnect() };
+}
+
+/** Opens a database of its own (tests, scripts). The caller closes it. */
+export function createDb(options: CreateDbOptions): Promise<Database> {
+  const { url } = options;
+  if (url.startsWith("pglite:")) return openPglite(url.slice("pglite:".length), options);
+  if (/^postgres(ql)?:\/\//.test(url)) return openPostgres(url, options);
+  throw new Error(`Unsupported database URL "${url.split(":")[0]}:…": use postgresql://…, pglite:<dir> or pglite:memory.`);
+}
+
+function configuredUrl(): string {
+  const { databaseUrl, dataDir } = env();
+  return databaseUrl ?? `pglite:${dataDir}`;
+}
+
+/** Where getDb() connects, for start-up messages (never shows a password). */
+export function describeDatabase(): string {
+  const url = configuredUrl();
+  if (url.startsWith("pglite:")) return `embedded database at ${displayPath(url.slice("pglite:".length))}`;
+  const parsed = new URL(url);
+  return `PostgreSQL database ${parsed.pathname.slice(1) || "(default)"} on ${parsed.host}`;
+}
+
+/** Opens the configured database as a private instance (scripts that must report migrations or close it themselves). */
+export function openConfiguredDb(options: Omit<CreateDbOptions, "url"> = {}): Promise<Database> {
+  return createDb({ ...options, url: configuredUrl() });
+}
+
+// Cached on globalThis so that Next's dev-mode module reloads reuse the open database instead of locking it twice.
+const shared = globalThis as typeof globalThis & { __layerwiseDatabase?: Promise<Database> };
+
+function openShared(): Promise<Database> {
+  const opening = createDb({ url: configuredUrl() });
+  opening.catch(() => {
+    if (shared.__layerwiseDatabase === opening) shared.__layerwiseDatabase = undefined; // let a later call retry
+  });
+  return opening;
+}
+
+/** The app's database client, opened (and migrated) on first use. */
+export async function getDb(): Promise<Db> {
+  return (await (shared.__layerwiseDatabase ??= openShared())).db;
+}
+
+/** Closes the app's database if it is open (end of scripts, tests). */
+export async function closeDb(): Promise<void> {
+  const opening = shared.__layerwiseDatabase;
+  shared.__layerwiseDatabase = undefined;
+  const database = await opening?.catch(() => undefined); // a failed open has nothing to close
+  await database?.close();
+}
