@@ -1,0 +1,144 @@
+/**
+ * Which inputs of a parsed work-up are uncertain, by how much, and how to draw a perturbed copy cheaply: the
+ * sites are found once, and each draw rebuilds only the objects that change (no deep clone, no validation).
+ *
+ * Standard uncertainties (one standard deviation) when a value carries no `se` of its own:
+ *  - log P / log K: estimated 0.7 (the issue's figure; §2.11 gives 0.5–1 for predicted log P), literature 0.2,
+ *    measured 0.1, group 0.3 (a pooled group value normally states its own se);
+ *  - pKa: estimated 0.7, literature 0.1, measured 0.05, group 0.2 (§2.2: ±0.5 for predicted values;
+ *    the rest from memory);
+ *  - every volume ±5 % (issue 3), reagent amounts ±5 % (same figure, by analogy), and a pH set with paper or a
+ *    meter ±0.3 (from memory: the resolution of wide-range pH paper).
+ */
+import type { Component, Operation, Provenance, WorkupInput } from "./schema";
+
+export interface UncertaintyDefaults {
+  logP: Record<Provenance, number>;
+  pKa: Record<Provenance, number>;
+  volumeRelative: number;
+  amountRelative: number;
+  targetPh: number;
+}
+
+export const DEFAULT_UNCERTAINTY: UncertaintyDefaults = {
+  logP: { estimated: 0.7, literature: 0.2, measured: 0.1, group: 0.3 },
+  pKa: { estimated: 0.7, literature: 0.1, measured: 0.05, group: 0.2 },
+  volumeRelative: 0.05,
+  amountRelative: 0.05,
+  targetPh: 0.3,
+};
+
+/** One uncertain input, as listed in the uncertainty result. */
+export interface UncertainInput {
+  /** Where the value sits in the parsed input, e.g. "components.2.pKas.0". */
+  path: string;
+  /** Standard deviation: log units, pKa units, pH units, or a fraction for "relative". */
+  sd: number;
+  scale: "log" | "pKa" | "pH" | "relative";
+}
+
+interface ComponentPlan {
+  logP: number;
+  logK: Array<[string, number]>;
+  pKa: number[];
+}
+
+interface OperationPlan {
+  volume: number;
+  amount: number;
+  targetPh: number;
+  rinse: number;
+}
+
+export interface PerturbationPlan {
+  sites: UncertainInput[];
+  /** Builds one perturbed input; `z(i)` is the standard normal for site i. */
+  draw(z: Float64Array): WorkupInput;
+}
+
+function componentPlan(c: Component, d: UncertaintyDefaults, extraLogSd: number): ComponentPlan {
+  const hasOwnLogK = Object.keys(c.logK).length > 0;
+  return {
+    // The solvent translation of an estimate from log P adds its own error; a solvent-specific value does not.
+    logP: c.logP ? Math.hypot(c.logP.se ?? d.logP[c.logP.provenance], hasOwnLogK ? 0 : extraLogSd) : 0,
+    logK: Object.entries(c.logK).map(([solvent, v]) => [solvent, v.se ?? d.logP[v.provenance]]),
+    pKa: c.pKas.map((p) => p.se ?? d.pKa[p.provenance]),
+  };
+}
+
+function operationPlan(op: Operation, d: UncertaintyDefaults): OperationPlan {
+  const has = (field: string): boolean => field in op && (op as Record<string, unknown>)[field] !== undefined;
+  return {
+    volume: has("volumeMl") ? d.volumeRelative : 0,
+    amount: has("amountMmol") ? d.amountRelative : 0,
+    targetPh: has("targetPh") ? d.targetPh : 0,
+    rinse: has("rinse") ? d.volumeRelative : 0,
+  };
+}
+
+/**
+ * The uncertain sites of `input`. `extraLogSd` adds the solvent-translation error (Collander relation) to every
+ * log P that is not backed by a solvent-specific log K.
+ */
+export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaults = DEFAULT_UNCERTAINTY, extraLogSd = 0): PerturbationPlan {
+  const sites: UncertainInput[] = [];
+  const comps = input.components.map((c) => componentPlan(c, defaults, extraLogSd));
+  comps.forEach((p, i) => {
+    if (p.logP > 0) sites.push({ path: `components.${i}.logP`, sd: p.logP, scale: "log" });
+    for (const [solvent, sd] of p.logK) sites.push({ path: `components.${i}.logK.${solvent}`, sd, scale: "log" });
+    p.pKa.forEach((sd, j) => sites.push({ path: `components.${i}.pKas.${j}`, sd, scale: "pKa" }));
+  });
+  input.mixture.solvents.forEach((_, i) => sites.push({ path: `mixture.solvents.${i}.volumeMl`, sd: defaults.volumeRelative, scale: "relative" }));
+  input.mixture.reagents.forEach((_, i) => sites.push({ path: `mixture.reagents.${i}.volumeMl`, sd: defaults.volumeRelative, scale: "relative" }));
+  const ops = input.operations.map((op) => operationPlan(op, defaults));
+  ops.forEach((p, i) => {
+    if (p.volume > 0) sites.push({ path: `operations.${i}.volumeMl`, sd: p.volume, scale: "relative" });
+    if (p.amount > 0) sites.push({ path: `operations.${i}.amountMmol`, sd: p.amount, scale: "relative" });
+    if (p.targetPh > 0) sites.push({ path: `operations.${i}.targetPh`, sd: p.targetPh, scale: "pH" });
+    if (p.rinse > 0) sites.push({ path: `operations.${i}.rinse.volumeMl`, sd: p.rinse, scale: "relative" });
+  });
+
+  // Volumes and amounts are scaled by exp(sd·z) ≈ 1 + sd·z: positive for any draw, median unchanged.
+  const scale = (value: number, sd: number, zi: number): number => value * Math.exp(sd * zi);
+
+  return {
+    sites,
+    draw(z: Float64Array): WorkupInput {
+      let k = 0;
+      const next = (): number => z[k++] ?? 0;
+      const components = input.components.map((c, i) => {
+        const p = comps[i];
+        if (!p) return c;
+        const logP = c.logP && p.logP > 0 ? { ...c.logP, value: c.logP.value + p.logP * next() } : c.logP;
+        let logK = c.logK;
+        if (p.logK.length > 0) {
+          logK = { ...c.logK };
+          for (const [solvent, sd] of p.logK) {
+            const v = c.logK[solvent];
+            if (v) logK[solvent] = { ...v, value: v.value + sd * next() };
+          }
+        }
+        const pKas = p.pKa.length > 0 ? c.pKas.map((pk, j) => ({ ...pk, value: pk.value + (p.pKa[j] ?? 0) * next() })) : c.pKas;
+        return { ...c, logP, logK, pKas };
+      });
+      const mixture = {
+        solvents: input.mixture.solvents.map((s) => ({ ...s, volumeMl: scale(s.volumeMl, defaults.volumeRelative, next()) })),
+        reagents: input.mixture.reagents.map((r) => ({ ...r, volumeMl: scale(r.volumeMl, defaults.volumeRelative, next()) })),
+      };
+      const operations = input.operations.map((op, i): Operation => {
+        const p = ops[i];
+        if (!p || p.volume + p.amount + p.targetPh + p.rinse === 0) return op;
+        const copy = { ...op } as Record<string, unknown>;
+        if (p.volume > 0) copy.volumeMl = scale(copy.volumeMl as number, p.volume, next());
+        if (p.amount > 0) copy.amountMmol = scale(copy.amountMmol as number, p.amount, next());
+        if (p.targetPh > 0) copy.targetPh = (copy.targetPh as number) + p.targetPh * next();
+        if (p.rinse > 0) {
+          const rinse = copy.rinse as { solvent: string; volumeMl: number };
+          copy.rinse = { ...rinse, volumeMl: scale(rinse.volumeMl, p.rinse, next()) };
+        }
+        return copy as Operation;
+      });
+      return { ...input, components, mixture, operations };
+    },
+  };
+}

@@ -1,0 +1,169 @@
+/**
+ * Propagates input uncertainty (log P, log K, pKa, volumes, amounts, set pH) to an interval for every
+ * component's recovery and purity by seeded Monte Carlo over the simulator (workup-practice §2.11 step 4).
+ * The same seed gives the same draws, so a stored interval can be reproduced; deviation flags compare an
+ * observed recovery with the interval (§2.11 step 5).
+ */
+import { sortedPercentile } from "./distributions";
+import { DEFAULT_UNCERTAINTY, planPerturbation, type UncertainInput, type UncertaintyDefaults } from "./perturb";
+import { createRng } from "./random";
+import { SOLVENTS } from "./data/solvents";
+import type { WorkupInput } from "./schema";
+import type { WorkupPrediction } from "./types";
+
+export type { UncertainInput, UncertaintyDefaults } from "./perturb";
+export { DEFAULT_UNCERTAINTY } from "./perturb";
+
+export type Simulator = (input: WorkupInput) => WorkupPrediction;
+
+export interface UncertaintyOptions {
+  /** Number of Monte Carlo draws. Default 1000. */
+  draws?: number;
+  /** Seed of the random stream. Default 1. */
+  seed?: number;
+  /** Standard uncertainties used when a value states no se of its own. */
+  defaults?: Partial<UncertaintyDefaults>;
+  /**
+   * Extra standard deviation (log units) for translating an octanol–water log P to the extraction solvent;
+   * applied to components without a solvent-specific log K. Default: the largest standard error of the
+   * Collander line (data/solvents.ts `partition.se`) among the water-immiscible solvents the work-up uses.
+   */
+  solventTranslationSd?: number;
+}
+
+/** Summary of one output over the draws. */
+export interface Interval {
+  p025: number;
+  p50: number;
+  p975: number;
+  mean: number;
+  sd: number;
+}
+
+export interface ComponentUncertainty {
+  /** Fraction 0–1 of the starting amount in the isolated fraction. */
+  recovery: Interval;
+  purityPct: Interval;
+  /** Inputs that explain most of the spread in recovery: squared correlation with it, largest first (at most 3). */
+  mainSources: Array<{ path: string; share: number }>;
+}
+
+export interface WorkupUncertainty {
+  draws: number;
+  seed: number;
+  /** Draws the simulator refused (counted, left out of the intervals). */
+  failedDraws: number;
+  components: Record<string, ComponentUncertainty>;
+  crudeMassMg: Interval;
+  inputs: UncertainInput[];
+}
+
+function summarize(values: Float64Array, count: number): Interval {
+  const sorted = values.slice(0, count).sort();
+  let sum = 0;
+  for (const v of sorted) sum += v;
+  const mean = sum / count;
+  let ss = 0;
+  for (const v of sorted) ss += (v - mean) ** 2;
+  return {
+    p025: sortedPercentile(sorted, 0.025),
+    p50: sortedPercentile(sorted, 0.5),
+    p975: sortedPercentile(sorted, 0.975),
+    mean,
+    sd: count > 1 ? Math.sqrt(ss / (count - 1)) : 0,
+  };
+}
+
+function squaredCorrelation(x: Float64Array, y: Float64Array, count: number): number {
+  let mx = 0, my = 0;
+  for (let i = 0; i < count; i++) { mx += x[i] ?? 0; my += y[i] ?? 0; }
+  mx /= count;
+  my /= count;
+  let sxy = 0, sxx = 0, syy = 0;
+  for (let i = 0; i < count; i++) {
+    const dx = (x[i] ?? 0) - mx;
+    const dy = (y[i] ?? 0) - my;
+    sxy += dx * dy;
+    sxx += dx * dx;
+    syy += dy * dy;
+  }
+  return sxx > 0 && syy > 0 ? (sxy * sxy) / (sxx * syy) : 0;
+}
+
+/** Largest Collander-line standard error among the solvents named in the work-up (0 if none has a line). */
+export function solventTranslationSd(input: WorkupInput): number {
+  const named = new Set<string>(input.mixture.solvents.map((s) => s.solvent));
+  for (const op of input.operations) {
+    if ("solvent" in op && typeof op.solvent === "string") named.add(op.solvent);
+    if ("rinse" in op && op.rinse) named.add(op.rinse.solvent);
+  }
+  let sd = 0;
+  for (const key of named) sd = Math.max(sd, SOLVENTS[key]?.partition?.se ?? 0);
+  return sd;
+}
+
+/** Monte Carlo over `simulate` (the engine's fast path; the input must already be parsed). */
+export function propagateUncertainty(input: WorkupInput, simulate: Simulator, options: UncertaintyOptions = {}): WorkupUncertainty {
+  const draws = options.draws ?? 1000;
+  const seed = options.seed ?? 1;
+  if (!Number.isInteger(draws) || draws < 2 || draws > 1_000_000) throw new RangeError(`draws must be a whole number from 2 to 1000000, got ${draws}`);
+  const defaults = { ...DEFAULT_UNCERTAINTY, ...options.defaults };
+  const plan = planPerturbation(input, defaults, options.solventTranslationSd ?? solventTranslationSd(input));
+  const rng = createRng(seed);
+  const keys = input.components.map((c) => c.key);
+  const recovery = keys.map(() => new Float64Array(draws));
+  const purity = keys.map(() => new Float64Array(draws));
+  const crude = new Float64Array(draws);
+  const zBySite = plan.sites.map(() => new Float64Array(draws));
+  const z = new Float64Array(plan.sites.length);
+
+  let ok = 0;
+  let failed = 0;
+  for (let d = 0; d < draws; d++) {
+    for (let s = 0; s < z.length; s++) z[s] = rng.normal();
+    let result: WorkupPrediction;
+    try {
+      result = simulate(plan.draw(z));
+    } catch {
+      failed++;
+      continue;
+    }
+    keys.forEach((key, i) => {
+      (recovery[i] as Float64Array)[ok] = result.recovery[key] ?? 0;
+      (purity[i] as Float64Array)[ok] = result.purityPct[key] ?? 0;
+    });
+    crude[ok] = result.crudeMassMg;
+    for (let s = 0; s < z.length; s++) (zBySite[s] as Float64Array)[ok] = z[s] ?? 0;
+    ok++;
+  }
+  if (ok < 2) throw new Error(`the simulator refused ${failed} of ${draws} perturbed inputs`);
+
+  const components: Record<string, ComponentUncertainty> = {};
+  keys.forEach((key, i) => {
+    const r = recovery[i] as Float64Array;
+    const shares = plan.sites
+      .map((site, s) => ({ path: site.path, share: squaredCorrelation(zBySite[s] as Float64Array, r, ok) }))
+      .filter((x) => x.share >= 0.05)
+      .sort((a, b) => b.share - a.share)
+      .slice(0, 3);
+    components[key] = { recovery: summarize(r, ok), purityPct: summarize(purity[i] as Float64Array, ok), mainSources: shares };
+  });
+  return { draws, seed, failedDraws: failed, components, crudeMassMg: summarize(crude, ok), inputs: plan.sites };
+}
+
+export interface RecoveryComparison {
+  /** (observed − mean)/sd of the predicted recovery; null when the prediction has no spread. */
+  z: number | null;
+  /** Observed recovery outside the 95 % interval. */
+  outside: boolean;
+  direction: "below" | "within" | "above";
+}
+
+/** Where an observed recovery (fraction 0–1) falls against the predicted interval of one component. */
+export function compareRecovery(uncertainty: WorkupUncertainty, key: string, observed: number): RecoveryComparison {
+  const c = uncertainty.components[key];
+  if (!c) throw new RangeError(`no component '${key}' in the uncertainty result`);
+  const { p025, p975, mean, sd } = c.recovery;
+  const direction = observed < p025 ? "below" : observed > p975 ? "above" : "within";
+  return { z: sd > 0 ? (observed - mean) / sd : null, outside: direction !== "within", direction };
+}
