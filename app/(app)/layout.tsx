@@ -1,0 +1,30 @@
+import { type ReactNode } from "react";
+import { AppShell } from "@/components/shell/app-shell";
+import { Providers } from "@/components/shell/providers";
+import { requireMember, type MemberContext } from "@/lib/authz";
+import { pageFailure } from "@/lib/authz/page";
+import { UnauthenticatedError } from "@/lib/errors";
+import { listMyGroups } from "@/lib/groups/queries";
+
+/**
+ * The signed-in frame. It only decides what the frame shows: every page below runs its own guard, because a
+ * layout is not re-rendered on every navigation and so cannot protect the pages inside it.
+ */
+export default async function SignedInLayout({ children }: { children: ReactNode }) {
+  let member: MemberContext;
+  try {
+    member = await requireMember("data:read");
+  } catch (error) {
+    // Signed out: the page redirects to sign-in with its own return path.
+    if (error instanceof UnauthenticatedError) return <>{children}</>;
+    pageFailure(error);
+  }
+  const groups = await listMyGroups(member.user.id);
+  return (
+    <Providers>
+      <AppShell member={member} groups={groups}>
+        {children}
+      </AppShell>
+    </Providers>
+  );
+}

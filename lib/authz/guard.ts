@@ -1,0 +1,113 @@
+// THE authorization guard. Every page loader, server action and route handler gets its MemberContext from here
+// (through requireMember in ./index.ts); nothing else decides who may see or change a group's data.
+// This file does not touch the request, so integration tests can call resolveMember with explicit credentials.
+import { getDb } from "@/lib/db/client";
+import { NoMembershipError, NotFoundError, UnauthenticatedError } from "@/lib/errors";
+import { hashApiToken, looksLikeApiToken } from "@/lib/authz/api-token-format";
+import { assertRoleCan, roleCan, type Permission, type RoleName } from "@/lib/authz/permissions";
+
+/** Who is asking: a signed-in browser session, or a bearer API token. */
+export type Credentials =
+  | { kind: "session"; userId: string; activeGroupId: string | null }
+  | { kind: "token"; token: string };
+
+export interface MemberContext {
+  user: { id: string; email: string; name: string };
+  group: { id: string; name: string; slug: string };
+  role: RoleName;
+  via: "session" | "token";
+}
+
+export interface GuardOptions {
+  /** A group id or slug named by the request; a group the user is not in answers 404. */
+  group?: string;
+}
+
+const memberSelect = {
+  role: true,
+  group: { select: { id: true, name: true, slug: true } },
+  user: { select: { id: true, email: true, name: true } },
+} as const;
+
+/** Only touch lastUsedAt once a minute per token, so reads do not become writes. */
+const LAST_USED_RESOLUTION_MS = 60_000;
+
+async function membershipForToken(token: string, options: GuardOptions) {
+  if (!looksLikeApiToken(token)) throw new UnauthenticatedError("This API token is not valid.");
+  const db = await getDb();
+  const found = await db.apiToken.findUnique({
+    where: { tokenHash: hashApiToken(token) },
+    select: { id: true, userId: true, groupId: true, revokedAt: true, lastUsedAt: true },
+  });
+  if (!found || found.revokedAt) throw new UnauthenticatedError("This API token is not valid or has been revoked.");
+  const membership = await db.membership.findFirst({
+    where: {
+      userId: found.userId,
+      groupId: found.groupId,
+      ...(options.group ? { group: { OR: [{ id: options.group }, { slug: options.group }] } } : {}),
+    },
+    select: memberSelect,
+  });
+  // A token outlives nothing: once its owner leaves the group it opens nothing there.
+  if (!membership) throw options.group ? new NotFoundError("group") : new UnauthenticatedError("This API token's owner is no longer in its group.");
+  const now = new Date();
+  if (!found.lastUsedAt || now.getTime() - found.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
+    await db.apiToken.update({ where: { id: found.id }, data: { lastUsedAt: now }, select: { id: true } });
+  }
+  return membership;
+}
+
+async function membershipForSession(userId: string, activeGroupId: string | null, options: GuardOptions) {
+  const db = await getDb();
+  if (options.group) {
+    const named = await db.membership.findFirst({
+      where: { userId, group: { OR: [{ id: options.group }, { slug: options.group }] } },
+      select: memberSelect,
+    });
+    if (!named) throw new NotFoundError("group");
+    return named;
+  }
+  if (activeGroupId) {
+    const active = await db.membership.findFirst({ where: { userId, groupId: activeGroupId }, select: memberSelect });
+    if (active) return active;
+  }
+  // No active group yet, or the user has since left it: fall back to the group joined first.
+  const first = await db.membership.findFirst({
+    where: { userId },
+    orderBy: [{ createdAt: "asc" }, { id: "asc" }],
+    select: memberSelect,
+  });
+  if (first) return first;
+  const exists = await db.user.findUnique({ where: { id: userId }, select: { id: true } });
+  throw exists ? new NoMembershipError() : new UnauthenticatedError("Your account no longer exists. Sign in again.");
+}
+
+/**
+ * Resolves credentials to the member context for one group and checks the permission.
+ * Throws UnauthenticatedError (401), NoMembershipError (403), NotFoundError (404, a group the user is not in)
+ * or ForbiddenError (403, the role does not hold the permission, or is unknown).
+ */
+export async function resolveMember(
+  credentials: Credentials | null,
+  permission: Permission,
+  options: GuardOptions = {},
+): Promise<MemberContext> {
+  if (!credentials) throw new UnauthenticatedError();
+  const membership =
+    credentials.kind === "token"
+      ? await membershipForToken(credentials.token, options)
+      : await membershipForSession(credentials.userId, credentials.activeGroupId, options);
+  assertRoleCan(membership.role, permission);
+  return { user: membership.user, group: membership.group, role: membership.role, via: credentials.kind };
+}
+
+/** For showing or hiding controls; the action behind a control checks again through the guard. */
+export function can(context: Pick<MemberContext, "role">, permission: Permission): boolean {
+  return roleCan(context.role, permission);
+}
+
+/** Turns a group-scoped lookup that found nothing into a 404. */
+export function found<T>(row: T | null | undefined, what = "record"): T {
+  if (row === null || row === undefined) throw new NotFoundError(what);
+  return row;
+}
