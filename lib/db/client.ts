@@ -83,7 +83,7 @@ async function openPostgres(url: string, options: CreateDbOptions): Promise<Data
 }
 
 /** Opens a database of its own (tests, scripts). The caller closes it. */
-export function createDb(options: CreateDbOptions): Promise<Database> {
+export async function createDb(options: CreateDbOptions): Promise<Database> {
   const { url } = options;
   if (url.startsWith("pglite:")) return openPglite(url.slice("pglite:".length), options);
   if (/^postgres(ql)?:\/\//.test(url)) return openPostgres(url, options);
