@@ -7,3 +7,5 @@ export { type DepictOptions, depictSvg } from "./depict";
 export { type SdfOptions, type SdfRecord, type SdfResult, readSdf, splitSdf } from "./sdf";
 export { type SmilesLine, type SmilesLineResult, readSmilesLines, splitSmilesLines } from "./smiles-lines";
 export { FINGERPRINT_BITS, FINGERPRINT_BYTES, bitIsSet, intersectionCount, morganFingerprint, patternFingerprint, popcount, tanimoto, tanimotoFromCounts } from "./fingerprint";
+export { type EstimatedPKa, detectIonizableSites, estimateIonizableSites } from "./sites";
+export { SITE_CLASSES, type SiteClass } from "./site-classes";
