@@ -10,6 +10,7 @@
  *  - every volume ±5 % (issue 3), reagent amounts ±5 % (same figure, by analogy), and a pH set with paper or a
  *    meter ±0.3 (from memory: the resolution of wide-range pH paper).
  */
+import { LOGP_SE_BY_PROVENANCE } from "./partition";
 import type { Component, Operation, Provenance, WorkupInput } from "./schema";
 
 export interface UncertaintyDefaults {
@@ -21,7 +22,7 @@ export interface UncertaintyDefaults {
 }
 
 export const DEFAULT_UNCERTAINTY: UncertaintyDefaults = {
-  logP: { estimated: 0.7, literature: 0.2, measured: 0.1, group: 0.3 },
+  logP: LOGP_SE_BY_PROVENANCE,
   pKa: { estimated: 0.7, literature: 0.1, measured: 0.05, group: 0.2 },
   volumeRelative: 0.05,
   amountRelative: 0.05,

@@ -8,6 +8,7 @@ import { sortedPercentile } from "./distributions";
 import { DEFAULT_UNCERTAINTY, planPerturbation, type UncertainInput, type UncertaintyDefaults } from "./perturb";
 import { createRng } from "./random";
 import { SOLVENTS } from "./data/solvents";
+import { partitionModelSe } from "./partition";
 import type { WorkupInput } from "./schema";
 import type { WorkupPrediction } from "./types";
 
@@ -98,7 +99,10 @@ export function solventTranslationSd(input: WorkupInput): number {
     if ("rinse" in op && op.rinse) named.add(op.rinse.solvent);
   }
   let sd = 0;
-  for (const key of named) sd = Math.max(sd, SOLVENTS[key]?.partition?.se ?? 0);
+  for (const key of named) {
+    const solvent = SOLVENTS[key];
+    if (solvent && !solvent.waterMiscible) sd = Math.max(sd, partitionModelSe(solvent));
+  }
   return sd;
 }
 

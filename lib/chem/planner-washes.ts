@@ -1,0 +1,131 @@
+/**
+ * Acid and base washes of an organic solution: the pH window that removes a group of ionizable impurities
+ * while keeping the product, the mildest stock reagent inside it, and the smallest wash that does the job
+ * with enough capacity (workup-practice §2.2 two-unit rule, §2.3 wash-loss formula, §2.7 capacity, F4).
+ */
+import { reagentPh } from "./aqueous";
+import { type CompiledReagent } from "./library";
+import { fractionCharged, fractionKeptAfterWashes, niceVolume, reagentCapacity } from "./planner-math";
+import { type Component } from "./schema";
+
+export interface PhWindow { low: number; high: number }
+
+export interface WashGroupPlan {
+  purpose: "remove_acids" | "remove_bases";
+  impurities: string[];
+  /** pH range where the reference wash (2 × half the organic volume) meets both targets; null if none. */
+  window: PhWindow | null;
+  reagent: { key: string; name: string; pH: number } | null;
+  volumeMl: number;
+  portions: number;
+  /** Closed-form estimate at the fresh reagent's pH: fraction of each impurity left in the organic layer. */
+  impurityLeft: Record<string, number>;
+  /** Fraction of the product the wash keeps in the organic layer (closed form). */
+  productKept: number;
+  reasons: string[];
+}
+
+export interface WashContext {
+  product: Component;
+  productD: (pH: number) => number;
+  organicMl: number;
+  maxImpurityLeft: number;
+  /** Least fraction of the product this wash may keep. */
+  productKeepMin: number;
+  maxPortions: number;
+  reagents: ReadonlyMap<string, CompiledReagent>;
+}
+
+export interface Impurity { component: Component; d: (pH: number) => number }
+
+const pct = (x: number): string => `${(100 * x).toPrecision(x < 0.001 ? 1 : 3)} %`;
+const ph = (x: number): string => x.toFixed(1);
+
+/** Stock solutions whose job is to set a pH: acids, bases, buffers, and ammonia/ammonium mixtures. */
+function phReagents(reagents: ReadonlyMap<string, CompiledReagent>): Array<{ key: string; r: CompiledReagent; pH: number }> {
+  const out: Array<{ key: string; r: CompiledReagent; pH: number }> = [];
+  for (const [key, r] of reagents) {
+    if (r.solid) continue;
+    const systems = Object.keys(r.props.systems);
+    const setsPh = ["acid", "base", "buffer"].includes(r.props.purpose) || (systems.length > 0 && systems.every((s) => s === "ammonium"));
+    if (setsPh) out.push({ key, r, pH: reagentPh(r) });
+  }
+  return out;
+}
+
+function findWindow(ctx: WashContext, impurities: Impurity[]): PhWindow | null {
+  const refMl = ctx.organicMl / 2;
+  let best: PhWindow | null = null;
+  let start: number | null = null;
+  for (let i = 0; i <= 280; i++) {
+    const pH = i * 0.05;
+    const ok = impurities.every((imp) => fractionKeptAfterWashes(imp.d(pH), ctx.organicMl, refMl, 2) <= ctx.maxImpurityLeft)
+      && fractionKeptAfterWashes(ctx.productD(pH), ctx.organicMl, refMl, 2) >= ctx.productKeepMin;
+    if (ok && start === null) start = pH;
+    if ((!ok || i === 280) && start !== null) {
+      const end = ok ? pH : pH - 0.05;
+      if (!best || end - start > best.high - best.low) best = { low: start, high: end };
+      start = null;
+    }
+  }
+  return best;
+}
+
+function siteText(c: Component, purpose: WashGroupPlan["purpose"]): string {
+  const kind = purpose === "remove_acids" ? "acid" : "base";
+  const sites = c.pKas.filter((p) => p.kind === kind).map((p) => p.value);
+  const key = purpose === "remove_acids" ? Math.max(...sites) : Math.min(...sites);
+  return purpose === "remove_acids"
+    ? `${c.key} (acid, pKa ${key.toFixed(2)}) is ≥ 99 % ionized at pH ≥ ${ph(key + 2)}, two units above its pKa`
+    : `${c.key} (base, pKaH ${key.toFixed(2)}) is ≥ 99 % protonated at pH ≤ ${ph(key - 2)}, two units below its pKaH`;
+}
+
+export function planWashGroup(ctx: WashContext, purpose: WashGroupPlan["purpose"], impurities: Impurity[]): WashGroupPlan {
+  const keys = impurities.map((i) => i.component.key);
+  const reasons = impurities.map((i) => `${siteText(i.component, purpose)} (workup-practice §2.2).`);
+  const window = findWindow(ctx, impurities);
+  const empty = { purpose, impurities: keys, window, reagent: null, volumeMl: 0, portions: 0, impurityLeft: {}, productKept: 1 };
+  if (!window) {
+    reasons.push(`No pH removes ${keys.join(", ")} to ≤ ${pct(ctx.maxImpurityLeft)} while ${ctx.product.key} keeps ≥ ${pct(ctx.productKeepMin)}: their ionization ranges overlap. Separate them by chromatography or crystallization, or measure their log K to refine this.`);
+    return { ...empty, reasons };
+  }
+  const productLimit = purpose === "remove_acids" ? window.high < 13.95 : window.low > 0.05;
+  reasons.push(`Window pH ${ph(window.low)}–${ph(window.high)}: ${purpose === "remove_acids" ? "below" : "above"} it the impurities stay in the organic layer${productLimit ? `; ${purpose === "remove_acids" ? "above" : "below"} it ${ctx.product.key} ionizes and more than ${pct(1 - ctx.productKeepMin)} of it would go into the washes` : `; ${ctx.product.key} stays neutral across it`}.`);
+
+  const inside = phReagents(ctx.reagents).filter((x) => x.pH >= window.low && x.pH <= window.high);
+  const preferred = inside.filter((x) => x.pH >= window.low + 0.5 && x.pH <= window.high - 0.5);
+  const mildness = (x: { pH: number }): number => Math.round(10 * Math.abs(x.pH - 7));
+  const pick = (preferred.length > 0 ? preferred : inside).sort((a, b) => mildness(a) - mildness(b) || b.r.concentration - a.r.concentration)[0];
+  if (!pick) {
+    reasons.push(`No stock reagent in the library has a pH inside the window; make a buffer near pH ${ph((window.low + window.high) / 2)} (phosphate near pH 7.2, carbonate near 10.3, ammonium near 9.2).`);
+    return { ...empty, reasons };
+  }
+  reasons.push(`${pick.r.props.name} (pH ${ph(pick.pH)}) is the mildest stock reagent in the window: a stronger one adds nothing and risks hydrolysing labile groups (F16).`);
+
+  // Capacity toward the window edge: the wash must take up every impurity site it ionizes and stay in the window.
+  const edge = purpose === "remove_acids" ? window.low : window.high;
+  const perMl = Math.abs(reagentCapacity(pick.r, edge));
+  const needMmol = 1.2 * impurities.reduce((s, i) => s + i.component.amountMmol * fractionCharged(i.component, pick.pH), 0);
+  const minTotalMl = perMl > 0 ? needMmol / perMl : Infinity;
+
+  let choice: { volumeMl: number; portions: number; left: Record<string, number>; kept: number } | null = null;
+  for (const f of [0.25, 0.5, 1]) {
+    const volumeMl = niceVolume(ctx.organicMl * f);
+    for (let portions = 1; portions <= ctx.maxPortions; portions++) {
+      if (volumeMl * portions < minTotalMl) continue;
+      const left = Object.fromEntries(impurities.map((i) => [i.component.key, fractionKeptAfterWashes(i.d(pick.pH), ctx.organicMl, volumeMl, portions)]));
+      const kept = fractionKeptAfterWashes(ctx.productD(pick.pH), ctx.organicMl, volumeMl, portions);
+      if (Object.values(left).some((x) => x > ctx.maxImpurityLeft) || kept < ctx.productKeepMin) continue;
+      const better = !choice || volumeMl * portions < choice.volumeMl * choice.portions
+        || (volumeMl * portions === choice.volumeMl * choice.portions && portions > choice.portions);
+      if (better) choice = { volumeMl, portions, left, kept };
+    }
+  }
+  const reagent = { key: pick.key, name: pick.r.props.name, pH: pick.pH };
+  if (!choice) {
+    reasons.push(`No wash of up to ${ctx.maxPortions} portions of up to ${niceVolume(ctx.organicMl)} mL reaches both targets with ${pick.r.props.name}; consider a more concentrated reagent or a larger organic volume.`);
+    return { ...empty, reagent, reasons };
+  }
+  reasons.push(`${choice.portions} × ${choice.volumeMl} mL carries ${(perMl * choice.volumeMl * choice.portions).toFixed(1)} mmol of ${purpose === "remove_acids" ? "base" : "acid"} capacity above pH ${ph(edge)}, against the ${needMmol.toFixed(2)} mmol needed (1.2 × the impurity, F4); the smallest such wash, so the product loses least.`);
+  return { purpose, impurities: keys, window, reagent, volumeMl: choice.volumeMl, portions: choice.portions, impurityLeft: choice.left, productKept: choice.kept, reasons };
+}

@@ -1,0 +1,213 @@
+/**
+ * Work-up planner: for a mixture and a target (e.g. ≥ 95 % product recovery, ≤ 1 % of each impurity left) it
+ * recommends the acid and base washes (pH window, reagent, volume, portions), the extraction of the product
+ * (pH, portions, volume), says why in words, and checks the revised sequence with the simulator, since wash
+ * capacity and pH drift are only visible there. Recommendations are prompts, not instructions: local rules and
+ * the group's procedures govern.
+ */
+import { z } from "zod";
+import { SOLVENTS } from "./data/solvents";
+import { DEFAULT_LIBRARY, compileLibrary } from "./library";
+import { planExtraction, type ExtractionPlan } from "./planner-extraction";
+import { distributionFunction } from "./planner-math";
+import { planWashGroup, type Impurity, type WashGroupPlan } from "./planner-washes";
+import { operationSchema, type Component, type Operation, type OperationRaw, type WorkupInput } from "./schema";
+import type { WorkupPrediction } from "./types";
+
+export type { ExtractionPlan } from "./planner-extraction";
+export type { PhWindow, WashGroupPlan } from "./planner-washes";
+
+export const planOptionsSchema = z.object({
+  /** Component to recover; default the first with role "product". */
+  product: z.string().trim().min(1, { error: "product must name a component key" }).optional(),
+  targetRecovery: z.number({ error: "targetRecovery must be a number" }).gt(0, { error: "targetRecovery must be > 0" }).lt(1, { error: "targetRecovery must be < 1" }).default(0.95),
+  maxImpurityLeft: z.number({ error: "maxImpurityLeft must be a number" }).gt(0, { error: "maxImpurityLeft must be > 0" }).lt(1, { error: "maxImpurityLeft must be < 1" }).default(0.01),
+  /** Organic solvent (library key); default the first water-immiscible solvent of the mixture or extraction. */
+  solvent: z.string().trim().min(1).optional(),
+  maxPortions: z.number().int().min(1).max(10, { error: "maxPortions must be ≤ 10" }).default(5),
+});
+export type PlanOptions = z.input<typeof planOptionsSchema>;
+
+export interface PlanCheck {
+  /** Predicted recovery of every component after the revised sequence. */
+  recovery: Record<string, number>;
+  meetsTargets: boolean;
+  flags: Array<{ code: string; title: string }>;
+}
+
+export interface WorkupPlan {
+  product: string;
+  solvent: string;
+  targetRecovery: number;
+  maxImpurityLeft: number;
+  washes: WashGroupPlan[];
+  extraction: ExtractionPlan | null;
+  /** Impurities acid/base washes cannot touch, and why. */
+  neutralImpurities: Array<{ key: string; reason: string }>;
+  /** Edits to the input's operation list (1-based steps of the input), in input units. */
+  changes: PlanChange[];
+  check: PlanCheck | null;
+  notes: string[];
+}
+
+export interface PlanChange {
+  action: "insert_before" | "append" | "replace" | "remove";
+  /** 1-based step of the input the edit applies to (absent for append). */
+  step?: number;
+  operation?: OperationRaw;
+}
+
+export type PlanSimulator = (input: WorkupInput) => WorkupPrediction;
+
+const isPhWash = (op: Operation): boolean => {
+  if (op.type !== "wash" || op.keep !== "organic") return false;
+  const purpose = DEFAULT_LIBRARY.reagents[op.reagent]?.purpose;
+  return purpose === "acid" || purpose === "base" || purpose === "buffer";
+};
+const SEPARATING = new Set(["extract", "back_extract", "adjust_ph", "separate", "combine"]);
+
+function pickSolvent(input: WorkupInput, wanted?: string): string {
+  if (wanted) {
+    if (!SOLVENTS[wanted]?.partition) throw new RangeError(`solvent '${wanted}' is not a water-immiscible solvent in the library`);
+    return wanted;
+  }
+  const named = [...input.operations.flatMap((op) => (op.type === "extract" ? [op.solvent] : [])).reverse(), ...input.mixture.solvents.map((s) => s.solvent)];
+  const found = named.find((s) => SOLVENTS[s]?.partition);
+  if (!found) throw new RangeError("the work-up names no water-immiscible solvent; pass plan.solvent");
+  return found;
+}
+
+export function planWorkup(input: WorkupInput, options: PlanOptions = {}, simulate?: PlanSimulator): WorkupPlan {
+  const opts = planOptionsSchema.parse(options);
+  const product = opts.product ? input.components.find((c) => c.key === opts.product) : input.components.find((c) => c.role === "product");
+  if (!product) throw new RangeError(opts.product ? `no component '${opts.product}' in the work-up` : "no component has role 'product'; pass plan.product");
+  const solventKey = pickSolvent(input, opts.solvent);
+  const solvent = SOLVENTS[solventKey];
+  const productD = solvent && distributionFunction(product, solvent);
+  if (!solvent || !productD) throw new RangeError(`${product.key} has neither log P nor a log K for ${solventKey}; the planner needs one`);
+  const reagents = compileLibrary(DEFAULT_LIBRARY).reagents;
+  const nominal = simulate?.(input);
+  const notes: string[] = [];
+
+  const ops = [...input.operations];
+  const lastSeparating = ops.reduce((last, op, i) => (SEPARATING.has(op.type) ? i : last), -1);
+  const extractIndex = ops.findLastIndex((op, i) => i <= lastSeparating && op.type === "extract" && op.keep === "organic");
+  const removed = ops.map((op, i) => (i > lastSeparating && isPhWash(op) ? i : -1)).filter((i) => i >= 0);
+  const finishing = ops.findIndex((op, i) => i > lastSeparating && (op.type === "dry" || op.type === "concentrate" || op.type === "filter" || (op.type === "wash" && !isPhWash(op))));
+  const insertAt = removed[0] ?? (finishing >= 0 ? finishing : ops.length);
+
+  // Organic volume at the washes: from the simulation when there is one, else the mixture's immiscible solvents.
+  const before = insertAt > 0 ? nominal?.steps[insertAt - 1]?.kept : undefined;
+  const organicMl = before?.kind === "organic" ? before.volumeMl
+    : input.mixture.solvents.filter((s) => SOLVENTS[s.solvent]?.partition).reduce((sum, s) => sum + s.volumeMl, 0) || 50;
+
+  const impurities = input.components.filter((c) => c.key !== product.key);
+  const acids: Impurity[] = [];
+  const bases: Impurity[] = [];
+  const neutralImpurities: WorkupPlan["neutralImpurities"] = [];
+  for (const c of impurities) {
+    const d = distributionFunction(c, solvent);
+    if (!d) { notes.push(`${c.key} has no log P or log K: left out of the plan.`); continue; }
+    if (c.pKas.some((p) => p.kind === "acid")) acids.push({ component: c, d });
+    if (c.pKas.some((p) => p.kind === "base")) bases.push({ component: c, d });
+    if (c.pKas.length === 0 && c.fixedCharge === 0) neutralImpurities.push({ key: c.key, reason: neutralReason(c, product) });
+  }
+  const groups = (acids.length > 0 ? 1 : 0) + (bases.length > 0 ? 1 : 0) + (extractIndex >= 0 ? 1 : 0);
+  const productKeepMin = 1 - (1 - opts.targetRecovery) / (groups + 1);
+  const washCtx = { product, productD, organicMl, maxImpurityLeft: opts.maxImpurityLeft, productKeepMin, maxPortions: opts.maxPortions, reagents };
+  const washes: WashGroupPlan[] = [];
+  if (bases.length > 0) washes.push(planWashGroup(washCtx, "remove_bases", bases));
+  if (acids.length > 0) washes.push(planWashGroup(washCtx, "remove_acids", acids));
+
+  let extraction: ExtractionPlan | null = null;
+  const extractOp = extractIndex >= 0 ? ops[extractIndex] : undefined;
+  if (extractOp?.type === "extract") {
+    const aqueous = nominal?.steps[extractIndex]?.contacts[0]?.phases.find((p) => p.kind === "aqueous");
+    extraction = planExtraction({
+      product, productD, solvent: extractOp.solvent, aqueousMl: aqueous?.volumeMl ?? mixtureAqueousMl(input) ?? extractOp.volumeMl,
+      procedurePh: aqueous?.pH ?? null, procedureTotalMl: extractOp.volumeMl * extractOp.portions,
+      targetRecovery: productKeepMin, maxPortions: opts.maxPortions, reagents,
+    });
+  }
+
+  const revise = (extra: number): { operations: Operation[]; changes: PlanChange[] } => {
+    const changes: PlanChange[] = [];
+    const washRaw: OperationRaw[] = washes.filter((w) => w.reagent && w.portions > 0).map((w) => ({
+      type: "wash", reagent: w.reagent?.key ?? "", volume: { value: w.volumeMl, unit: "mL" },
+      portions: Math.min(opts.maxPortions, w.portions + extra), label: `remove ${w.impurities.join(", ")}`,
+    }));
+    const out: Operation[] = [];
+    const insertWashes = (step?: number) => {
+      for (const raw of washRaw) {
+        out.push(operationSchema.parse(raw));
+        changes.push(step === undefined ? { action: "append", operation: raw } : { action: "insert_before", step, operation: raw });
+      }
+    };
+    ops.forEach((op, i) => {
+      if (i === insertAt) insertWashes(i + 1);
+      if (removed.includes(i)) { changes.push({ action: "remove", step: i + 1 }); return; }
+      if (i === extractIndex && extraction && op.type === "extract") {
+        if (extraction.adjust) {
+          const adjustRaw: OperationRaw = { type: "adjust_ph", reagent: extraction.adjust.reagent, targetPh: Number(extraction.adjust.targetPh.toFixed(1)), label: "set the pH before extracting" };
+          const previous = ops[i - 1];
+          if (previous?.type === "adjust_ph" && out[out.length - 1] === previous) {
+            out.pop();
+            changes.push({ action: "replace", step: i, operation: adjustRaw });
+          } else changes.push({ action: "insert_before", step: i + 1, operation: adjustRaw });
+          out.push(operationSchema.parse(adjustRaw));
+        }
+        const extractRaw: OperationRaw = {
+          type: "extract", solvent: op.solvent, volume: { value: extraction.volumeMl, unit: "mL" },
+          portions: Math.min(opts.maxPortions, extraction.portions + extra), keep: op.keep,
+          ...(op.saveAs ? { saveAs: op.saveAs } : {}), ...(op.label ? { label: op.label } : {}),
+        };
+        out.push(operationSchema.parse(extractRaw));
+        changes.push({ action: "replace", step: i + 1, operation: extractRaw });
+        return;
+      }
+      out.push(op);
+    });
+    if (insertAt >= ops.length) insertWashes();
+    return { operations: out, changes };
+  };
+
+  let revised = revise(0);
+  let check: PlanCheck | null = null;
+  if (simulate) {
+    for (let extra = 0; extra <= 3; extra++) {
+      revised = revise(extra);
+      check = checkPlan(simulate({ ...input, operations: revised.operations }), product.key, [...acids, ...bases].map((i) => i.component.key), opts);
+      if (check.meetsTargets) {
+        if (extra > 0) notes.push(`The simulation needed ${extra} more portion(s) per wash or extraction than the closed-form estimate (pH drift as a wash is used up, §2.7); the changes include them.`);
+        break;
+      }
+    }
+    if (check && !check.meetsTargets) notes.push("The simulated sequence still misses a target; see the check and the flags.");
+  }
+  return {
+    product: product.key, solvent: solventKey, targetRecovery: opts.targetRecovery, maxImpurityLeft: opts.maxImpurityLeft,
+    washes, extraction, neutralImpurities, changes: revised.changes, check, notes,
+  };
+}
+
+/** Water and water-miscible liquid in the starting mixture, mL (null if none). */
+function mixtureAqueousMl(input: WorkupInput): number | null {
+  const ml = input.mixture.solvents.filter((s) => SOLVENTS[s.solvent]?.waterMiscible).reduce((sum, s) => sum + s.volumeMl, 0)
+    + input.mixture.reagents.reduce((sum, r) => sum + r.volumeMl, 0)
+    + input.operations.reduce((sum, op) => sum + (op.type === "charge" && SOLVENTS[op.solvent]?.waterMiscible ? op.volumeMl : 0), 0);
+  return ml > 0 ? ml : null;
+}
+
+function neutralReason(c: Component, product: Component): string {
+  if (product.pKas.length > 0) {
+    return `${c.key} is neutral but ${product.key} is ionizable: a pH swing separates them (take the product into water at the pH that ionizes it, wash the water with solvent to carry ${c.key} away, then set the pH back and extract).`;
+  }
+  return `${c.key} and ${product.key} are both neutral: acid and base washes cannot separate them; use chromatography, crystallization or distillation.`;
+}
+
+function checkPlan(prediction: WorkupPrediction, product: string, impurities: string[], opts: z.output<typeof planOptionsSchema>): PlanCheck {
+  const recovery = prediction.recovery;
+  const meetsTargets = (recovery[product] ?? 0) >= opts.targetRecovery
+    && impurities.every((k) => (recovery[k] ?? 0) <= opts.maxImpurityLeft);
+  return { recovery, meetsTargets, flags: prediction.flags.map((f) => ({ code: f.code, title: f.title })) };
+}
