@@ -1,0 +1,158 @@
+/**
+ * One zod schema per workup input, shared by the editor form, the server actions, the REST routes, the CSV importer
+ * and the OpenAPI document, so the two sides never disagree. Browser-safe: zod and lib/chem's schema only.
+ * Amounts in the header are mmol; masses mg; percentages 0–100.
+ */
+import { z } from "zod";
+import { workupInputSchema } from "@/lib/chem/schema";
+
+export const PURITY_METHODS = ["qnmr", "hplc", "gc", "weight_only"] as const;
+export type PurityMethodName = (typeof PURITY_METHODS)[number];
+export const OUTCOME_STATUSES = ["as_expected", "below", "above", "unknown"] as const;
+export type OutcomeStatusName = (typeof OUTCOME_STATUSES)[number];
+
+/** Largest amount accepted in a header field: 10 kmol, far above any bench or kilo-lab workup. */
+const MAX_MMOL = 1e7;
+
+const optionalMmol = (label: string) =>
+  z
+    .number({ error: `${label} must be a number (mmol)` })
+    .positive({ error: `${label} must be > 0 mmol` })
+    .max(MAX_MMOL, { error: `${label} must be ≤ 10 kmol` })
+    .nullable()
+    .optional();
+
+const recordId = (label: string) =>
+  z.string({ error: `${label} must be an id` }).trim().min(1, { error: `${label} must not be empty` }).max(64, { error: `${label} is too long` });
+
+/** A calendar date as YYYY-MM-DD (the day the workup was run), stored as midnight UTC. */
+export const isoDateSchema = (label: string) =>
+  z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` }).transform((day) => new Date(`${day}T00:00:00.000Z`));
+
+export const workupHeaderSchema = z.object({
+  title: z.string({ error: "title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "title must be ≤ 200 characters" }),
+  performedOn: isoDateSchema("performedOn"),
+  /** A member of the group; null or omitted when not recorded. */
+  chemistId: recordId("chemistId").nullable().optional(),
+  /** Notebook book/page or electronic page id. */
+  notebookRef: z.string().trim().max(100, { error: "notebookRef must be ≤ 100 characters" }).default(""),
+  /** Reaction scale: mmol of the limiting reagent. */
+  scaleMmol: optionalMmol("scaleMmol"),
+  /** Theoretical product amount. */
+  expectedProductMmol: optionalMmol("expectedProductMmol"),
+  /** Product present before the workup by an in-process assay (qNMR/HPLC), when one was taken. */
+  assayedProductMmol: optionalMmol("assayedProductMmol"),
+});
+
+/** Which registered compound each spec component is (by the component's key in the spec). */
+export const componentLinkSchema = z.object({
+  key: z.string({ error: "key is required" }).trim().min(1, { error: "key is required" }).max(64),
+  compoundId: recordId("compoundId").nullable(),
+});
+
+const saveFields = {
+  header: workupHeaderSchema,
+  spec: workupInputSchema,
+  links: z.array(componentLinkSchema).max(50, { error: "at most 50 component links" }).default([]),
+};
+
+function linksMatchSpec(
+  input: { spec: { components: { key: string }[] }; links: { key: string }[] },
+  ctx: z.RefinementCtx,
+) {
+  const keys = new Set(input.spec.components.map((c) => c.key));
+  const seen = new Set<string>();
+  input.links.forEach((link, i) => {
+    if (!keys.has(link.key)) ctx.addIssue({ code: "custom", path: ["links", i, "key"], message: `no component '${link.key}' in the spec` });
+    if (seen.has(link.key)) ctx.addIssue({ code: "custom", path: ["links", i, "key"], message: `component '${link.key}' is linked twice` });
+    seen.add(link.key);
+  });
+}
+
+/** Body of a create: header, the engine's spec (units at every quantity) and compound links. */
+export const createWorkupSchema = z.object(saveFields).superRefine(linksMatchSpec);
+
+/** Body of an update: the same, plus the version the editor opened (a stale one is refused with 409). */
+export const updateWorkupSchema = z
+  .object({
+    ...saveFields,
+    baseVersion: z.number({ error: "baseVersion must be the version number you opened" }).int().min(1, { error: "baseVersion must be ≥ 1" }),
+  })
+  .superRefine(linksMatchSpec);
+
+export const LAYER_PHASES = ["organic", "aqueous", "emulsion", "solid"] as const;
+
+/** Assay of the product (or another component) in one stream of one step, to locate losses (workup-practice §5.1). */
+export const layerAssaySchema = z.object({
+  step: z.number({ error: "step must be a number" }).int({ error: "step must be a whole number" }).min(1, { error: "step must be ≥ 1" }).max(200),
+  phase: z.enum(LAYER_PHASES, { error: () => `phase must be one of ${LAYER_PHASES.join(", ")}` }),
+  /** Spec component key; the product when omitted. */
+  compoundKey: z.string().trim().min(1).max(64).optional(),
+  amountMmol: z.number({ error: "amountMmol must be a number" }).min(0, { error: "amountMmol must be ≥ 0" }).max(MAX_MMOL),
+  volumeMl: z.number().positive({ error: "volumeMl must be > 0" }).max(1e6).optional(),
+  portion: z.number().int().min(1).max(50).optional(),
+});
+
+export const outcomeInputSchema = z
+  .object({
+    isolatedMassMg: z
+      .number({ error: "isolatedMassMg must be a number (mg)" })
+      .min(0, { error: "isolatedMassMg must be ≥ 0 mg" })
+      .max(1e9, { error: "isolatedMassMg must be ≤ 1000 kg" }),
+    /** Mass % of product in the isolated material; required unless the method is weight_only (then taken as 100 %). */
+    purityPct: z.number({ error: "purityPct must be a number" }).gt(0, { error: "purityPct must be > 0" }).max(100, { error: "purityPct must be ≤ 100" }).nullable().optional(),
+    purityMethod: z.enum(PURITY_METHODS, { error: () => `purityMethod must be one of ${PURITY_METHODS.join(", ")}` }),
+    layerAssays: z.array(layerAssaySchema).max(100, { error: "at most 100 layer assays" }).default([]),
+    notes: z.string().max(5000, { error: "notes must be ≤ 5000 characters" }).default(""),
+  })
+  .superRefine((o, ctx) => {
+    if (o.purityMethod !== "weight_only" && (o.purityPct === null || o.purityPct === undefined)) {
+      ctx.addIssue({ code: "custom", path: ["purityPct"], message: `purityPct is required when the purity was measured by ${o.purityMethod}` });
+    }
+  });
+
+const booleanParam = z.union([
+  z.boolean(),
+  z.enum(["true", "false", "1", "0", ""], { error: () => "must be true or false" }).transform((v) => v === "true" || v === "1"),
+]);
+
+/** List filters; every field optional. Query strings and form values arrive as strings and are coerced here. */
+export const workupListFilterSchema = z
+  .object({
+    /** Words matched in the title, notebook reference and component / compound names (all words must match). */
+    q: z.string().trim().max(200, { error: "search text must be ≤ 200 characters" }).optional(),
+    compoundId: recordId("compoundId").optional(),
+    /** Solvent key as used in specs (e.g. etoac, dcm). */
+    solvent: z.string().trim().toLowerCase().min(1).max(64).optional(),
+    chemistId: recordId("chemistId").optional(),
+    from: isoDateSchema("from").optional(),
+    to: isoDateSchema("to").optional(),
+    flagged: booleanParam.optional(),
+    status: z.enum(OUTCOME_STATUSES, { error: () => `status must be one of ${OUTCOME_STATUSES.join(", ")}` }).optional(),
+    /** Opaque cursor from the previous page's `next`. */
+    cursor: z.string().max(200).optional(),
+    limit: z.coerce.number({ error: "limit must be a number" }).int().min(1, { error: "limit must be ≥ 1" }).max(200, { error: "limit must be ≤ 200" }).default(25),
+  })
+  .refine((f) => !f.from || !f.to || f.from <= f.to, { error: "the start date must not be after the end date", path: ["to"] });
+
+/** Prediction without saving (POST /api/v1/predict). */
+export const predictRequestSchema = z.object({
+  spec: workupInputSchema,
+  /** Monte Carlo draws for the interval; 0 skips the interval. */
+  draws: z.number().int().min(0).max(2000, { error: "draws must be ≤ 2000" }).default(400),
+  seed: z.number().int().min(1).max(2 ** 31 - 1).optional(),
+});
+
+export type WorkupHeaderInput = z.input<typeof workupHeaderSchema>;
+export type WorkupHeader = z.output<typeof workupHeaderSchema>;
+export type ComponentLink = z.output<typeof componentLinkSchema>;
+export type CreateWorkupInput = z.input<typeof createWorkupSchema>;
+export type CreateWorkup = z.output<typeof createWorkupSchema>;
+export type UpdateWorkupInput = z.input<typeof updateWorkupSchema>;
+export type UpdateWorkup = z.output<typeof updateWorkupSchema>;
+export type OutcomeInputRaw = z.input<typeof outcomeInputSchema>;
+export type OutcomeInput = z.output<typeof outcomeInputSchema>;
+export type LayerAssay = z.output<typeof layerAssaySchema>;
+export type WorkupListFilterInput = z.input<typeof workupListFilterSchema>;
+export type WorkupListFilter = z.output<typeof workupListFilterSchema>;
+export type PredictRequest = z.output<typeof predictRequestSchema>;
