@@ -2,7 +2,8 @@
 // data dir by default; PostgreSQL through node-postgres when DATABASE_URL is set. Everything else gets a PrismaClient.
 // Opening a database also brings it up to date with the committed migrations (lib/db/migrate.ts), on the same PGlite
 // instance the client then uses, because PGlite is single-process.
-import { PrismaClient } from "@/generated/prisma/client";
+import type * as runtime from "@prisma/client/runtime/client";
+import { type Prisma, PrismaClient } from "@/generated/prisma/client";
 import { env } from "@/lib/env";
 import { displayPath, lockDataDir } from "./lock";
 import { migrate, type MigrateOptions } from "./migrate";
@@ -18,7 +19,27 @@ export const secretColumns = {
   invite: { tokenHash: true },
 } as const;
 
-export type Db = PrismaClient<never, typeof secretColumns>;
+type PrismaDb = PrismaClient<never, typeof secretColumns>;
+type TransactionOptions = Parameters<PrismaDb["$transaction"]>[1];
+
+/** The client inside an interactive transaction, with the same secret columns omitted. */
+export type DbTransaction = Omit<PrismaDb, runtime.ITXClientDenyList>;
+
+/**
+ * The app's database client. Prisma 7.10 types the interactive-transaction client without the global `omit`
+ * (secret columns would type-check there yet be undefined at run time), so `$transaction` is re-declared with
+ * DbTransaction; the object itself is Prisma's.
+ */
+export type Db = Omit<PrismaDb, "$transaction"> & {
+  $transaction<R>(fn: (tx: DbTransaction) => Promise<R>, options?: TransactionOptions): Promise<R>;
+  $transaction<P extends Prisma.PrismaPromise<unknown>[]>(
+    queries: [...P],
+    options?: Pick<NonNullable<TransactionOptions>, "isolationLevel">,
+  ): Promise<runtime.Types.Utils.UnwrapTuple<P>>;
+};
+
+const newClient = (adapter: runtime.SqlDriverAdapterFactory): Db =>
+  new PrismaClient({ adapter, omit: secretColumns });
 
 export interface Database {
   db: Db;
@@ -44,7 +65,7 @@ async function openPglite(dir: string, options: CreateDbOptions): Promise<Databa
     try {
       await pglite.waitReady;
       if (options.migrate !== false) await migrate(pgliteSession(pglite), options);
-      const db = new PrismaClient({ adapter: new PrismaPGlite(pglite), omit: secretColumns });
+      const db = newClient(new PrismaPGlite(pglite));
       return {
         db,
         close: async () => {
@@ -78,7 +99,7 @@ async function openPostgres(url: string, options: CreateDbOptions): Promise<Data
       await session.end();
     }
   }
-  const db = new PrismaClient({ adapter: new PrismaPg({ connectionString: url }), omit: secretColumns });
+  const db = newClient(new PrismaPg({ connectionString: url }));
   return { db, close: () => db.$disconnect() };
 }
 

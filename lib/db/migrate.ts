@@ -112,16 +112,19 @@ async function ensureHistoryTable(db: SqlSession): Promise<void> {
 function checkHistory(rows: HistoryRow[], files: MigrationFile[]): Set<string> {
   const byName = new Map(files.map((f) => [f.name, f]));
   const applied = new Set<string>();
-  for (const row of rows) {
-    if (row.rolled_back_at) continue;
+  const live = rows.filter((row) => !row.rolled_back_at);
+  const unfinished = live.find((row) => !row.finished_at);
+  if (unfinished) {
+    // Prisma's P3009. Our own runs never leave such a row; Prisma's engine does when a migration fails.
+    const name = unfinished.migration_name;
+    throw new MigrationError(
+      `Migration ${name} is recorded as started but never finished (a failed run of Prisma's own tool?). ` +
+        `Check the database, then mark it with "node scripts/prisma-offline.mjs resolve --rolled-back ${name}" (or --applied).`,
+      name,
+    );
+  }
+  for (const row of live) {
     const name = row.migration_name;
-    if (!row.finished_at) {
-      throw new MigrationError(
-        `Migration ${name} is recorded as started but never finished (a failed run of Prisma's own tool?). ` +
-          `Check the database, then mark it with "node scripts/prisma-offline.mjs resolve --rolled-back ${name}" (or --applied).`,
-        name,
-      );
-    }
     const file = byName.get(name);
     if (!file) {
       throw new MigrationError(`Migration ${name} is applied to the database but missing from this checkout: the database is newer than this code.`, name);

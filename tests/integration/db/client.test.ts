@@ -53,6 +53,10 @@ describeEachDatabase("client", (t) => {
     expect(await t.db.apiToken.findUniqueOrThrow({ where: { id: token.id } })).not.toHaveProperty("tokenHash");
     expect(await t.db.apiToken.findUnique({ where: { tokenHash: "tok-hash" }, omit: { tokenHash: false } })).toHaveProperty("tokenHash", "tok-hash");
 
+    await t.db.$transaction(async (tx) => {
+      expect(await tx.user.findUniqueOrThrow({ where: { id: user.id } })).not.toHaveProperty("passwordHash");
+    });
+
     const invite = await t.db.invite.create({
       data: { groupId: group.id, tokenHash: "inv-hash", role: "member", createdById: user.id, expiresAt: new Date(Date.now() + 86_400_000) },
     });
