@@ -1,0 +1,135 @@
+/**
+ * Aqueous pH by charge balance. Every aqueous contact is solved for the pH at which cations and anions balance:
+ * strong ions (Na⁺, Cl⁻, …), the weak acid–base systems of the reagents (carbonate, phosphate, citrate,
+ * ammonium, hydrogen sulfate, …), water, and the mixture's own acids and bases — the last distributing between
+ * the layers at the same time, so mass balance sits inside the root solve. Activity coefficients are taken as 1
+ * (the "ideal" pH of reference-data §4c); concentrated solutions read differently on a meter.
+ * The residual is monotone in pH, so a bracketed Brent solve on pH ∈ [−2, 16] always converges.
+ */
+import { N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, CARBONATE, type CompiledReagent } from "./library";
+
+/** Ion product of water at 25 °C, pKw = 14.00 (standard value). */
+export const KW = 1e-14;
+/** Enthalpy of H⁺ + OH⁻ → H₂O: ΔfH°(H₂O, l) − ΔfH°(OH⁻, aq) = −285.830 + 230.015 = −55.8 kJ/mol (CODATA key values). */
+export const HEAT_OF_NEUTRALIZATION_KJ_PER_MOL = -55.8;
+/** CO₂ dissolved in water under 1 atm CO₂ at 25 °C, mol/L (Henry's law; ≈0.03 M, workup-practice §2.7, memory). */
+export const CO2_SATURATION_M = 0.034;
+export const PH_MIN = -2;
+export const PH_MAX = 16;
+
+/** Mean charge of an acid–base system at [H⁺] = h: z₀ minus the mean number of protons lost. */
+export function systemMeanCharge(system: number, h: number): number {
+  const ka = SYSTEM_KA[system] as Float64Array;
+  let term = 1, sum = 1, lost = 0;
+  for (let i = 0; i < ka.length; i++) {
+    term *= (ka[i] as number) / h;
+    sum += term;
+    lost += (i + 1) * term;
+  }
+  return (SYSTEM_Z0[system] as number) - lost / sum;
+}
+
+/** Fraction of a system in its fully protonated form (H₂CO₃* for carbonate). */
+export function systemFractionProtonated(system: number, h: number): number {
+  const ka = SYSTEM_KA[system] as Float64Array;
+  let term = 1, sum = 1;
+  for (let i = 0; i < ka.length; i++) {
+    term *= (ka[i] as number) / h;
+    sum += term;
+  }
+  return 1 / sum;
+}
+
+/** Protons carried per formula unit relative to the fully deprotonated form. */
+export function systemBoundProtons(system: number, h: number): number {
+  const ka = SYSTEM_KA[system] as Float64Array;
+  return ka.length - ((SYSTEM_Z0[system] as number) - systemMeanCharge(system, h)) ;
+}
+
+export interface ChargeBalance {
+  /** Net positive charge concentration (mol/L) at this pH; decreasing in pH. */
+  residual(pH: number): number;
+}
+
+/** Brent's method on a bracketed, monotone residual; returns the pH where it crosses zero. */
+export function solvePh(balance: ChargeBalance, tolerance = 1e-10): number {
+  let a = PH_MIN, b = PH_MAX;
+  let fa = balance.residual(a), fb = balance.residual(b);
+  if (fa <= 0) return a;
+  if (fb >= 0) return b;
+  let c = a, fc = fa, d = b - a, e = d;
+  for (let iter = 0; iter < 100; iter++) {
+    if ((fb > 0) === (fc > 0)) { c = a; fc = fa; d = b - a; e = d; }
+    if (Math.abs(fc) < Math.abs(fb)) { a = b; b = c; c = a; fa = fb; fb = fc; fc = fa; }
+    const tol = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tolerance;
+    const m = 0.5 * (c - b);
+    if (Math.abs(m) <= tol || fb === 0) return b;
+    if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
+      const s = fb / fa;
+      let p: number, q: number;
+      if (a === c) { p = 2 * m * s; q = 1 - s; } else {
+        const qq = fa / fc, r = fb / fc;
+        p = s * (2 * m * qq * (qq - r) - (b - a) * (r - 1));
+        q = (qq - 1) * (r - 1) * (s - 1);
+      }
+      if (p > 0) q = -q; else p = -p;
+      if (2 * p < Math.min(3 * m * q - Math.abs(tol * q), Math.abs(e * q))) { e = d; d = p / q; } else { d = m; e = m; }
+    } else { d = m; e = m; }
+    a = b; fa = fb;
+    b += Math.abs(d) > tol ? d : m > 0 ? tol : -tol;
+    fb = balance.residual(b);
+  }
+  return b;
+}
+
+/** A plain aqueous solution: net strong-ion charge (mol/L) and the total of each acid–base system (mol/L). */
+export interface AqueousComposition {
+  strongCharge: number;
+  systems: ArrayLike<number>;
+  /** Extra acids and bases (e.g. the mixture's own), as independent sites with total concentration, mol/L. */
+  solutes?: { concentration: number; sites: { pKa: number; kind: "acid" | "base" }[] }[];
+}
+
+class PlainBalance implements ChargeBalance {
+  constructor(private readonly c: AqueousComposition) {}
+  residual(pH: number): number {
+    const h = 10 ** -pH;
+    let f = this.c.strongCharge + h - KW / h;
+    for (let s = 0; s < N_SYSTEMS; s++) {
+      const t = this.c.systems[s] ?? 0;
+      if (t > 0) f += t * systemMeanCharge(s, h);
+    }
+    for (const sol of this.c.solutes ?? []) {
+      let z = 0;
+      for (const site of sol.sites) {
+        const ka = 10 ** -site.pKa;
+        z += site.kind === "acid" ? -ka / (h + ka) : h / (h + ka);
+      }
+      f += sol.concentration * z;
+    }
+    return f;
+  }
+}
+
+/** pH of an aqueous solution by charge balance (ideal activities). */
+export function aqueousPh(composition: AqueousComposition): number {
+  return solvePh(new PlainBalance(composition));
+}
+
+const freshPh = new WeakMap<CompiledReagent, number>();
+
+/** pH of a fresh reagent solution (cached); NaN for solids. */
+export function reagentPh(r: CompiledReagent): number {
+  if (r.solid) return NaN;
+  const hit = freshPh.get(r);
+  if (hit !== undefined) return hit;
+  const pH = aqueousPh({ strongCharge: r.strongCharge, systems: r.systems });
+  freshPh.set(r, pH);
+  return pH;
+}
+
+/** CO₂ above saturation in an aqueous phase, mmol, that leaves as gas (carbonate total in mmol, volume in mL). */
+export function co2Excess(carbonateMmol: number, volumeMl: number, h: number): number {
+  const dissolved = carbonateMmol * systemFractionProtonated(CARBONATE, h);
+  return Math.max(0, dissolved - CO2_SATURATION_M * volumeMl);
+}

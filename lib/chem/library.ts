@@ -1,0 +1,154 @@
+/**
+ * The property library a prediction runs against (solvents, aqueous reagents, drying agents), and its compiled
+ * numeric form. Groups edit a JSON copy; predictWorkup accepts overrides that replace or add entries by key.
+ * Compilation is cached per library object so Monte-Carlo runs pay for it once.
+ */
+import { DRYING_AGENTS, type DryingAgentProps } from "./data/drying-agents";
+import { ACID_SYSTEMS, REAGENTS, STRONG_ION_CHARGE, type AcidSystem, type ReagentProps, type StrongIon } from "./data/reagents";
+import { SOLVENTS, WATER_KEY, type SolventProps } from "./data/solvents";
+import { cosolventLogK, setschenowConstant } from "./partition";
+
+export interface Library {
+  solvents: Readonly<Record<string, SolventProps>>;
+  reagents: Readonly<Record<string, ReagentProps>>;
+  dryingAgents: Readonly<Record<string, DryingAgentProps>>;
+}
+
+export interface LibraryOverrides {
+  solvents?: Record<string, SolventProps>;
+  reagents?: Record<string, ReagentProps>;
+  dryingAgents?: Record<string, DryingAgentProps>;
+}
+
+export const DEFAULT_LIBRARY: Library = { solvents: SOLVENTS, reagents: REAGENTS, dryingAgents: DRYING_AGENTS };
+
+const merged = new WeakMap<object, Library>();
+
+/** The default library with the overrides applied (cached per overrides object). */
+export function resolveLibrary(overrides?: LibraryOverrides): Library {
+  if (!overrides || (!overrides.solvents && !overrides.reagents && !overrides.dryingAgents)) return DEFAULT_LIBRARY;
+  const hit = merged.get(overrides);
+  if (hit) return hit;
+  const lib: Library = {
+    solvents: overrides.solvents ? { ...SOLVENTS, ...overrides.solvents } : SOLVENTS,
+    reagents: overrides.reagents ? { ...REAGENTS, ...overrides.reagents } : REAGENTS,
+    dryingAgents: overrides.dryingAgents ? { ...DRYING_AGENTS, ...overrides.dryingAgents } : DRYING_AGENTS,
+  };
+  merged.set(overrides, lib);
+  return lib;
+}
+
+export const SYSTEM_KEYS = Object.keys(ACID_SYSTEMS) as AcidSystem[];
+export const N_SYSTEMS = SYSTEM_KEYS.length;
+export const CARBONATE = SYSTEM_KEYS.indexOf("carbonate");
+/** Acid dissociation constants of each system, K = 10^−pKa. */
+export const SYSTEM_KA: readonly Float64Array[] = SYSTEM_KEYS.map((k) => Float64Array.from(ACID_SYSTEMS[k].pKas, (p) => 10 ** -p.value));
+export const SYSTEM_Z0: readonly number[] = SYSTEM_KEYS.map((k) => ACID_SYSTEMS[k].z0);
+
+export interface CompiledReagent {
+  props: ReagentProps;
+  solid: boolean;
+  /** Solutions: g/mL; solids: molar mass g/mol. */
+  density: number;
+  molarMass: number;
+  /** Defining concentration (mol/L) for solutions. */
+  concentration: number;
+  /** Per mL of solution (mmol) or per mmol of solid: net strong-ion charge, Σz²·n, Σn. */
+  strongCharge: number;
+  strongZ2: number;
+  osmoles: number;
+  systems: Float64Array;
+}
+
+export interface CompiledLibrary {
+  lib: Library;
+  solventKeys: string[];
+  solventIndex: Map<string, number>;
+  solvents: SolventProps[];
+  density: Float64Array;
+  bpC: Float64Array;
+  miscible: Uint8Array;
+  /** Mass fractions at saturation, 0–1. */
+  solventInWater: Float64Array;
+  waterInSolvent: Float64Array;
+  /** Setschenow constant of the solvent itself (salt lowers how much dissolves in the aqueous layer). */
+  selfSetschenow: Float64Array;
+  reagents: Map<string, CompiledReagent>;
+  /** log K of water-miscible solvent j between organic solvent i and water, at [j * n + i]. */
+  cosolventLogK: Float64Array;
+  ionLogKOffset: Float64Array;
+  ionPairLogKOffset: Float64Array;
+}
+
+export const WATER = 0;
+
+function compileReagent(r: ReagentProps): CompiledReagent {
+  let strongCharge = 0, strongZ2 = 0, osmoles = 0;
+  for (const [ion, c] of Object.entries(r.ions) as [StrongIon, number][]) {
+    const z = STRONG_ION_CHARGE[ion];
+    strongCharge += z * c;
+    strongZ2 += z * z * c;
+    osmoles += c;
+  }
+  const systems = new Float64Array(N_SYSTEMS);
+  for (const [sys, c] of Object.entries(r.systems) as [AcidSystem, number][]) systems[SYSTEM_KEYS.indexOf(sys)] = c;
+  const solid = r.kind === "solid";
+  return {
+    props: r, solid, density: r.density?.value ?? 1, molarMass: solid ? r.basis.value : 0,
+    concentration: solid ? 0 : r.basis.value, strongCharge, strongZ2, osmoles, systems,
+  };
+}
+
+function cosolventMatrix(solvents: SolventProps[]): Float64Array {
+  const n = solvents.length;
+  const m = new Float64Array(n * n);
+  solvents.forEach((cos, j) => {
+    if (!cos.waterMiscible || j === WATER) return;
+    solvents.forEach((org, i) => { if (!org.waterMiscible) m[j * n + i] = cosolventLogK(cos, org); });
+  });
+  return m;
+}
+
+const compiled = new WeakMap<Library, CompiledLibrary>();
+
+export function compileLibrary(lib: Library): CompiledLibrary {
+  const hit = compiled.get(lib);
+  if (hit) return hit;
+  const keys = [WATER_KEY, ...Object.keys(lib.solvents).filter((k) => k !== WATER_KEY)];
+  const solvents = keys.map((k) => {
+    const s = lib.solvents[k];
+    if (!s) throw new Error(`solvent library has no '${k}'`);
+    return s;
+  });
+  const f64 = (fn: (s: SolventProps) => number) => Float64Array.from(solvents, fn);
+  const out: CompiledLibrary = {
+    lib,
+    solventKeys: keys,
+    solventIndex: new Map(keys.map((k, i) => [k, i])),
+    solvents,
+    density: f64((s) => s.density.value),
+    bpC: f64((s) => s.bpC.value),
+    miscible: Uint8Array.from(solvents, (s) => (s.waterMiscible ? 1 : 0)),
+    solventInWater: f64((s) => (s.solventInWaterWtPct?.value ?? 0) / 100),
+    waterInSolvent: f64((s) => (s.waterInSolventWtPct?.value ?? 0) / 100),
+    selfSetschenow: f64((s) => setschenowConstant(s.logP.value)),
+    cosolventLogK: cosolventMatrix(solvents),
+    ionLogKOffset: f64((s) => s.ionLogKOffset),
+    ionPairLogKOffset: f64((s) => s.ionPairLogKOffset),
+    reagents: new Map(Object.entries(lib.reagents).map(([k, r]) => [k, compileReagent(r)])),
+  };
+  compiled.set(lib, out);
+  return out;
+}
+
+const idealized = new WeakMap<Library, Library>();
+
+/** The library with solvent and water treated as mutually insoluble (textbook extraction arithmetic). */
+export function idealLibrary(lib: Library): Library {
+  const hit = idealized.get(lib);
+  if (hit) return hit;
+  const solvents = Object.fromEntries(Object.entries(lib.solvents).map(([k, s]) => [k, { ...s, solventInWaterWtPct: null, waterInSolventWtPct: null }]));
+  const out: Library = { ...lib, solvents };
+  idealized.set(lib, out);
+  return out;
+}

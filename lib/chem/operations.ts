@@ -1,0 +1,283 @@
+/**
+ * The operations of workup-practice §1.2 acting on the simulator's streams. Wash, back-extraction and
+ * extraction are one physics (§1.1): mix, equilibrate, split, keep one layer; they differ in what is added
+ * (aqueous reagent or organic solvent) and in which layer carries on. Each portion is a fresh equilibration.
+ */
+import { reagentPh } from "./aqueous";
+import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
+import { WATER } from "./library";
+import { type OperationOf, type Operation } from "./schema";
+import { type ContactContext, type Simulator } from "./simulator";
+import { addAt, type Stream } from "./stream";
+
+type Details = Record<string, number | string | boolean>;
+type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => Details;
+
+function ctx(sim: Simulator, op: Operation, step: number, portion: number, keep: ContactContext["keep"],
+  reagentKey: string | null, inputs: readonly Stream[]): ContactContext {
+  return {
+    step, opType: op.type, portion, keep, reagentKey, reagent: reagentKey ? sim.reagent(reagentKey) : null, inputs,
+    temperatureC: op.temperatureC ?? sim.input.temperatureC,
+  };
+}
+
+/** Equilibrates the current stream in place (no separation) so the step shows its layers and pH. */
+function settle(sim: Simulator, op: Operation, step: number, reagentKey: string | null, inputs: readonly Stream[]): void {
+  const before = sim.current;
+  const out = sim.contact(before, ctx(sim, op, step, 1, null, reagentKey, inputs));
+  const merged = out.org;
+  merged.addFrom(out.aq, 1);
+  merged.lastPh = out.aq.lastPh;
+  sim.current = merged;
+}
+
+const charge: Handler<"charge"> = (sim, op, step) => {
+  addAt(sim.current.solv, sim.solventIndex(op.solvent), op.volumeMl);
+  sim.residue = false;
+  if (op.solvent === "water") settle(sim, op, step, null, [sim.current.clone()]);
+  return { volumeMl: op.volumeMl };
+};
+
+function reagentVolume(sim: Simulator, key: string, volumeMl: number | undefined, amountMmol: number | undefined): number {
+  if (volumeMl !== undefined) return volumeMl;
+  const r = sim.reagent(key);
+  return r.concentration > 0 ? (amountMmol ?? 0) / r.concentration : 0;
+}
+
+const quench: Handler<"quench"> = (sim, op, step) => {
+  const r = sim.reagent(op.reagent);
+  const v = reagentVolume(sim, op.reagent, op.volumeMl, op.amountMmol);
+  const fresh = sim.freshReagent(r, v);
+  const before = sim.current.clone();
+  sim.current.addFrom(fresh, 1);
+  sim.residue = false;
+  settle(sim, op, step, op.reagent, [before, fresh]);
+  const gas = op.reactive?.gasPerMol !== undefined ? op.reactive.amountMmol * op.reactive.gasPerMol : 0;
+  return { reagentVolumeMl: v, gasMmol: gas };
+};
+
+/** n portions of an aqueous reagent against the current stream (wash: organic kept; back-extract: aqueous kept). */
+const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
+  const r = sim.reagent(op.reagent);
+  const other = sim.newStream();
+  let organic = sim.current;
+  for (let p = 1; p <= op.portions; p++) {
+    const fresh = sim.freshReagent(r, op.volumeMl);
+    const mix = organic.clone();
+    mix.addFrom(fresh, 1);
+    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, [organic, fresh]));
+    organic = out.org;
+    other.addFrom(out.aq, 1);
+    other.lastPh = out.aq.lastPh;
+  }
+  if (op.keep === "organic") {
+    sim.current = organic;
+    sim.divert(step, other, op.saveAs, op.portions > 1 ? "combined aqueous washes" : "aqueous wash");
+  } else {
+    sim.current = other;
+    sim.divert(step, organic, op.saveAs, "washed organic layer");
+  }
+  return { portions: op.portions, reagentPh: reagentPh(r) };
+};
+
+/** n portions of organic solvent against the current stream; the extracts are combined. */
+const extract: Handler<"extract"> = (sim, op, step) => {
+  const si = sim.solventIndex(op.solvent);
+  const extracts = sim.newStream();
+  let aqueous = sim.current;
+  for (let p = 1; p <= op.portions; p++) {
+    const mix = aqueous.clone();
+    addAt(mix.solv, si, op.volumeMl);
+    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, null, [aqueous]));
+    aqueous = out.aq;
+    extracts.addFrom(out.org, 1);
+  }
+  if (op.keep === "organic") {
+    sim.current = extracts;
+    sim.divert(step, aqueous, op.saveAs, "extracted aqueous layer");
+  } else {
+    sim.current = aqueous;
+    sim.divert(step, extracts, op.saveAs, "combined organic extracts");
+  }
+  return { portions: op.portions };
+};
+
+const separate: Handler<"separate"> = (sim, op, step) => {
+  const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, [sim.current]));
+  sim.current = op.keep === "organic" ? out.org : out.aq;
+  sim.divert(step, op.keep === "organic" ? out.aq : out.org, op.saveAs, op.keep === "organic" ? "aqueous layer" : "organic layer");
+  return {};
+};
+
+const combine: Handler<"combine"> = (sim, op, step) => {
+  const inputs = [sim.current.clone()];
+  for (const name of op.streams) {
+    const rec = sim.saved.get(name);
+    if (!rec) throw new Error(`no stream saved as '${name}'`);
+    inputs.push(rec.stream);
+    sim.current.addFrom(rec.stream, 1);
+    rec.fate = "combined";
+    sim.saved.delete(name);
+  }
+  sim.residue = false;
+  settle(sim, op, step, null, inputs);
+  return { streams: op.streams.join(", ") };
+};
+
+/** Adds reagent; with a target pH, finds the volume by bisection on log volume (pH is monotone in it). */
+const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
+  const r = sim.reagent(op.reagent);
+  let v = reagentVolume(sim, op.reagent, op.volumeMl, op.amountMmol);
+  const details: Details = {};
+  if (op.targetPh !== undefined) {
+    const target = op.targetPh;
+    const phWith = (vol: number) => {
+      const mix = sim.current.clone();
+      mix.addFrom(sim.freshReagent(r, vol), 1);
+      sim.eq.equilibrate(mix, sim.newStream(), sim.newStream());
+      return sim.eq.pH;
+    };
+    const start = phWith(1e-9);
+    const raising = reagentPh(r) > start;
+    const needs = (pH: number) => (raising ? pH < target : pH > target);
+    let lo = 1e-6, hi = Math.max(1, sim.current.totalVolume()) * 10;
+    if (!needs(start)) { v = 0; details.alreadyAtTarget = true; } else if (needs(phWith(hi))) {
+      v = hi;
+      details.targetReached = false;
+    } else {
+      for (let i = 0; i < 60; i++) {
+        const mid = Math.sqrt(lo * hi);
+        if (needs(phWith(mid))) lo = mid; else hi = mid;
+        if (hi / lo < 1 + 1e-6) break;
+      }
+      v = hi;
+      details.targetReached = true;
+    }
+  }
+  const fresh = sim.freshReagent(r, v);
+  const before = sim.current.clone();
+  if (v > 0) sim.current.addFrom(fresh, 1);
+  settle(sim, op, step, op.reagent, [before, fresh]);
+  details.reagentVolumeMl = v;
+  details.reagentMmol = v * r.concentration;
+  return details;
+};
+
+const addSalt: Handler<"add_salt"> = (sim, op, step) => {
+  const r = sim.reagent(op.salt);
+  const water = sim.current.solv[WATER] as number;
+  let mmol: number;
+  if (op.saturate) {
+    const sol = r.props.solubilityGPer100g?.value ?? 0;
+    const saturated = (((sol / 100) * water * (sim.lib.density[WATER] as number)) / r.molarMass) * 1000;
+    const present = r.osmoles > 0 ? sim.current.osmoles / r.osmoles : 0;
+    mmol = Math.max(0, saturated - present);
+  } else mmol = (((op.massG ?? 0) / r.molarMass) * 1000);
+  const before = sim.current.clone();
+  sim.current.addReagent(r, mmol, sim.lib.density[WATER] as number);
+  settle(sim, op, step, op.salt, [before]);
+  return { saltMmol: mmol, saltG: (mmol * r.molarMass) / 1000 };
+};
+
+const removeCosolvent: Handler<"remove_cosolvent"> = (sim, op, step) => {
+  const i = sim.solventIndex(op.solvent);
+  const removed = (sim.current.solv[i] as number) * op.fractionRemoved;
+  addAt(sim.current.solv, i, -removed);
+  const gone = sim.newStream();
+  gone.solv[i] = removed;
+  sim.leave(step, gone, "evaporated", `evaporated ${op.solvent}`);
+  return { removedMl: removed };
+};
+
+const dry: Handler<"dry"> = (sim, op, step) => {
+  const agent = sim.lib.lib.dryingAgents[op.agent];
+  if (!agent) throw new Error(`unknown drying agent '${op.agent}'`);
+  const cur = sim.current;
+  const waterG = (cur.solv[WATER] as number) * (sim.lib.density[WATER] as number);
+  const neededG = waterG / agent.capacityGPerG.value;
+  const massG = op.massG ?? neededG * DRYING_AGENT_EXCESS;
+  const absorbedG = Math.min(waterG, massG * agent.capacityGPerG.value);
+  addAt(cur.solv, WATER, -(absorbedG / (sim.lib.density[WATER] as number)));
+  // Hold-up: the spent agent keeps holdUp·mass mL of solution; a rinse of V_r leaves Vh/(Vh + V_r) of that behind.
+  const volume = cur.totalVolume();
+  const holdUp = agent.holdUpMlPerG.value * massG;
+  let retained = volume > 0 ? Math.min(1, holdUp / volume) : 0;
+  if (op.rinse) {
+    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), op.rinse.volumeMl);
+    retained *= holdUp / (holdUp + op.rinse.volumeMl);
+  }
+  const held = sim.newStream();
+  held.addFrom(cur, retained);
+  for (let c = 0; c < cur.comp.length; c++) addAt(cur.comp, c, -(held.comp[c] as number));
+  for (let i = 0; i < cur.solv.length; i++) addAt(cur.solv, i, -(held.solv[i] as number));
+  held.solid = true;
+  const water = sim.newStream();
+  water.solv[WATER] = absorbedG / (sim.lib.density[WATER] as number);
+  held.addFrom(water, 1);
+  sim.leave(step, held, "drying_agent", `${agent.name} (spent)`);
+  return { waterG, agentNeededG: neededG, agentRecommendedG: neededG * DRYING_AGENT_EXCESS, agentUsedG: massG,
+    waterLeftG: waterG - absorbedG, holdUpMl: holdUp, fractionHeldUp: retained };
+};
+
+/** Hold-up of solution on a filter cake or pad, mL per g (memory, as for drying agents). */
+const CAKE_HOLD_UP_ML_PER_G = 1;
+
+const filter: Handler<"filter"> = (sim, op, step) => {
+  const cur = sim.current;
+  const solid = sim.newStream();
+  solid.solid = true;
+  for (const key of op.solidComponents) {
+    const c = sim.comps.keys.indexOf(key);
+    solid.comp[c] = cur.comp[c] as number;
+    cur.comp[c] = 0;
+  }
+  const volume = cur.totalVolume();
+  const holdUp = (op.cakeMassG ?? 0) * CAKE_HOLD_UP_ML_PER_G;
+  let retained = volume > 0 ? Math.min(1, holdUp / volume) : 0;
+  if (op.rinse) {
+    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), op.rinse.volumeMl);
+    if (holdUp > 0) retained *= holdUp / (holdUp + op.rinse.volumeMl);
+  }
+  const wet = sim.newStream();
+  wet.addFrom(cur, retained);
+  for (let c = 0; c < cur.comp.length; c++) addAt(cur.comp, c, -(wet.comp[c] as number));
+  for (let i = 0; i < cur.solv.length; i++) addAt(cur.solv, i, -(wet.solv[i] as number));
+  solid.addFrom(wet, 1);
+  if (op.keep === "solid") {
+    sim.divert(step, cur, op.saveAs, "filtrate");
+    sim.current = solid;
+  } else sim.leave(step, solid, "filter_cake", "filter cake");
+  return { fractionHeldUp: retained };
+};
+
+/** Solvents above these normal boiling points stay in the crude (assumption; DMF, DMSO, NMP on a rotavap). */
+export const RETAINED_SOLVENT_BP_C = { rotavap: 130, n2_stream: 130, distillation: 130, high_vacuum: 200 } as const;
+/** Components below these normal boiling points are predicted to evaporate with the solvent (assumption). */
+export const LOST_COMPONENT_BP_C = { rotavap: 100, n2_stream: 100, distillation: 100, high_vacuum: 150 } as const;
+
+const concentrate: Handler<"concentrate"> = (sim, op, step) => {
+  const cur = sim.current;
+  const waterMl = cur.solv[WATER] as number;
+  const gone = sim.newStream();
+  const cut = RETAINED_SOLVENT_BP_C[op.method];
+  for (let i = 0; i < cur.solv.length; i++) {
+    if ((sim.lib.bpC[i] as number) < cut) { gone.solv[i] = cur.solv[i] as number; cur.solv[i] = 0; }
+  }
+  const lostCut = LOST_COMPONENT_BP_C[op.method];
+  sim.input.components.forEach((c, ci) => {
+    if (c.bpC !== undefined && c.bpC < lostCut) { gone.comp[ci] = cur.comp[ci] as number; cur.comp[ci] = 0; }
+  });
+  sim.leave(step, gone, "evaporated", "evaporated solvent");
+  sim.residue = true;
+  return { method: op.method, bathC: op.bathC, waterMl };
+};
+
+const handlers: { [T in Operation["type"]]: Handler<T> } = {
+  charge, quench, wash: (s, o, i) => aqueousPortions(s, o, i), back_extract: (s, o, i) => aqueousPortions(s, o, i), extract, separate, combine,
+  adjust_ph: adjustPh, add_salt: addSalt, remove_cosolvent: removeCosolvent, dry, filter, concentrate,
+};
+
+export function applyOperation(sim: Simulator, op: Operation, step: number): Details {
+  const h = handlers[op.type] as Handler<typeof op.type>;
+  return h(sim, op, step);
+}

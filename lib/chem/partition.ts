@@ -1,0 +1,97 @@
+/**
+ * Solvent-specific partition coefficients of neutral solutes, and the corrections applied at each contact.
+ *  - Collander-type lines log K_s = a·log P_oct + b (Collander 1951; Leo, Hansch & Elkins 1971), one line for
+ *    H-bond-donor solutes and one for the rest; coefficients and their confidence live in data/solvents.ts.
+ *  - A group's own value for the compound and solvent (component.logK[solvent]) overrides the estimate.
+ *  - Salting out of neutrals (Setschenow): log K rises by K_s·c_salt; K_s from 0.04·log P + 0.114 L/mol
+ *    ([Ks-code], reference-data §5) unless given.
+ *  - Cosolvency (log-linear model, Yalkowsky & Roseman 1981): a water-miscible solvent at volume fraction f in
+ *    the aqueous phase raises aqueous solubility by 10^(σ·f), so log K falls by σ·f; σ = m·log P + n
+ *    (form of Li & Yalkowsky 1998).
+ */
+import { type SolventProps } from "./data/solvents";
+import { type Component, type LogValue } from "./schema";
+
+/** Standard error (log units) of a log P by provenance when none is given (issue 3: estimated ±0.7). */
+export const LOGP_SE_BY_PROVENANCE: Record<LogValue["provenance"], number> = { measured: 0.1, literature: 0.2, group: 0.3, estimated: 0.7 };
+
+/** Salting-out gain is capped: the linear Setschenow form is least reliable above 2–3 M (§2.5, memory). */
+export const MAX_SALTING_OUT_LOG_GAIN = 1.5;
+export const MAX_SETSCHENOW_SALT_M = 6;
+
+export interface SolventLogK {
+  value: number;
+  /** Standard error of the value, log units: the component's own, or log P's combined with the line's. */
+  se: number;
+  origin: "component" | "collander";
+  provenance: LogValue["provenance"];
+}
+
+/** True when the solute is an H-bond donor (carboxylic acid, phenol, alcohol): taken from its acidic sites. */
+export function isHBondDonor(c: Pick<Component, "pKas">): boolean {
+  return c.pKas.some((p) => p.kind === "acid");
+}
+
+export function collanderLogK(logP: number, solvent: SolventProps, donor: boolean): number {
+  const m = solvent.partition;
+  if (!m) throw new Error(`solvent '${solvent.key}' is water-miscible and has no partition line`);
+  const line = donor ? m.donor : m.acceptor;
+  return line.a * logP + line.b;
+}
+
+/** Standard error of a log K predicted from a Collander line (exported for the uncertainty engine). */
+export function partitionModelSe(solvent: SolventProps): number {
+  return solvent.partition?.se ?? 1;
+}
+
+/** The octanol–water log P, or one back-calculated from any solvent log K the component carries. */
+export function effectiveLogP(c: Pick<Component, "logP" | "logK" | "pKas">, solvents: Readonly<Record<string, SolventProps>>): LogValue | null {
+  if (c.logP) return c.logP;
+  for (const [key, v] of Object.entries(c.logK)) {
+    const line = solvents[key]?.partition;
+    if (!line) continue;
+    const l = isHBondDonor(c) ? line.donor : line.acceptor;
+    return { value: (v.value - l.b) / l.a, provenance: v.provenance, se: Math.hypot(v.se ?? LOGP_SE_BY_PROVENANCE[v.provenance], line.se) };
+  }
+  return null;
+}
+
+/** log K of the neutral form between `solvent` and water: the component's own value, else the Collander line. */
+export function solventLogK(c: Pick<Component, "logP" | "logK" | "pKas">, solvent: SolventProps,
+  solvents: Readonly<Record<string, SolventProps>>): SolventLogK | null {
+  const own = c.logK[solvent.key];
+  if (own) return { value: own.value, se: own.se ?? LOGP_SE_BY_PROVENANCE[own.provenance], origin: "component", provenance: own.provenance };
+  const logP = effectiveLogP(c, solvents);
+  if (!logP || !solvent.partition) return null;
+  const se = Math.hypot(logP.se ?? LOGP_SE_BY_PROVENANCE[logP.provenance], partitionModelSe(solvent));
+  return { value: collanderLogK(logP.value, solvent, isHBondDonor(c)), se, origin: "collander", provenance: logP.provenance };
+}
+
+/** Setschenow constant in NaCl, L/mol: 0.04·log P + 0.114 ([Ks-code]; attribution to Ni & Yalkowsky 2003 from memory). */
+export function setschenowConstant(logP: number): number {
+  return Math.max(0, 0.04 * logP + 0.114);
+}
+
+/** Rise in log K of a neutral solute from salt at concentration `saltM` (mol/L), capped (§2.5). */
+export function saltingOutShift(setschenowK: number, saltM: number): number {
+  return Math.min(MAX_SALTING_OUT_LOG_GAIN, setschenowK * Math.min(saltM, MAX_SETSCHENOW_SALT_M));
+}
+
+/** Cosolvency power σ = log(S_cosolvent/S_water) of a solute in a water-miscible solvent; never negative here. */
+export function cosolvencyPower(logP: number, cosolvent: SolventProps): number {
+  const c = cosolvent.cosolvency;
+  if (!c) return 0;
+  return Math.max(0, c.m * logP + c.n);
+}
+
+/** Fall in log K when the aqueous phase holds a water-miscible solvent at volume fraction f (log-linear model). */
+export function cosolvencyShift(sigma: number, volumeFraction: number): number {
+  return -sigma * volumeFraction;
+}
+
+/** Distribution ratio of a water-miscible solvent between an organic solvent and water, from its own log P. */
+export function cosolventLogK(cosolvent: SolventProps, organic: SolventProps): number {
+  if (!organic.partition) return 0;
+  const donor = cosolvent.family === "alcohol";
+  return collanderLogK(cosolvent.logP.value, organic, donor);
+}

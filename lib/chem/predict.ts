@@ -1,0 +1,189 @@
+/**
+ * Public entry points. predictWorkup validates once (schema, then references to the library) and calls
+ * simulateWorkup, the fast path that trusts its input: the Monte-Carlo engine calls it thousands of times.
+ */
+import { type CompiledComponents, compileComponents } from "./components";
+import { evaluateCautions } from "./cautions";
+import { evaluateFlags, type FlagContext } from "./flags";
+import { compileLibrary, idealLibrary, resolveLibrary, WATER, type CompiledLibrary, type Library, type LibraryOverrides } from "./library";
+import { applyOperation } from "./operations";
+import { RETAINED_SOLVENT_BP_C } from "./operations";
+import { contactResult, sideStream, summarize } from "./report";
+import { workupInputSchema, type WorkupInput, type WorkupInputRaw } from "./schema";
+import { Simulator } from "./simulator";
+import { addAt } from "./stream";
+import { type ComponentOutcome, type ContactResult, type StepResult, type WorkupPrediction } from "./types";
+import { ENGINE_VERSION } from "./version";
+
+export interface PredictOptions extends LibraryOverrides {
+  /** Build every step's phase detail (default true). Monte-Carlo callers pass false for recoveries only. */
+  steps?: boolean;
+  /** Evaluate failure-mode flags and safety cautions (default true). */
+  flags?: boolean;
+  /** Treat every solvent as insoluble in water and water as insoluble in it (textbook comparisons; default false). */
+  idealPhases?: boolean;
+}
+
+export interface ValidationIssue {
+  path: string;
+  message: string;
+}
+
+export class WorkupValidationError extends Error {
+  readonly status = 422;
+  constructor(readonly issues: ValidationIssue[]) {
+    super(issues.map((i) => (i.path ? `${i.path}: ${i.message}` : i.message)).join("; "));
+    this.name = "WorkupValidationError";
+  }
+}
+
+export type ValidationResult = { success: true; data: WorkupInput } | { success: false; issues: ValidationIssue[] };
+
+/** Schema check plus every solvent, reagent and drying agent named must exist in the library. */
+export function validateWorkup(input: unknown, options: LibraryOverrides = {}): ValidationResult {
+  const parsed = workupInputSchema.safeParse(input);
+  if (!parsed.success) {
+    return { success: false, issues: parsed.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })) };
+  }
+  const issues = checkLibraryReferences(parsed.data, resolveLibrary(options));
+  return issues.length > 0 ? { success: false, issues } : { success: true, data: parsed.data };
+}
+
+export function checkLibraryReferences(w: WorkupInput, lib: Library): ValidationIssue[] {
+  const issues: ValidationIssue[] = [];
+  const solvent = (path: string, key: string, organic = false) => {
+    const s = lib.solvents[key];
+    if (!s) issues.push({ path, message: `unknown solvent '${key}'` });
+    else if (organic && (s.waterMiscible || key === "water")) issues.push({ path, message: `'${key}' is water-miscible and cannot form an extraction layer` });
+  };
+  const reagent = (path: string, key: string, solid: boolean) => {
+    const r = lib.reagents[key];
+    if (!r) issues.push({ path, message: `unknown reagent '${key}'` });
+    else if ((r.kind === "solid") !== solid) issues.push({ path, message: solid ? `'${key}' is not a solid salt` : `'${key}' is a solid; use add_salt` });
+  };
+  w.mixture.solvents.forEach((s, i) => solvent(`mixture.solvents.${i}.solvent`, s.solvent));
+  w.mixture.reagents.forEach((r, i) => reagent(`mixture.reagents.${i}.reagent`, r.reagent, false));
+  w.operations.forEach((op, i) => {
+    const p = `operations.${i}`;
+    switch (op.type) {
+      case "charge": solvent(`${p}.solvent`, op.solvent); break;
+      case "extract": solvent(`${p}.solvent`, op.solvent, true); break;
+      case "remove_cosolvent": solvent(`${p}.solvent`, op.solvent); break;
+      case "quench": case "wash": case "back_extract": case "adjust_ph": reagent(`${p}.reagent`, op.reagent, false);
+        if (op.type === "quench" || op.type === "adjust_ph") {
+          const r = lib.reagents[op.reagent];
+          if (r && op.amountMmol !== undefined && !(r.basis.value > 0)) issues.push({ path: `${p}.amount`, message: `'${op.reagent}' has no concentration; give a volume` });
+        }
+        break;
+      case "add_salt": reagent(`${p}.salt`, op.salt, true); break;
+      case "dry": if (!lib.dryingAgents[op.agent]) issues.push({ path: `${p}.agent`, message: `unknown drying agent '${op.agent}'` }); break;
+      default: break;
+    }
+    if ((op.type === "dry" || op.type === "filter") && op.rinse) solvent(`${p}.rinse.solvent`, op.rinse.solvent);
+  });
+  w.components.forEach((c, i) => {
+    if (!c.logP && Object.keys(c.logK).length === 0) issues.push({ path: `components.${i}.logP`, message: `component '${c.key}' needs logP or a logK for a solvent` });
+  });
+  return issues;
+}
+
+export function predictWorkup(input: WorkupInputRaw, options: PredictOptions = {}): WorkupPrediction {
+  const v = validateWorkup(input, options);
+  if (!v.success) throw new WorkupValidationError(v.issues);
+  return simulateWorkup(v.data, options);
+}
+
+function usedSolvents(w: WorkupInput, lib: CompiledLibrary): number[] {
+  const used = new Set<number>();
+  const add = (k: string) => { const i = lib.solventIndex.get(k); if (i !== undefined) used.add(i); };
+  for (const s of w.mixture.solvents) add(s.solvent);
+  for (const op of w.operations) {
+    if (op.type === "charge" || op.type === "extract") add(op.solvent);
+    if ((op.type === "dry" || op.type === "filter") && op.rinse) add(op.rinse.solvent);
+  }
+  return [...used];
+}
+
+/** Fast path: no validation, no zod. `parsed` must come from workupInputSchema (or be a perturbed copy of one). */
+export function simulateWorkup(parsed: WorkupInput, options: PredictOptions = {}): WorkupPrediction {
+  const library = resolveLibrary(options);
+  const lib = compileLibrary(options.idealPhases ? idealLibrary(library) : library);
+  const comps = compileComponents(parsed.components, lib, usedSolvents(parsed, lib));
+  const detail = options.steps !== false;
+  const withFlags = options.flags !== false;
+  const sim = new Simulator(parsed, lib, comps, withFlags);
+  const cur = sim.current;
+  for (const s of parsed.mixture.solvents) addAt(cur.solv, lib.solventIndex.get(s.solvent) ?? WATER, s.volumeMl);
+  for (const r of parsed.mixture.reagents) {
+    const rr = lib.reagents.get(r.reagent);
+    if (rr) cur.addReagent(rr, r.volumeMl, lib.density[WATER] as number);
+  }
+  cur.comp.set(comps.startMmol);
+
+  const steps: StepResult[] = [];
+  let contacts: ContactResult[] = [];
+  if (detail) sim.onContact = (ctx, out) => contacts.push(contactResult(lib, comps, sim.eq, out, ctx.portion));
+  parsed.operations.forEach((op, i) => {
+    const index = i + 1;
+    const firstContact = sim.contacts.length;
+    const sideBefore = sim.side.length;
+    contacts = [];
+    const details = applyOperation(sim, op, index);
+    sim.stepTraces.push({ index, type: op.type, details, firstContact, contactCount: sim.contacts.length - firstContact });
+    if (detail) {
+      steps.push({
+        index, type: op.type, label: op.label ?? op.type, contacts, details,
+        kept: summarize(lib, comps, sim.current, sim.residue),
+        sideStreams: sim.side.slice(sideBefore).map((x) => sideStream(lib, comps, x)),
+      });
+    }
+  });
+  return assemble(parsed, library, lib, comps, sim, steps, withFlags);
+}
+
+function assemble(w: WorkupInput, library: Library, lib: CompiledLibrary, comps: CompiledComponents, sim: Simulator,
+  steps: StepResult[], withFlags: boolean): WorkupPrediction {
+  const iso = sim.current;
+  const residualSolventsMg: Record<string, number> = {};
+  let solventMg = 0;
+  for (let i = 0; i < lib.solventKeys.length; i++) {
+    const v = iso.solv[i] as number;
+    if (v <= 1e-9 || (lib.bpC[i] as number) < RETAINED_SOLVENT_BP_C.rotavap) continue;
+    const mg = v * (lib.density[i] as number) * 1000;
+    residualSolventsMg[lib.solventKeys[i] as string] = mg;
+    solventMg += mg;
+  }
+  let componentMg = 0;
+  for (let c = 0; c < comps.count; c++) componentMg += (iso.comp[c] as number) * (comps.molarMass[c] as number);
+  const crudeMassMg = componentMg + solventMg;
+  const recovery: Record<string, number> = {};
+  const purityPct: Record<string, number> = {};
+  const components: ComponentOutcome[] = w.components.map((c, ci) => {
+    const isolatedMmol = iso.comp[ci] as number;
+    const r = c.amountMmol > 0 ? isolatedMmol / c.amountMmol : 0;
+    const mg = isolatedMmol * c.molarMass;
+    const purity = crudeMassMg > 0 ? (100 * mg) / crudeMassMg : 0;
+    recovery[c.key] = r;
+    purityPct[c.key] = purity;
+    return { key: c.key, name: c.name, role: c.role, startMmol: c.amountMmol, isolatedMmol, recovery: r, isolatedMg: mg, purityPct: purity };
+  });
+  const productIndex = w.components.findIndex((c) => c.role === "product");
+  const ctx: FlagContext = {
+    input: w, library, lib, comps, contacts: sim.contacts, steps: sim.stepTraces, side: sim.side, isolated: iso,
+    recovery: Float64Array.from(components, (c) => c.recovery), productIndex, crudeMassMg, residualSolventsMg,
+  };
+  return {
+    engineVersion: ENGINE_VERSION,
+    steps,
+    isolated: summarize(lib, comps, iso, sim.residue),
+    components,
+    recovery,
+    purityPct,
+    crudeMassMg,
+    residualSolventsMg,
+    productKey: productIndex >= 0 ? (w.components[productIndex]?.key ?? null) : null,
+    sideStreams: sim.side.map((x) => sideStream(lib, comps, x)),
+    flags: withFlags ? evaluateFlags(ctx) : [],
+    cautions: withFlags ? evaluateCautions(ctx) : [],
+  };
+}
