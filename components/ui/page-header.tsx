@@ -12,10 +12,12 @@ export function PageHeader({ title, description, actions }: { title: string; des
   );
 }
 
+/** A titled section; the title names the region for screen readers (titles are unique within a page). */
 export function Card({ title, children, className = "" }: { title?: string; children: ReactNode; className?: string }) {
+  const headingId = title ? `card-${title.toLowerCase().replace(/[^a-z0-9]+/g, "-")}` : undefined;
   return (
-    <section className={`rounded-lg border border-stone-200 bg-white p-5 shadow-xs ${className}`}>
-      {title ? <h2 className="mb-3 text-base font-semibold text-stone-900">{title}</h2> : null}
+    <section aria-labelledby={headingId} className={`rounded-lg border border-stone-200 bg-white p-5 shadow-xs ${className}`}>
+      {title ? <h2 id={headingId} className="mb-3 text-base font-semibold text-stone-900">{title}</h2> : null}
       {children}
     </section>
   );

@@ -14,6 +14,13 @@ function requestedGroupId(update: unknown): string | null {
   return typeof update.activeGroupId === "string" ? update.activeGroupId : null;
 }
 
+async function singleSignOnUser(profile: unknown, displayName: string | null | undefined) {
+  const email = oidcEmail(profile as OidcProfile | undefined);
+  // The signIn callback has already refused profiles without a verified email; this only keeps the types honest.
+  if (email === null) throw new Error("The identity provider did not confirm an email address.");
+  return userForSingleSignOn(email, displayName ?? null);
+}
+
 function buildAuthOptions(): NextAuthOptions {
   const settings = env();
   const credentials = CredentialsProvider({
@@ -43,14 +50,11 @@ function buildAuthOptions(): NextAuthOptions {
       },
       async jwt({ token, user, account, profile, trigger, session }) {
         if (user) {
-          const account_ =
-            account?.provider === OIDC_PROVIDER_ID
-              ? await userForSingleSignOn(oidcEmail(profile as OidcProfile)!, user.name ?? null)
-              : { id: user.id, email: user.email ?? "", name: user.name ?? "" };
-          token.uid = account_.id;
-          token.email = account_.email;
-          token.name = account_.name;
-          token.activeGroupId = await firstGroupId(account_.id);
+          const signedIn = account?.provider === OIDC_PROVIDER_ID ? await singleSignOnUser(profile, user.name) : { id: user.id, email: user.email ?? "", name: user.name ?? "" };
+          token.uid = signedIn.id;
+          token.email = signedIn.email;
+          token.name = signedIn.name;
+          token.activeGroupId = await firstGroupId(signedIn.id);
         }
         if (trigger === "update" && token.uid) {
           const wanted = requestedGroupId(session);

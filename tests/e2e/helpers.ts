@@ -1,0 +1,23 @@
+import fs from "node:fs";
+import { expect, type Page } from "@playwright/test";
+import { PASSWORD, type E2eFixtures, type Person } from "./people";
+
+export function fixtures(): E2eFixtures {
+  return JSON.parse(fs.readFileSync(`${process.env["LW_E2E_DATA_DIR"]}.json`, "utf8")) as E2eFixtures;
+}
+
+/** Signs in through the sign-in form (and so through next-auth's credentials endpoint). */
+export async function signIn(page: Page, person: Person, password = PASSWORD): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("Email").fill(person.email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in", exact: true }).click();
+  await expect(page).toHaveURL(/\/workups$/);
+  await expect(page.getByRole("heading", { name: "Workups", level: 1 })).toBeVisible();
+}
+
+export async function signOut(page: Page): Promise<void> {
+  await page.getByText("Open account menu").click();
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+}
