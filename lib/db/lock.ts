@@ -26,6 +26,10 @@ export function displayPath(dir: string): string {
   return rel && !rel.startsWith("..") && !path.isAbsolute(rel) ? `./${rel}` : path.resolve(dir);
 }
 
+/** Lock files this process holds right now (a lock naming our pid that is not here was left by an earlier
+ * process that had the same pid, as happens to pid 1 when a container restarts). */
+const held = new Map<string, symbol>();
+
 function isAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
@@ -42,6 +46,33 @@ function readOwner(file: string): number | undefined {
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code === "ENOENT") return undefined;
     throw e;
+  }
+}
+
+/**
+ * Whether process `pid` started after `time`, so that it cannot have written a lock dated `time` (a pid reused
+ * after a reboot). Linux only, from /proc/<pid>/stat field 22 (starttime, in clock ticks since boot) and the btime
+ * line of /proc/stat, with USER_HZ = 100 (proc(5)); elsewhere it answers false and the pid check alone decides.
+ */
+function startedAfter(pid: number, time: Date): boolean {
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, "utf8");
+    const startTicks = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[19]); // fields from 3 on
+    const bootSeconds = Number(/^btime (\d+)$/m.exec(fs.readFileSync("/proc/stat", "utf8"))?.[1]);
+    const startedMs = (bootSeconds + startTicks / 100) * 1000;
+    return Number.isFinite(startedMs) && startedMs > time.getTime() + 2000; // tolerance for tick rounding
+  } catch {
+    return false;
+  }
+}
+
+function isStale(file: string, owner: number | undefined): boolean {
+  if (owner === undefined || !isAlive(owner)) return true;
+  if (owner === process.pid) return !held.has(file);
+  try {
+    return startedAfter(owner, fs.statSync(file).mtime);
+  } catch {
+    return true; // the file vanished meanwhile: nothing left to respect
   }
 }
 
@@ -67,13 +98,14 @@ function tryCreate(file: string): boolean {
  */
 export function lockDataDir(dataDir: string): () => void {
   fs.mkdirSync(dataDir, { recursive: true });
-  const file = path.join(dataDir, LOCK_FILE_NAME);
+  const file = path.join(fs.realpathSync(dataDir), LOCK_FILE_NAME); // one key however the folder is spelled
   for (let attempt = 0; attempt < 5; attempt++) {
     if (tryCreate(file)) {
-      let held = true;
+      const token = Symbol(file);
+      held.set(file, token);
       const release = () => {
-        if (!held) return;
-        held = false;
+        if (held.get(file) !== token) return; // released already
+        held.delete(file);
         process.off("exit", release);
         if (readOwner(file) === process.pid) fs.rmSync(file, { force: true });
       };
@@ -81,7 +113,7 @@ export function lockDataDir(dataDir: string): () => void {
       return release;
     }
     const owner = readOwner(file);
-    if (owner !== undefined && isAlive(owner)) throw new DataDirInUseError(dataDir, owner);
+    if (!isStale(file, owner)) throw new DataDirInUseError(dataDir, owner!);
     // Stale (owner gone, or an unreadable file). Two processes starting in the same instant after a crash could both
     // get here; the rename lets only one of them remove this particular file.
     try {

@@ -78,6 +78,31 @@ describe("embedded data dir lock", () => {
     expect(fs.readFileSync(path.join(dir, LOCK_FILE_NAME), "utf8")).toBe(`${process.pid}\n`);
   });
 
+  it("sees through another spelling of the same folder", async () => {
+    const dir = path.join(tempDir("lw-lock"), "db");
+    await open(dir);
+    await expect(createDb({ url: `pglite:${path.relative(process.cwd(), dir)}` })).rejects.toThrow(DataDirInUseError);
+    await expect(createDb({ url: `pglite:${dir}/./` })).rejects.toThrow(DataDirInUseError);
+  });
+
+  it("takes over a lock whose pid now belongs to a process that cannot have written it", async () => {
+    const dir = path.join(tempDir("lw-lock"), "db");
+    fs.mkdirSync(dir);
+    const lock = path.join(dir, LOCK_FILE_NAME);
+    // Our own pid, but not held by us: left by an earlier process with the same pid (container restart).
+    fs.writeFileSync(lock, `${process.pid}\n`);
+    const first = await open(dir);
+    await first.close();
+    opened.splice(opened.indexOf(first), 1);
+
+    // A live process that started long after the lock was written (a pid reused after a reboot).
+    fs.writeFileSync(lock, `${process.ppid}\n`);
+    const written = new Date("2001-01-01T00:00:00Z");
+    fs.utimesSync(lock, written, written);
+    await open(dir);
+    expect(fs.readFileSync(lock, "utf8")).toBe(`${process.pid}\n`);
+  });
+
   it("takes over the lock of a killed process, keeping what it had committed", async () => {
     const dir = path.join(tempDir("lw-lock"), "db");
     const child = openInChild(dir, root, "written-before-kill");
