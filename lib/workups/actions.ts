@@ -1,0 +1,86 @@
+"use server";
+// Server actions for the workup editor, the outcome form and the history view. Each starts with the guard
+// (memberAction), validates with the shared schemas inside the service, and returns an ActionResult for the form:
+// { ok: true, data } or { ok: false, status, message, fieldErrors } (422 field messages keyed like "header.title",
+// "spec.operations.2.volume.value"; 409 with the stale-version message; 404 for another group's workup).
+import { revalidatePath } from "next/cache";
+import { memberAction } from "@/lib/authz/action";
+import { getDb } from "@/lib/db/client";
+import { type ActionResult } from "@/lib/errors";
+import { actorOf } from "./context";
+import { type VersionDiff } from "./diff";
+import { diffVersions, listVersions, type VersionEntry } from "./history";
+import { reportOutcome, type OutcomeReport } from "./outcome";
+import { computePrediction, seedFromId } from "./prediction";
+import { groupLibrary } from "./library";
+import { getWorkupDetail, listWorkups, type WorkupDetail, type WorkupListPage } from "./queries";
+import { type CreateWorkupInput, type OutcomeInputRaw, type UpdateWorkupInput, type WorkupListFilterInput } from "./schemas";
+import { createWorkup, deleteWorkup, updateWorkup, type PredictionSummary, type SavedWorkup } from "./service";
+
+function revalidate(id?: string): void {
+  revalidatePath("/workups");
+  if (id) revalidatePath(`/workups/${id}`);
+}
+
+export async function createWorkupAction(input: CreateWorkupInput): Promise<ActionResult<SavedWorkup>> {
+  return memberAction("data:write", async (member) => {
+    const saved = await createWorkup(await getDb(), actorOf(member), input);
+    revalidate(saved.id);
+    return saved;
+  });
+}
+
+/** `input.baseVersion` is the version the editor opened (WorkupDetail.version). */
+export async function updateWorkupAction(id: string, input: UpdateWorkupInput): Promise<ActionResult<SavedWorkup>> {
+  return memberAction("data:write", async (member) => {
+    const saved = await updateWorkup(await getDb(), actorOf(member), id, input);
+    revalidate(id);
+    return saved;
+  });
+}
+
+export async function deleteWorkupAction(id: string): Promise<ActionResult<{ id: string }>> {
+  return memberAction("data:write", async (member) => {
+    await deleteWorkup(await getDb(), actorOf(member), id);
+    revalidate();
+    return { id };
+  });
+}
+
+export async function reportOutcomeAction(workupId: string, input: OutcomeInputRaw): Promise<ActionResult<OutcomeReport>> {
+  return memberAction("data:write", async (member) => {
+    const report = await reportOutcome(await getDb(), actorOf(member), workupId, input);
+    revalidate(workupId);
+    return report;
+  });
+}
+
+export async function getWorkupAction(id: string): Promise<ActionResult<WorkupDetail>> {
+  return memberAction("data:read", async (member) => getWorkupDetail(await getDb(), member.group.id, id));
+}
+
+export async function listWorkupsAction(filter: WorkupListFilterInput): Promise<ActionResult<WorkupListPage>> {
+  return memberAction("data:read", async (member) => listWorkups(await getDb(), member.group.id, filter));
+}
+
+export async function listVersionsAction(workupId: string): Promise<ActionResult<VersionEntry[]>> {
+  return memberAction("data:read", async (member) => listVersions(await getDb(), member.group.id, workupId));
+}
+
+export async function diffVersionsAction(workupId: string, from: number, to: number): Promise<ActionResult<VersionDiff>> {
+  return memberAction("data:read", async (member) => diffVersions(await getDb(), member.group.id, workupId, from, to));
+}
+
+/**
+ * The server's prediction with its interval, without saving (the editor predicts in the browser while typing; this
+ * is the same computation a save stores, for a "check on the server" button). The seed follows the workup id when
+ * one is given, so the interval matches what saving would store.
+ */
+export async function predictAction(spec: unknown, workupId?: string): Promise<ActionResult<PredictionSummary>> {
+  return memberAction("data:read", async (member) => {
+    const library = await groupLibrary(await getDb(), member.group.id);
+    const p = computePrediction(spec, { library, seed: seedFromId(workupId ?? member.group.id) });
+    const { flags, cautions } = p.result.prediction;
+    return { engineVersion: p.engineVersion, productKey: p.productKey, productRecovery: p.productRecovery, recoveryLow: p.recoveryLow, recoveryHigh: p.recoveryHigh, flags, cautions };
+  });
+}

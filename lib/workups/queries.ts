@@ -1,0 +1,194 @@
+/**
+ * Reading workups: the filtered list with keyset pagination on (performedOn desc, id desc), so a deep page costs what
+ * the first does, and the detail the editor opens. Every query is scoped by group inside its `where`.
+ */
+import { type Prisma } from "@/generated/prisma/client";
+import { type Db } from "@/lib/db/client";
+import { NotFoundError, ValidationError, parseInput } from "@/lib/errors";
+import { type OutcomeAnalysis } from "./analysis";
+import { type DeviationStatus } from "./deviation";
+import { type StoredPredictionResult } from "./prediction";
+import { dayOf, type JsonObject, type SnapshotHeader } from "./record";
+import { workupListFilterSchema, type WorkupListFilter } from "./schemas";
+
+export interface ListCursor {
+  performedOn: Date;
+  id: string;
+}
+
+export function encodeCursor(c: ListCursor): string {
+  return Buffer.from(`${c.performedOn.toISOString()}|${c.id}`).toString("base64url");
+}
+
+export function decodeCursor(raw: string): ListCursor {
+  const match = /^(\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z)\|([A-Za-z0-9_-]{1,64})$/.exec(Buffer.from(raw, "base64url").toString());
+  const performedOn = match?.[1] ? new Date(match[1]) : null;
+  if (!match?.[2] || !performedOn || Number.isNaN(performedOn.getTime())) {
+    throw new ValidationError({ cursor: ["this page link is not valid; start again from the first page"] });
+  }
+  return { performedOn, id: match[2] };
+}
+
+/** The filter part of the list query (also used by the CSV export). */
+export function workupWhere(groupId: string, filter: Omit<WorkupListFilter, "cursor" | "limit">): Prisma.WorkupWhereInput {
+  const words = (filter.q ?? "").toLowerCase().split(/\s+/).filter((w) => w.length > 0).slice(0, 8);
+  const performedOn: Prisma.DateTimeFilter = {};
+  if (filter.from) performedOn.gte = filter.from;
+  if (filter.to) performedOn.lte = filter.to;
+  return {
+    groupId,
+    ...(words.length > 0 ? { AND: words.map((w) => ({ searchText: { contains: w } })) } : {}),
+    ...(filter.compoundId ? { components: { some: { groupId, compoundId: filter.compoundId } } } : {}),
+    ...(filter.solvent ? { solventKeys: { has: filter.solvent } } : {}),
+    ...(filter.chemistId ? { chemistId: filter.chemistId } : {}),
+    ...(filter.from || filter.to ? { performedOn } : {}),
+    ...(filter.flagged !== undefined ? { flagged: filter.flagged } : {}),
+    ...(filter.status ? { status: filter.status } : {}),
+  };
+}
+
+export const listSelect = {
+  id: true, title: true, performedOn: true, chemistId: true, notebookRef: true, version: true, status: true, flagged: true,
+  deviationPct: true, updatedAt: true,
+  outcome: { select: { recoveryPct: true, purityMethod: true } },
+  predictions: {
+    orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1,
+    select: { productRecovery: true, recoveryLow: true, recoveryHigh: true, engineVersion: true },
+  },
+} as const satisfies Prisma.WorkupSelect;
+
+export interface WorkupListRow {
+  id: string;
+  title: string;
+  performedOn: string;
+  chemist: { id: string; name: string } | null;
+  notebookRef: string;
+  version: number;
+  status: DeviationStatus;
+  flagged: boolean;
+  deviationPct: number | null;
+  /** Percent. */
+  reportedRecoveryPct: number | null;
+  predictedRecoveryPct: number | null;
+  predictedLowPct: number | null;
+  predictedHighPct: number | null;
+  updatedAt: string;
+}
+
+export interface WorkupListPage {
+  rows: WorkupListRow[];
+  /** Cursor of the next page, or null on the last page. */
+  next: string | null;
+}
+
+type ListRecord = Prisma.WorkupGetPayload<{ select: typeof listSelect }>;
+
+const pct = (fraction: number | null | undefined) => (fraction === null || fraction === undefined ? null : fraction * 100);
+
+export async function chemistNames(db: Db, ids: (string | null)[]): Promise<Map<string, { id: string; name: string }>> {
+  const wanted = [...new Set(ids.filter((id): id is string => id !== null))];
+  if (wanted.length === 0) return new Map();
+  const users = await db.user.findMany({ where: { id: { in: wanted } }, select: { id: true, name: true } });
+  return new Map(users.map((u) => [u.id, u]));
+}
+
+export async function toListRows(db: Db, records: ListRecord[]): Promise<WorkupListRow[]> {
+  const chemists = await chemistNames(db, records.map((r) => r.chemistId));
+  return records.map((r) => {
+    const p = r.predictions[0];
+    return {
+      id: r.id, title: r.title, performedOn: dayOf(r.performedOn), notebookRef: r.notebookRef, version: r.version,
+      chemist: r.chemistId ? (chemists.get(r.chemistId) ?? null) : null,
+      status: r.status, flagged: r.flagged, deviationPct: r.deviationPct,
+      reportedRecoveryPct: r.outcome?.recoveryPct ?? null,
+      predictedRecoveryPct: pct(p?.productRecovery), predictedLowPct: pct(p?.recoveryLow), predictedHighPct: pct(p?.recoveryHigh),
+      updatedAt: r.updatedAt.toISOString(),
+    };
+  });
+}
+
+/** One page of the group's workups, newest first. `input` is a WorkupListFilterInput (strings from a query are fine). */
+export async function listWorkups(db: Db, groupId: string, input: unknown): Promise<WorkupListPage> {
+  const filter = parseInput(workupListFilterSchema, input);
+  const after = filter.cursor ? decodeCursor(filter.cursor) : null;
+  const where = workupWhere(groupId, filter);
+  const records = await db.workup.findMany({
+    where: after
+      ? { AND: [where, { OR: [{ performedOn: { lt: after.performedOn } }, { performedOn: after.performedOn, id: { lt: after.id } }] }] }
+      : where,
+    orderBy: [{ performedOn: "desc" }, { id: "desc" }],
+    take: filter.limit + 1,
+    select: listSelect,
+  });
+  const page = records.slice(0, filter.limit);
+  const last = page.at(-1);
+  return { rows: await toListRows(db, page), next: records.length > filter.limit && last ? encodeCursor(last) : null };
+}
+
+export interface WorkupDetail {
+  id: string;
+  version: number;
+  header: SnapshotHeader;
+  chemistName: string | null;
+  /** The spec exactly as saved (units included): what the editor loads. */
+  spec: JsonObject;
+  components: { key: string; name: string; role: string; amountMmol: number; compound: { id: string; name: string } | null }[];
+  status: DeviationStatus;
+  flagged: boolean;
+  deviationPct: number | null;
+  createdAt: string;
+  updatedAt: string;
+  updatedBy: { id: string; name: string } | null;
+  prediction: {
+    workupVersion: number; engineVersion: string; productRecovery: number | null; recoveryLow: number | null; recoveryHigh: number | null;
+    result: StoredPredictionResult; createdAt: string;
+  } | null;
+  outcome: {
+    isolatedMassMg: number; purityPct: number | null; purityMethod: string; layerAssays: unknown; notes: string;
+    recoveryPct: number | null; analysis: OutcomeAnalysis | null; reportedBy: { id: string; name: string } | null; updatedAt: string;
+  } | null;
+}
+
+export async function getWorkupDetail(db: Db, groupId: string, id: string): Promise<WorkupDetail> {
+  const w = await db.workup.findFirst({
+    where: { id, groupId },
+    include: {
+      components: { where: { groupId }, orderBy: { key: "asc" }, include: { compound: { select: { id: true, name: true } } } },
+      outcome: true,
+      predictions: { orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1 },
+    },
+  });
+  if (!w) throw new NotFoundError("workup");
+  const people = await chemistNames(db, [w.chemistId, w.updatedById, w.outcome?.reportedById ?? null]);
+  const p = w.predictions[0];
+  const analysis = w.outcome?.analysis as unknown as OutcomeAnalysis | undefined; // written by analysis.ts
+  return {
+    id: w.id, version: w.version,
+    header: {
+      title: w.title, performedOn: dayOf(w.performedOn), chemistId: w.chemistId, notebookRef: w.notebookRef,
+      scaleMmol: w.scaleMmol, expectedProductMmol: w.expectedProductMmol, assayedProductMmol: w.assayedProductMmol,
+    },
+    chemistName: w.chemistId ? (people.get(w.chemistId)?.name ?? null) : null,
+    spec: w.spec as JsonObject,
+    components: w.components.map((c) => ({ key: c.key, name: c.name, role: c.role, amountMmol: c.amountMmol, compound: c.compound })),
+    status: w.status, flagged: w.flagged, deviationPct: w.deviationPct,
+    createdAt: w.createdAt.toISOString(), updatedAt: w.updatedAt.toISOString(),
+    updatedBy: w.updatedById ? (people.get(w.updatedById) ?? null) : null,
+    prediction: p
+      ? {
+          workupVersion: p.workupVersion, engineVersion: p.engineVersion, productRecovery: p.productRecovery,
+          recoveryLow: p.recoveryLow, recoveryHigh: p.recoveryHigh, result: p.result as unknown as StoredPredictionResult,
+          createdAt: p.createdAt.toISOString(),
+        }
+      : null,
+    outcome: w.outcome
+      ? {
+          isolatedMassMg: w.outcome.isolatedMassMg, purityPct: w.outcome.purityPct, purityMethod: w.outcome.purityMethod,
+          layerAssays: w.outcome.layerAssays, notes: w.outcome.notes, recoveryPct: w.outcome.recoveryPct,
+          analysis: analysis && "deviation" in analysis ? analysis : null,
+          reportedBy: w.outcome.reportedById ? (people.get(w.outcome.reportedById) ?? null) : null,
+          updatedAt: w.outcome.updatedAt.toISOString(),
+        }
+      : null,
+  };
+}
