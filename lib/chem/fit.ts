@@ -8,7 +8,8 @@
 import type { WorkupInput } from "./schema";
 import type { WorkupPrediction } from "./types";
 
-export type Simulator = (input: WorkupInput) => WorkupPrediction;
+/** The engine's fast path (simulateWorkup); step detail is asked for only where contacts are read. */
+export type Simulator = (input: WorkupInput, options?: { steps?: boolean; flags?: boolean }) => WorkupPrediction;
 
 export interface FitOptions {
   /** Component key. */
@@ -115,16 +116,11 @@ export function fitLogK(input: WorkupInput, simulate: Simulator, options: FitOpt
   if (!(observed >= 0 && observed <= 1.5)) throw new RangeError(`observed recovery must be a fraction from 0 to 1.5, got ${observed}`);
   if (!(sigma > 0 && sigma < 1)) throw new RangeError(`recoverySe must lie between 0 and 1, got ${sigma}`);
   if (!(lo < hi)) throw new RangeError("logKRange must be [low, high] with low < high");
-  const solvent = options.solvent ?? mainSolvent(simulate(input));
+  const solvent = options.solvent ?? mainSolvent(simulate(input, { flags: false }));
   if (!solvent) throw new RangeError("the work-up has no organic phase, so there is no log K to fit");
 
-  const cache = new Map<number, WorkupPrediction>();
-  const predictAt = (logK: number): WorkupPrediction => {
-    let p = cache.get(logK);
-    if (!p) { p = simulate(withLogK(input, key, solvent, logK)); cache.set(logK, p); }
-    return p;
-  };
-  const recoveryAt = (logK: number): number => predictAt(logK).recovery[key] ?? 0;
+  const recoveryAt = (logK: number): number => simulate(withLogK(input, key, solvent, logK), { steps: false, flags: false }).recovery[key] ?? 0;
+  const predictAt = (logK: number): WorkupPrediction => simulate(withLogK(input, key, solvent, logK), { flags: false });
   const atLowK = recoveryAt(lo);
   const atHighK = recoveryAt(hi);
   const base = { component: key, solvent, recoveryRange: { atLowK, atHighK } };

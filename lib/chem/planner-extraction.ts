@@ -33,8 +33,9 @@ export interface ExtractionContext {
   solvent: string;
   aqueousMl: number;
   procedurePh: number | null;
-  /** Total solvent the procedure used for this extraction (portions × volume), mL. */
+  /** Total solvent the procedure used for this extraction (portions × volume), mL, and its portions. */
   procedureTotalMl: number;
+  procedurePortions: number;
   targetRecovery: number;
   maxPortions: number;
   reagents: ReadonlyMap<string, CompiledReagent>;
@@ -84,18 +85,25 @@ export function planExtraction(ctx: ExtractionContext): ExtractionPlan {
   const d = ctx.productD(pH);
   const baseTotal = ctx.procedureTotalMl > 0 ? ctx.procedureTotalMl : ctx.aqueousMl;
   let chosen: { total: number; option: SplitOption } | null = null;
+  // A procedure that already reaches the target at the planned pH is kept as it is.
+  const own = ctx.procedurePortions > 0 ? fractionExtractedAfter(d, ctx.aqueousMl, ctx.procedureTotalMl / ctx.procedurePortions, ctx.procedurePortions) : 0;
+  if (own >= ctx.targetRecovery) {
+    chosen = { total: ctx.procedureTotalMl, option: { portions: ctx.procedurePortions, volumeMl: ctx.procedureTotalMl / ctx.procedurePortions, recovery: own } };
+  }
   for (const factor of [1, 1.5, 2, 3]) {
+    if (chosen) break;
     const total = niceVolume(baseTotal * factor);
     const hit = splitComparison(d, ctx.aqueousMl, total, ctx.maxPortions).find((o) => o.recovery >= ctx.targetRecovery);
-    if (hit) { chosen = { total, option: hit }; break; }
+    if (hit) chosen = { total, option: hit };
   }
   const total = chosen?.total ?? niceVolume(baseTotal * 3);
   const option = chosen?.option ?? { portions: ctx.maxPortions, volumeMl: total / ctx.maxPortions, recovery: fractionExtractedAfter(d, ctx.aqueousMl, total / ctx.maxPortions, ctx.maxPortions) };
-  const volumeMl = niceVolume(option.volumeMl);
+  const volumeMl = own >= ctx.targetRecovery ? option.volumeMl : niceVolume(option.volumeMl);
   const recovery = fractionExtractedAfter(d, ctx.aqueousMl, volumeMl, option.portions);
   const alternatives = splitComparison(d, ctx.aqueousMl, volumeMl * option.portions, ctx.maxPortions);
   const one = alternatives[0];
-  reasons.push(`Several small portions beat one large one: the fraction left is (1 + D·V/(n·V_aq))^−n, which falls toward exp(−D·V/V_aq) as n grows (§2.3). With D = ${d.toPrecision(3)} and ${ctx.aqueousMl.toFixed(0)} mL of aqueous phase, one portion of ${(volumeMl * option.portions).toFixed(0)} mL recovers ${pct(one?.recovery ?? 0)}; ${option.portions} × ${volumeMl} mL recover ${pct(recovery)}.`);
+  if (own >= ctx.targetRecovery) reasons.push(`The procedure's ${ctx.procedurePortions} × ${option.volumeMl.toFixed(0)} mL already reaches the target at pH ${pH.toFixed(1)}; keep it.`);
+  reasons.push(`Several small portions beat one large one: the fraction left is (1 + D·V/(n·V_aq))^−n, which falls toward exp(−D·V/V_aq) as n grows (§2.3). With D = ${d.toPrecision(3)} and ${ctx.aqueousMl.toFixed(0)} mL of aqueous phase, one portion of ${(volumeMl * option.portions).toFixed(0)} mL recovers ${pct(one?.recovery ?? 0)}${option.portions > 1 ? `; ${option.portions} × ${volumeMl} mL recover ${pct(recovery)}` : `; ${Math.min(3, ctx.maxPortions)} portions of a third of it would recover ${pct(alternatives[Math.min(3, ctx.maxPortions) - 1]?.recovery ?? recovery)}`}.`);
   if (!chosen) {
     reasons.push(`Even ${option.portions} portions of three times the procedure's volume fall short of ${pct(ctx.targetRecovery)} (F5): salt the aqueous phase out (brine or solid NaCl raises log K of neutral species), reduce its volume, or use a more polar solvent (EtOAc, 2-MeTHF, n-BuOH).`);
   }

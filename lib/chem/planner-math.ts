@@ -7,8 +7,8 @@ import { SOLVENTS } from "./data/solvents";
 import { solventLogK } from "./partition";
 import { type Component } from "./schema";
 import { distributionRatio, fractionSiteCharged, type IonizableSite } from "./speciation";
-import { KW, systemMeanCharge } from "./aqueous";
-import { type CompiledReagent } from "./library";
+import { CO2_SATURATION_M, KW, systemFractionProtonated, systemMeanCharge } from "./aqueous";
+import { CARBONATE, type CompiledReagent } from "./library";
 
 /** Fraction of a component kept in the organic layer after n washes of V_w each: (1 + V_w/(D·V_org))^−n (§2.3). */
 export function fractionKeptAfterWashes(d: number, organicMl: number, washMl: number, portions: number): number {
@@ -62,12 +62,17 @@ export function fractionCharged(c: Pick<Component, "pKas" | "fixedCharge">, pH: 
 /**
  * Buffer capacity of a reagent solution toward a pH (mmol per mL): the net charge of the solution at that pH
  * from its charge balance. Positive: acid (as its anion) it can take up while staying at or above pH;
- * negative: base it can take up while staying at or below pH.
+ * negative: base it can take up while staying at or below pH. Carbonic acid beyond saturation leaves as CO₂
+ * in a vented funnel (§2.7), so the carbonate left is capped where H₂CO₃* reaches saturation.
  */
 export function reagentCapacity(r: CompiledReagent, pH: number): number {
   const h = 10 ** -pH;
   let q = r.strongCharge + h - KW / h;
-  r.systems.forEach((total, s) => { if (total > 0) q += total * systemMeanCharge(s, h); });
+  r.systems.forEach((total, s) => {
+    if (!(total > 0)) return;
+    const left = s === CARBONATE ? Math.min(total, CO2_SATURATION_M / systemFractionProtonated(s, h)) : total;
+    q += left * systemMeanCharge(s, h);
+  });
   return q;
 }
 

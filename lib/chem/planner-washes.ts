@@ -42,8 +42,8 @@ const pct = (x: number): string => `${(100 * x).toPrecision(x < 0.001 ? 1 : 3)} 
 const ph = (x: number): string => x.toFixed(1);
 
 /** Stock solutions whose job is to set a pH: acids, bases, buffers, and ammonia/ammonium mixtures. */
-function phReagents(reagents: ReadonlyMap<string, CompiledReagent>): Array<{ key: string; r: CompiledReagent; pH: number }> {
-  const out: Array<{ key: string; r: CompiledReagent; pH: number }> = [];
+function phReagents(reagents: ReadonlyMap<string, CompiledReagent>): PhReagent[] {
+  const out: PhReagent[] = [];
   for (const [key, r] of reagents) {
     if (r.solid) continue;
     const systems = Object.keys(r.props.systems);
@@ -55,12 +55,18 @@ function phReagents(reagents: ReadonlyMap<string, CompiledReagent>): Array<{ key
 
 function findWindow(ctx: WashContext, impurities: Impurity[]): PhWindow | null {
   const refMl = ctx.organicMl / 2;
+  const kept = (pH: number): number => fractionKeptAfterWashes(ctx.productD(pH), ctx.organicMl, refMl, 2);
+  // The product criterion is relative to its best pH: a wash loses some of a neutral product at any pH, and
+  // the window is about where ionization makes that loss larger than the allowance.
+  let keptBest = 0;
+  for (let i = 0; i <= 280; i++) keptBest = Math.max(keptBest, kept(i * 0.05));
+  const allowance = 1 - ctx.productKeepMin;
   let best: PhWindow | null = null;
   let start: number | null = null;
   for (let i = 0; i <= 280; i++) {
     const pH = i * 0.05;
     const ok = impurities.every((imp) => fractionKeptAfterWashes(imp.d(pH), ctx.organicMl, refMl, 2) <= ctx.maxImpurityLeft)
-      && fractionKeptAfterWashes(ctx.productD(pH), ctx.organicMl, refMl, 2) >= ctx.productKeepMin;
+      && kept(pH) >= keptBest - allowance;
     if (ok && start === null) start = pH;
     if ((!ok || i === 280) && start !== null) {
       const end = ok ? pH : pH - 0.05;
@@ -86,46 +92,68 @@ export function planWashGroup(ctx: WashContext, purpose: WashGroupPlan["purpose"
   const window = findWindow(ctx, impurities);
   const empty = { purpose, impurities: keys, window, reagent: null, volumeMl: 0, portions: 0, impurityLeft: {}, productKept: 1 };
   if (!window) {
-    reasons.push(`No pH removes ${keys.join(", ")} to ≤ ${pct(ctx.maxImpurityLeft)} while ${ctx.product.key} keeps ≥ ${pct(ctx.productKeepMin)}: their ionization ranges overlap. Separate them by chromatography or crystallization, or measure their log K to refine this.`);
+    reasons.push(`No pH removes ${keys.join(", ")} to ≤ ${pct(ctx.maxImpurityLeft)} without costing ${ctx.product.key} more than ${pct(1 - ctx.productKeepMin)} beyond what any wash costs: their ionization ranges overlap. Separate them by chromatography or crystallization, or measure their log K to refine this.`);
     return { ...empty, reasons };
   }
   const productLimit = purpose === "remove_acids" ? window.high < 13.95 : window.low > 0.05;
   reasons.push(`Window pH ${ph(window.low)}–${ph(window.high)}: ${purpose === "remove_acids" ? "below" : "above"} it the impurities stay in the organic layer${productLimit ? `; ${purpose === "remove_acids" ? "above" : "below"} it ${ctx.product.key} ionizes and more than ${pct(1 - ctx.productKeepMin)} of it would go into the washes` : `; ${ctx.product.key} stays neutral across it`}.`);
 
   const inside = phReagents(ctx.reagents).filter((x) => x.pH >= window.low && x.pH <= window.high);
-  const preferred = inside.filter((x) => x.pH >= window.low + 0.5 && x.pH <= window.high - 0.5);
-  const mildness = (x: { pH: number }): number => Math.round(10 * Math.abs(x.pH - 7));
-  const pick = (preferred.length > 0 ? preferred : inside).sort((a, b) => mildness(a) - mildness(b) || b.r.concentration - a.r.concentration)[0];
-  if (!pick) {
-    reasons.push(`No stock reagent in the library has a pH inside the window; make a buffer near pH ${ph((window.low + window.high) / 2)} (phosphate near pH 7.2, carbonate near 10.3, ammonium near 9.2).`);
+  const sized = inside
+    .map((candidate) => ({ candidate, size: sizeWash(ctx, purpose, impurities, window, candidate) }))
+    .filter((x): x is { candidate: PhReagent; size: WashSize } => x.size !== null);
+  if (sized.length === 0) {
+    reasons.push(inside.length === 0
+      ? `No stock reagent in the library has a pH inside the window; make a buffer near pH ${ph((window.low + window.high) / 2)} (phosphate near pH 7.2, carbonate near 10.3, ammonium near 9.2).`
+      : `No wash of up to ${ctx.maxPortions} portions with a stock reagent in the window reaches both targets; consider a more concentrated reagent or a larger organic volume.`);
     return { ...empty, reasons };
   }
-  reasons.push(`${pick.r.props.name} (pH ${ph(pick.pH)}) is the mildest stock reagent in the window: a stronger one adds nothing and risks hydrolysing labile groups (F16).`);
+  // Ranking: a pH at least half a unit inside the window (it drifts as the wash is used); a reasonable volume
+  // (at most 1.5 times the least any reagent needs); a plain acid, base or buffer before a
+  // complexing mixture; then the mildest (pH nearest 7), then the least volume.
+  const total = (x: WashSize): number => x.volumeMl * x.portions;
+  const least = Math.min(...sized.map((x) => total(x.size)));
+  const mildness = (x: PhReagent): number => Math.round(10 * Math.abs(x.pH - 7));
+  const rank = (x: { candidate: PhReagent; size: WashSize }): number[] => [
+    x.candidate.pH >= window.low + 0.5 && x.candidate.pH <= window.high - 0.5 ? 0 : 1,
+    total(x.size) <= 1.5 * least ? 0 : 1,
+    ["acid", "base", "buffer"].includes(x.candidate.r.props.purpose) ? 0 : 1,
+    mildness(x.candidate),
+    total(x.size),
+  ];
+  const byRank = (a: number[], b: number[]): number => a.reduce((d, v, i) => d || v - (b[i] ?? 0), 0);
+  const pickEntry = [...sized].sort((a, b) => byRank(rank(a), rank(b)))[0];
+  if (!pickEntry) return { ...empty, reasons };
+  const { candidate: pick, size: choice } = pickEntry;
+  const milder = sized.filter((x) => mildness(x.candidate) < mildness(pick) && x !== pickEntry);
+  reasons.push(`${pick.r.props.name} (pH ${ph(pick.pH)}) is the mildest stock reagent well inside the window that does the job in a modest volume${milder.length > 0 ? ` (milder ones sit at the window's edge or need more: ${milder.map((x) => `${x.candidate.r.props.name} pH ${ph(x.candidate.pH)}, ${total(x.size)} mL`).join("; ")})` : ""}; a stronger one adds nothing and risks hydrolysing labile groups (F16).`);
+  reasons.push(`Each ${choice.volumeMl} mL portion takes up ${choice.capacityMmol.toFixed(1)} mmol of ${purpose === "remove_acids" ? "acid" : "base"} before its pH passes ${ph(choice.edge)}, against the ${choice.needMmol.toFixed(2)} mmol the first portion meets (1.2 × the impurity, F4); ${choice.portions} × ${choice.volumeMl} mL is the smallest wash that reaches the target, so the product loses least.`);
+  return { purpose, impurities: keys, window, reagent: { key: pick.key, name: pick.r.props.name, pH: pick.pH }, volumeMl: choice.volumeMl, portions: choice.portions, impurityLeft: choice.left, productKept: choice.kept, reasons };
+}
 
-  // Capacity toward the window edge: the wash must take up every impurity site it ionizes and stay in the window.
-  const edge = purpose === "remove_acids" ? window.low : window.high;
+interface PhReagent { key: string; r: CompiledReagent; pH: number }
+interface WashSize { volumeMl: number; portions: number; left: Record<string, number>; kept: number; edge: number; capacityMmol: number; needMmol: number }
+
+/** The smallest wash with this reagent that reaches both targets, or null. */
+function sizeWash(ctx: WashContext, purpose: WashGroupPlan["purpose"], impurities: Impurity[], window: PhWindow, pick: PhReagent): WashSize | null {
+  // Capacity: the first portion meets nearly all of the impurity, so each portion must take it up while its pH
+  // stays within one unit of the fresh reagent and inside the window (a larger drift is flag F4).
+  const edge = purpose === "remove_acids" ? Math.max(window.low, pick.pH - 1) : Math.min(window.high, pick.pH + 1);
   const perMl = Math.abs(reagentCapacity(pick.r, edge));
   const needMmol = 1.2 * impurities.reduce((s, i) => s + i.component.amountMmol * fractionCharged(i.component, pick.pH), 0);
-  const minTotalMl = perMl > 0 ? needMmol / perMl : Infinity;
-
-  let choice: { volumeMl: number; portions: number; left: Record<string, number>; kept: number } | null = null;
+  const minPortionMl = perMl > 0 ? needMmol / perMl : Infinity;
+  let choice: WashSize | null = null;
   for (const f of [0.25, 0.5, 1]) {
-    const volumeMl = niceVolume(ctx.organicMl * f);
+    const volumeMl = niceVolume(Math.max(ctx.organicMl * f, minPortionMl));
+    if (volumeMl > 2 * ctx.organicMl) continue;
     for (let portions = 1; portions <= ctx.maxPortions; portions++) {
-      if (volumeMl * portions < minTotalMl) continue;
       const left = Object.fromEntries(impurities.map((i) => [i.component.key, fractionKeptAfterWashes(i.d(pick.pH), ctx.organicMl, volumeMl, portions)]));
       const kept = fractionKeptAfterWashes(ctx.productD(pick.pH), ctx.organicMl, volumeMl, portions);
       if (Object.values(left).some((x) => x > ctx.maxImpurityLeft) || kept < ctx.productKeepMin) continue;
       const better = !choice || volumeMl * portions < choice.volumeMl * choice.portions
         || (volumeMl * portions === choice.volumeMl * choice.portions && portions > choice.portions);
-      if (better) choice = { volumeMl, portions, left, kept };
+      if (better) choice = { volumeMl, portions, left, kept, edge, capacityMmol: perMl * volumeMl, needMmol };
     }
   }
-  const reagent = { key: pick.key, name: pick.r.props.name, pH: pick.pH };
-  if (!choice) {
-    reasons.push(`No wash of up to ${ctx.maxPortions} portions of up to ${niceVolume(ctx.organicMl)} mL reaches both targets with ${pick.r.props.name}; consider a more concentrated reagent or a larger organic volume.`);
-    return { ...empty, reagent, reasons };
-  }
-  reasons.push(`${choice.portions} × ${choice.volumeMl} mL carries ${(perMl * choice.volumeMl * choice.portions).toFixed(1)} mmol of ${purpose === "remove_acids" ? "base" : "acid"} capacity above pH ${ph(edge)}, against the ${needMmol.toFixed(2)} mmol needed (1.2 × the impurity, F4); the smallest such wash, so the product loses least.`);
-  return { purpose, impurities: keys, window, reagent, volumeMl: choice.volumeMl, portions: choice.portions, impurityLeft: choice.left, productKept: choice.kept, reasons };
+  return choice;
 }

@@ -15,7 +15,8 @@ import type { WorkupPrediction } from "./types";
 export type { UncertainInput, UncertaintyDefaults } from "./perturb";
 export { DEFAULT_UNCERTAINTY } from "./perturb";
 
-export type Simulator = (input: WorkupInput) => WorkupPrediction;
+/** The engine's fast path (simulateWorkup); called with steps and flags off, since only recoveries are read. */
+export type Simulator = (input: WorkupInput, options?: { steps?: boolean; flags?: boolean }) => WorkupPrediction;
 
 export interface UncertaintyOptions {
   /** Number of Monte Carlo draws. Default 1000. */
@@ -58,6 +59,8 @@ export interface WorkupUncertainty {
   crudeMassMg: Interval;
   inputs: UncertainInput[];
 }
+
+const FAST = { steps: false, flags: false } as const;
 
 function summarize(values: Float64Array, count: number): Interval {
   const sorted = values.slice(0, count).sort();
@@ -127,7 +130,7 @@ export function propagateUncertainty(input: WorkupInput, simulate: Simulator, op
     for (let s = 0; s < z.length; s++) z[s] = rng.normal();
     let result: WorkupPrediction;
     try {
-      result = simulate(plan.draw(z));
+      result = simulate(plan.draw(z), FAST);
     } catch {
       failed++;
       continue;

@@ -1,0 +1,149 @@
+/**
+ * `layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S]`
+ * `layerwise plan FILE.json [--json] [--product KEY] [--target-recovery F] [--max-impurity F]`
+ * `layerwise fit FILE.json --component KEY --recovery F [--recovery-se F] [--solvent NAME]`
+ * FILE may be "-" for standard input. Exit codes: 0 done, 2 bad usage or invalid input, 1 anything else.
+ */
+import { readFileSync } from "node:fs";
+import { parseArgs } from "node:util";
+import { type WorkupInput } from "../lib/chem/schema";
+import { simulateWorkup, validateWorkup } from "../lib/chem/predict";
+import { propagateUncertainty } from "../lib/chem/uncertainty";
+import { fitLogK } from "../lib/chem/fit";
+import { planWorkup, planOptionsSchema } from "../lib/chem/planner";
+import { explainPrediction } from "./explain";
+import { explainPlan } from "./explain-plan";
+
+export class InputError extends Error {}
+
+const USAGE = `Usage:
+  layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S]
+  layerwise plan FILE.json [--json] [--product KEY] [--target-recovery F] [--max-impurity F]
+  layerwise fit FILE.json --component KEY --recovery F [--recovery-se F] [--solvent NAME]
+FILE may be - to read standard input. The input format is described in README.md (section "Command line").`;
+
+function readJson(file: string): unknown {
+  let text: string;
+  try {
+    text = readFileSync(file === "-" ? 0 : file, "utf8");
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    throw new InputError(`cannot read ${file}: ${code === "ENOENT" ? "no such file" : (error as Error).message}`);
+  }
+  try {
+    return JSON.parse(text) as unknown;
+  } catch (error) {
+    throw new InputError(`${file} is not valid JSON: ${(error as Error).message}`);
+  }
+}
+
+/** "components.0.molarMass" → "components[0].molarMass". */
+function formatPath(path: string): string {
+  return path.replace(/\.(\d+)(?=\.|$)/g, "[$1]") || "(top level)";
+}
+
+function parseWorkup(file: string, raw: unknown): WorkupInput {
+  const v = validateWorkup(raw);
+  if (v.success) return v.data;
+  const lines = v.issues.slice(0, 20).map((i) => `  ${formatPath(i.path)}: ${i.message}`);
+  throw new InputError(`${file}: invalid work-up description\n${lines.join("\n")}`);
+}
+
+function numberOption(name: string, value: string | undefined, check: (x: number) => boolean, rule: string): number | undefined {
+  if (value === undefined) return undefined;
+  const x = Number(value);
+  if (!Number.isFinite(x) || !check(x)) throw new InputError(`--${name} must be ${rule}, got '${value}'`);
+  return x;
+}
+
+function predict(args: string[]): string {
+  const { values, positionals } = parseArgs({
+    args, allowPositionals: true, strict: true,
+    options: { explain: { type: "boolean" }, uncertainty: { type: "string" }, seed: { type: "string" } },
+  });
+  const file = positionals[0];
+  if (!file || positionals.length > 1) throw new InputError(`predict needs exactly one FILE\n${USAGE}`);
+  const input = parseWorkup(file, readJson(file));
+  const draws = numberOption("uncertainty", values.uncertainty, (x) => Number.isInteger(x) && x >= 2 && x <= 100_000, "a whole number from 2 to 100000");
+  const seed = numberOption("seed", values.seed, Number.isInteger, "a whole number");
+  if (seed !== undefined && draws === undefined) throw new InputError("--seed only applies with --uncertainty N");
+  const prediction = simulateWorkup(input);
+  const uncertainty = draws === undefined ? undefined : propagateUncertainty(input, simulateWorkup, { draws, seed: seed ?? 1 });
+  if (values.explain) return explainPrediction(input, prediction, uncertainty);
+  return JSON.stringify(uncertainty ? { ...prediction, uncertainty } : prediction, null, 2);
+}
+
+function plan(args: string[]): string {
+  const { values, positionals } = parseArgs({
+    args, allowPositionals: true, strict: true,
+    options: {
+      json: { type: "boolean" }, product: { type: "string" },
+      "target-recovery": { type: "string" }, "max-impurity": { type: "string" },
+    },
+  });
+  const file = positionals[0];
+  if (!file || positionals.length > 1) throw new InputError(`plan needs exactly one FILE\n${USAGE}`);
+  const raw = readJson(file);
+  const input = parseWorkup(file, raw);
+  const fromFile = typeof raw === "object" && raw !== null && "plan" in raw ? raw.plan : {};
+  const options = planOptionsSchema.safeParse({
+    ...(typeof fromFile === "object" && fromFile !== null ? fromFile : {}),
+    ...(values.product !== undefined ? { product: values.product } : {}),
+    ...(values["target-recovery"] !== undefined ? { targetRecovery: Number(values["target-recovery"]) } : {}),
+    ...(values["max-impurity"] !== undefined ? { maxImpurityLeft: Number(values["max-impurity"]) } : {}),
+  });
+  if (!options.success) {
+    throw new InputError(`${file}: invalid plan options\n${options.error.issues.map((i) => `  plan.${formatPath(i.path.map(String).join("."))}: ${i.message}`).join("\n")}`);
+  }
+  const result = planWorkup(input, options.data, simulateWorkup);
+  return values.json ? JSON.stringify(result, null, 2) : explainPlan(result);
+}
+
+function fit(args: string[]): string {
+  const { values, positionals } = parseArgs({
+    args, allowPositionals: true, strict: true,
+    options: { component: { type: "string" }, recovery: { type: "string" }, "recovery-se": { type: "string" }, solvent: { type: "string" } },
+  });
+  const file = positionals[0];
+  if (!file || positionals.length > 1) throw new InputError(`fit needs exactly one FILE\n${USAGE}`);
+  if (!values.component) throw new InputError("fit needs --component KEY");
+  const recovery = numberOption("recovery", values.recovery, (x) => x >= 0 && x <= 1.5, "a fraction from 0 to 1.5");
+  if (recovery === undefined) throw new InputError("fit needs --recovery F (fraction, e.g. 0.82)");
+  const recoverySe = numberOption("recovery-se", values["recovery-se"], (x) => x > 0 && x < 1, "a fraction between 0 and 1");
+  const input = parseWorkup(file, readJson(file));
+  const result = fitLogK(input, simulateWorkup, {
+    component: values.component, observedRecovery: recovery,
+    ...(recoverySe !== undefined ? { recoverySe } : {}), ...(values.solvent ? { solvent: values.solvent } : {}),
+  });
+  return JSON.stringify(result, null, 2);
+}
+
+/** Runs one command; returns the exit code. Output goes to stdout, errors to stderr. */
+export function main(argv: string[]): Promise<number> {
+  const [command, ...rest] = argv;
+  try {
+    let text: string;
+    if (command === "predict") text = predict(rest);
+    else if (command === "plan") text = plan(rest);
+    else if (command === "fit") text = fit(rest);
+    else if (command === undefined || command === "help" || command === "--help" || command === "-h") {
+      process.stdout.write(`${USAGE}\n`);
+      return Promise.resolve(command === undefined ? 2 : 0);
+    } else throw new InputError(`unknown command '${command}'\n${USAGE}`);
+    process.stdout.write(`${text}\n`);
+    return Promise.resolve(0);
+  } catch (error) {
+    const usage = error instanceof InputError || (error as { code?: string }).code?.startsWith("ERR_PARSE_ARGS");
+    if (usage) {
+      process.stderr.write(`layerwise: ${(error as Error).message}\n`);
+      return Promise.resolve(2);
+    }
+    if (error instanceof RangeError) {
+      // The library's own refusals (unknown component, unknown solvent …) are input errors too.
+      process.stderr.write(`layerwise: ${error.message}\n`);
+      return Promise.resolve(2);
+    }
+    process.stderr.write(`layerwise: internal error: ${(error as Error).stack ?? String(error)}\n`);
+    return Promise.resolve(1);
+  }
+}
