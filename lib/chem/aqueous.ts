@@ -51,12 +51,30 @@ export interface ChargeBalance {
   residual(pH: number): number;
 }
 
-/** Brent's method on a bracketed, monotone residual; returns the pH where it crosses zero. */
-export function solvePh(balance: ChargeBalance, tolerance = 1e-10): number {
-  let a = PH_MIN, b = PH_MAX;
-  let fa = balance.residual(a), fb = balance.residual(b);
+/**
+ * pH where the residual crosses zero: Brent's method inside [−2, 16]. With a guess (the previous contact's pH),
+ * the bracket starts ±0.5 around it and widens until it holds the root, which saves most evaluations.
+ */
+export function solvePh(balance: ChargeBalance, guess = NaN, tolerance = 1e-9): number {
+  let a = PH_MIN, b = PH_MAX, fa: number, fb: number;
+  if (Number.isFinite(guess) && guess > PH_MIN && guess < PH_MAX) {
+    let step = 0.5;
+    a = Math.max(PH_MIN, guess - step);
+    b = Math.min(PH_MAX, guess + step);
+    fa = balance.residual(a);
+    fb = balance.residual(b);
+    while (fa < 0 && a > PH_MIN) { b = a; fb = fa; step *= 4; a = Math.max(PH_MIN, a - step); fa = balance.residual(a); }
+    while (fb > 0 && b < PH_MAX) { a = b; fa = fb; step *= 4; b = Math.min(PH_MAX, b + step); fb = balance.residual(b); }
+  } else {
+    fa = balance.residual(a);
+    fb = balance.residual(b);
+  }
   if (fa <= 0) return a;
   if (fb >= 0) return b;
+  return brent(balance, a, b, fa, fb, tolerance);
+}
+
+function brent(balance: ChargeBalance, a: number, b: number, fa: number, fb: number, tolerance: number): number {
   let c = a, fc = fa, d = b - a, e = d;
   for (let iter = 0; iter < 100; iter++) {
     if ((fb > 0) === (fc > 0)) { c = a; fc = fa; d = b - a; e = d; }

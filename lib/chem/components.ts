@@ -1,7 +1,8 @@
 /**
  * Numeric form of the mixture's components for one simulation: acid and base dissociation constants, log K of
  * the neutral form in each organic solvent the work-up uses, Setschenow and cosolvency constants. Rebuilt on
- * every simulate call (Monte-Carlo draws change log P and pKa) but only for the solvents actually used.
+ * every simulate call (Monte-Carlo draws change log P and pKa), over the compiled library's solvents, which are
+ * only those the work-up uses.
  */
 import { type CompiledLibrary } from "./library";
 import { cosolvencyPower, effectiveLogP, setschenowConstant, solventLogK } from "./partition";
@@ -26,7 +27,43 @@ export interface CompiledComponents {
   lipophilicCounterIon: Uint8Array;
 }
 
-export function compileComponents(components: readonly Component[], lib: CompiledLibrary, usedSolvents: readonly number[]): CompiledComponents {
+interface ComponentEntry {
+  acidKa: Float64Array;
+  baseKa: Float64Array;
+  setschenow: number;
+  logK: Float64Array;
+  sigma: Float64Array;
+}
+
+/** Per-component constants cached by component object and compiled library: Monte-Carlo draws rebuild only the
+ * components they perturb, so the rest are compiled once. */
+const cache = new WeakMap<Component, WeakMap<CompiledLibrary, ComponentEntry>>();
+
+function componentEntry(c: Component, lib: CompiledLibrary): ComponentEntry {
+  let byLib = cache.get(c);
+  const hit = byLib?.get(lib);
+  if (hit) return hit;
+  const ns = lib.solventKeys.length;
+  const logP = effectiveLogP(c, lib.lib.solvents)?.value ?? 0;
+  const entry: ComponentEntry = {
+    acidKa: Float64Array.from(c.pKas.filter((p) => p.kind === "acid"), (p) => 10 ** -p.value),
+    baseKa: Float64Array.from(c.pKas.filter((p) => p.kind === "base"), (p) => 10 ** -p.value),
+    setschenow: c.setschenowK ?? setschenowConstant(logP),
+    logK: new Float64Array(ns).fill(Number.NaN),
+    sigma: new Float64Array(ns),
+  };
+  for (let i = 1; i < ns; i++) {
+    const s = lib.solvents[i];
+    if (!s) continue;
+    if (s.waterMiscible) entry.sigma[i] = cosolvencyPower(logP, s);
+    else entry.logK[i] = solventLogK(c, s, lib.lib.solvents)?.value ?? logP;
+  }
+  if (!byLib) { byLib = new WeakMap(); cache.set(c, byLib); }
+  byLib.set(lib, entry);
+  return entry;
+}
+
+export function compileComponents(components: readonly Component[], lib: CompiledLibrary): CompiledComponents {
   const n = components.length;
   const ns = lib.solventKeys.length;
   const out: CompiledComponents = {
@@ -37,28 +74,24 @@ export function compileComponents(components: readonly Component[], lib: Compile
     acidKa: [],
     baseKa: [],
     fixedCharge: new Int8Array(n),
-    logK: new Float64Array(n * ns).fill(Number.NaN),
+    logK: new Float64Array(n * ns),
     sigma: new Float64Array(n * ns),
     setschenow: new Float64Array(n),
     ionOffset: new Float64Array(n),
     lipophilicCounterIon: new Uint8Array(n),
   };
   components.forEach((c, ci) => {
+    const e = componentEntry(c, lib);
     out.startMmol[ci] = c.amountMmol;
     out.molarMass[ci] = c.molarMass;
-    out.acidKa.push(Float64Array.from(c.pKas.filter((p) => p.kind === "acid"), (p) => 10 ** -p.value));
-    out.baseKa.push(Float64Array.from(c.pKas.filter((p) => p.kind === "base"), (p) => 10 ** -p.value));
+    out.acidKa.push(e.acidKa);
+    out.baseKa.push(e.baseKa);
     out.fixedCharge[ci] = c.fixedCharge;
-    const logP = effectiveLogP(c, lib.lib.solvents)?.value ?? 0;
-    out.setschenow[ci] = c.setschenowK ?? setschenowConstant(logP);
+    out.setschenow[ci] = e.setschenow;
     out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
     out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" ? 1 : 0;
-    for (const i of usedSolvents) {
-      const s = lib.solvents[i];
-      if (!s || i === 0) continue;
-      if (s.waterMiscible) out.sigma[ci * ns + i] = cosolvencyPower(logP, s);
-      else out.logK[ci * ns + i] = solventLogK(c, s, lib.lib.solvents)?.value ?? logP;
-    }
+    out.logK.set(e.logK, ci * ns);
+    out.sigma.set(e.sigma, ci * ns);
   });
   return out;
 }

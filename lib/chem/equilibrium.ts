@@ -11,7 +11,7 @@ import { CARBONATE, N_SYSTEMS, SYSTEM_Z0, WATER, type CompiledLibrary } from "./
 import { saltingOutShift } from "./partition";
 import { PhaseSplit } from "./phases";
 import { DEFAULT_ION_LOGK_OFFSET } from "./speciation";
-import { type Stream } from "./stream";
+import { copyInto, type Stream } from "./stream";
 
 export class Equilibrator implements ChargeBalance {
   readonly phases: PhaseSplit;
@@ -23,7 +23,12 @@ export class Equilibrator implements ChargeBalance {
   readonly fractionAqueous: Float64Array;
   pH = NaN;
   co2Mmol = 0;
+  /** Last solved pH, the starting guess for the next contact. */
+  private lastSolved = NaN;
   private systemTotals = new Float64Array(N_SYSTEMS);
+  /** Indices of the acid–base systems present in this contact, and how many. */
+  private active = new Int32Array(N_SYSTEMS);
+  private nActive = 0;
   private strongConc = 0;
   private va = 0;
   private vo = 0;
@@ -51,14 +56,14 @@ export class Equilibrator implements ChargeBalance {
     phases.split(mix, sysZ2);
     org.clear();
     aq.clear();
-    org.solv.set(phases.org);
-    aq.solv.set(phases.aq);
+    copyInto(org.solv, phases.org);
+    copyInto(aq.solv, phases.aq);
     this.va = phases.hasAqueous ? phases.aqueousVolume : 0;
     this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
     this.co2Mmol = 0;
     this.amounts.set(mix.comp);
     if (!phases.hasAqueous) {
-      org.comp.set(mix.comp);
+      copyInto(org.comp, mix.comp);
       this.pH = NaN;
       this.fractionAqueous.fill(0);
       this.fractionNeutral.fill(1);
@@ -67,19 +72,22 @@ export class Equilibrator implements ChargeBalance {
     }
     this.setPartition();
     this.systemTotals.set(mix.sys);
+    this.nActive = 0;
+    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) if ((mix.sys[sIdx] as number) > 0) this.active[this.nActive++] = sIdx;
     this.strongConc = mix.strongCharge / this.va;
-    this.pH = solvePh(this);
+    this.pH = solvePh(this, this.lastSolved);
     const carb = this.systemTotals[CARBONATE] as number;
     if (carb > 0) {
       const excess = co2Excess(carb, this.va, 10 ** -this.pH);
       if (excess > 1e-12) {
         this.co2Mmol = excess;
         this.systemTotals[CARBONATE] = carb - excess;
-        this.pH = solvePh(this);
+        this.pH = solvePh(this, this.pH);
       }
     }
     this.residual(this.pH);
-    aq.sys.set(this.systemTotals);
+    this.lastSolved = this.pH;
+    copyInto(aq.sys, this.systemTotals);
     aq.strongCharge = mix.strongCharge;
     aq.strongZ2 = mix.strongZ2;
     aq.osmoles = mix.osmoles;
@@ -119,18 +127,18 @@ export class Equilibrator implements ChargeBalance {
         }
       }
       const own = comps.ionOffset[c] as number;
-      this.kNeutral[c] = 10 ** logK;
-      this.kIon[c] = 10 ** (logK + (Number.isNaN(own) ? offset : own));
+      this.kNeutral[c] = Math.exp(logK * Math.LN10);
+      this.kIon[c] = Math.exp((logK + (Number.isNaN(own) ? offset : own)) * Math.LN10);
     }
   }
 
   /** Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers. */
   residual(pH: number): number {
-    const h = 10 ** -pH;
+    const h = Math.exp(-pH * Math.LN10);
     let f = this.strongConc + h - KW / h;
-    for (let s = 0; s < N_SYSTEMS; s++) {
-      const t = this.systemTotals[s] as number;
-      if (t > 0) f += (t / this.va) * systemMeanCharge(s, h);
+    for (let k = 0; k < this.nActive; k++) {
+      const s = this.active[k] as number;
+      f += ((this.systemTotals[s] as number) / this.va) * systemMeanCharge(s, h);
     }
     const { comps, va, vo } = this;
     for (let c = 0; c < comps.count; c++) {

@@ -109,12 +109,22 @@ function cosolventMatrix(solvents: SolventProps[]): Float64Array {
   return m;
 }
 
-const compiled = new WeakMap<Library, CompiledLibrary>();
+const compiled = new WeakMap<Library, Map<string, CompiledLibrary>>();
 
-export function compileLibrary(lib: Library): CompiledLibrary {
-  const hit = compiled.get(lib);
+/**
+ * Compiles the library for the solvents a work-up uses (water always first). Restricting the arrays to those
+ * few solvents keeps every per-stream array small (V8 allocates small typed arrays on the heap, large ones
+ * off it at several times the cost), and the inner loops short. Cached per library and solvent set.
+ */
+export function compileLibrary(lib: Library, solventKeys?: readonly string[]): CompiledLibrary {
+  const keys = solventKeys
+    ? [WATER_KEY, ...new Set(solventKeys.filter((k) => k !== WATER_KEY && lib.solvents[k]))]
+    : [WATER_KEY, ...Object.keys(lib.solvents).filter((k) => k !== WATER_KEY)];
+  const cacheKey = keys.join("\u0000");
+  let byKeys = compiled.get(lib);
+  if (!byKeys) { byKeys = new Map(); compiled.set(lib, byKeys); }
+  const hit = byKeys.get(cacheKey);
   if (hit) return hit;
-  const keys = [WATER_KEY, ...Object.keys(lib.solvents).filter((k) => k !== WATER_KEY)];
   const solvents = keys.map((k) => {
     const s = lib.solvents[k];
     if (!s) throw new Error(`solvent library has no '${k}'`);
@@ -135,9 +145,10 @@ export function compileLibrary(lib: Library): CompiledLibrary {
     cosolventLogK: cosolventMatrix(solvents),
     ionLogKOffset: f64((s) => s.ionLogKOffset),
     ionPairLogKOffset: f64((s) => s.ionPairLogKOffset),
-    reagents: new Map(Object.entries(lib.reagents).map(([k, r]) => [k, compileReagent(r)])),
+    reagents: byKeys.size > 0 ? (byKeys.values().next().value as CompiledLibrary).reagents
+      : new Map(Object.entries(lib.reagents).map(([k, r]) => [k, compileReagent(r)])),
   };
-  compiled.set(lib, out);
+  byKeys.set(cacheKey, out);
   return out;
 }
 

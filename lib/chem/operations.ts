@@ -7,24 +7,23 @@ import { reagentPh } from "./aqueous";
 import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
 import { WATER } from "./library";
 import { type OperationOf, type Operation } from "./schema";
-import { type ContactContext, type Simulator } from "./simulator";
+import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
 import { addAt, type Stream } from "./stream";
 
 type Details = Record<string, number | string | boolean>;
 type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => Details;
 
 function ctx(sim: Simulator, op: Operation, step: number, portion: number, keep: ContactContext["keep"],
-  reagentKey: string | null, inputs: readonly Stream[]): ContactContext {
+  reagentKey: string | null, before: AcidBaseContent | null): ContactContext {
   return {
-    step, opType: op.type, portion, keep, reagentKey, reagent: reagentKey ? sim.reagent(reagentKey) : null, inputs,
+    step, opType: op.type, portion, keep, reagentKey, reagent: reagentKey ? sim.reagent(reagentKey) : null, before,
     temperatureC: op.temperatureC ?? sim.input.temperatureC,
   };
 }
 
 /** Equilibrates the current stream in place (no separation) so the step shows its layers and pH. */
-function settle(sim: Simulator, op: Operation, step: number, reagentKey: string | null, inputs: readonly Stream[]): void {
-  const before = sim.current;
-  const out = sim.contact(before, ctx(sim, op, step, 1, null, reagentKey, inputs));
+function settle(sim: Simulator, op: Operation, step: number, reagentKey: string | null, before: AcidBaseContent | null): void {
+  const out = sim.contact(sim.current, ctx(sim, op, step, 1, null, reagentKey, before));
   const merged = out.org;
   merged.addFrom(out.aq, 1);
   merged.lastPh = out.aq.lastPh;
@@ -32,9 +31,10 @@ function settle(sim: Simulator, op: Operation, step: number, reagentKey: string 
 }
 
 const charge: Handler<"charge"> = (sim, op, step) => {
+  const before = sim.acidBase(sim.current);
   addAt(sim.current.solv, sim.solventIndex(op.solvent), op.volumeMl);
   sim.residue = false;
-  if (op.solvent === "water") settle(sim, op, step, null, [sim.current.clone()]);
+  if (op.solvent === "water") settle(sim, op, step, null, before);
   return { volumeMl: op.volumeMl };
 };
 
@@ -48,10 +48,10 @@ const quench: Handler<"quench"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
   const v = reagentVolume(sim, op.reagent, op.volumeMl, op.amountMmol);
   const fresh = sim.freshReagent(r, v);
-  const before = sim.current.clone();
+  const before = sim.acidBase(sim.current, fresh);
   sim.current.addFrom(fresh, 1);
   sim.residue = false;
-  settle(sim, op, step, op.reagent, [before, fresh]);
+  settle(sim, op, step, op.reagent, before);
   const gas = op.reactive?.gasPerMol !== undefined ? op.reactive.amountMmol * op.reactive.gasPerMol : 0;
   return { reagentVolumeMl: v, gasMmol: gas };
 };
@@ -62,10 +62,10 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
   const other = sim.newStream();
   let organic = sim.current;
   for (let p = 1; p <= op.portions; p++) {
-    const fresh = sim.freshReagent(r, op.volumeMl);
-    const mix = organic.clone();
-    mix.addFrom(fresh, 1);
-    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, [organic, fresh]));
+    const mix = sim.freshReagent(r, op.volumeMl);
+    const before = sim.acidBase(organic, mix);
+    mix.addFrom(organic, 1);
+    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before));
     organic = out.org;
     other.addFrom(out.aq, 1);
     other.lastPh = out.aq.lastPh;
@@ -86,9 +86,10 @@ const extract: Handler<"extract"> = (sim, op, step) => {
   const extracts = sim.newStream();
   let aqueous = sim.current;
   for (let p = 1; p <= op.portions; p++) {
-    const mix = aqueous.clone();
-    addAt(mix.solv, si, op.volumeMl);
-    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, null, [aqueous]));
+    // The aqueous stream is consumed by this contact, so the solvent is added to it in place.
+    const before = sim.acidBase(aqueous);
+    addAt(aqueous.solv, si, op.volumeMl);
+    const out = sim.contact(aqueous, ctx(sim, op, step, p, op.keep, null, before));
     aqueous = out.aq;
     extracts.addFrom(out.org, 1);
   }
@@ -103,24 +104,26 @@ const extract: Handler<"extract"> = (sim, op, step) => {
 };
 
 const separate: Handler<"separate"> = (sim, op, step) => {
-  const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, [sim.current]));
+  const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, sim.acidBase(sim.current)));
   sim.current = op.keep === "organic" ? out.org : out.aq;
   sim.divert(step, op.keep === "organic" ? out.aq : out.org, op.saveAs, op.keep === "organic" ? "aqueous layer" : "organic layer");
   return {};
 };
 
 const combine: Handler<"combine"> = (sim, op, step) => {
-  const inputs = [sim.current.clone()];
-  for (const name of op.streams) {
+  const streams = op.streams.map((name) => {
     const rec = sim.saved.get(name);
     if (!rec) throw new Error(`no stream saved as '${name}'`);
-    inputs.push(rec.stream);
+    return rec;
+  });
+  const before = sim.acidBase(sim.current, ...streams.map((x) => x.stream));
+  for (const rec of streams) {
     sim.current.addFrom(rec.stream, 1);
     rec.fate = "combined";
-    sim.saved.delete(name);
+    sim.saved.delete(rec.name);
   }
   sim.residue = false;
-  settle(sim, op, step, null, inputs);
+  settle(sim, op, step, null, before);
   return { streams: op.streams.join(", ") };
 };
 
@@ -155,9 +158,9 @@ const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
     }
   }
   const fresh = sim.freshReagent(r, v);
-  const before = sim.current.clone();
+  const before = sim.acidBase(sim.current, fresh);
   if (v > 0) sim.current.addFrom(fresh, 1);
-  settle(sim, op, step, op.reagent, [before, fresh]);
+  settle(sim, op, step, op.reagent, before);
   details.reagentVolumeMl = v;
   details.reagentMmol = v * r.concentration;
   return details;
@@ -173,9 +176,9 @@ const addSalt: Handler<"add_salt"> = (sim, op, step) => {
     const present = r.osmoles > 0 ? sim.current.osmoles / r.osmoles : 0;
     mmol = Math.max(0, saturated - present);
   } else mmol = (((op.massG ?? 0) / r.molarMass) * 1000);
-  const before = sim.current.clone();
+  const before = sim.acidBase(sim.current);
   sim.current.addReagent(r, mmol, sim.lib.density[WATER] as number);
-  settle(sim, op, step, op.salt, [before]);
+  settle(sim, op, step, op.salt, before);
   return { saltMmol: mmol, saltG: (mmol * r.molarMass) / 1000 };
 };
 

@@ -11,7 +11,7 @@ import { RETAINED_SOLVENT_BP_C } from "./operations";
 import { contactResult, sideStream, summarize } from "./report";
 import { workupInputSchema, type WorkupInput, type WorkupInputRaw } from "./schema";
 import { Simulator } from "./simulator";
-import { addAt } from "./stream";
+import { addAt, copyInto } from "./stream";
 import { type ComponentOutcome, type ContactResult, type StepResult, type WorkupPrediction } from "./types";
 import { ENGINE_VERSION } from "./version";
 
@@ -93,22 +93,22 @@ export function predictWorkup(input: WorkupInputRaw, options: PredictOptions = {
   return simulateWorkup(v.data, options);
 }
 
-function usedSolvents(w: WorkupInput, lib: CompiledLibrary): number[] {
-  const used = new Set<number>();
-  const add = (k: string) => { const i = lib.solventIndex.get(k); if (i !== undefined) used.add(i); };
+function usedSolvents(w: WorkupInput): string[] {
+  const used: string[] = [];
+  const add = (k: string) => { if (!used.includes(k)) used.push(k); };
   for (const s of w.mixture.solvents) add(s.solvent);
   for (const op of w.operations) {
-    if (op.type === "charge" || op.type === "extract") add(op.solvent);
+    if (op.type === "charge" || op.type === "extract" || op.type === "remove_cosolvent") add(op.solvent);
     if ((op.type === "dry" || op.type === "filter") && op.rinse) add(op.rinse.solvent);
   }
-  return [...used];
+  return used;
 }
 
 /** Fast path: no validation, no zod. `parsed` must come from workupInputSchema (or be a perturbed copy of one). */
 export function simulateWorkup(parsed: WorkupInput, options: PredictOptions = {}): WorkupPrediction {
   const library = resolveLibrary(options);
-  const lib = compileLibrary(options.idealPhases ? idealLibrary(library) : library);
-  const comps = compileComponents(parsed.components, lib, usedSolvents(parsed, lib));
+  const lib = compileLibrary(options.idealPhases ? idealLibrary(library) : library, usedSolvents(parsed));
+  const comps = compileComponents(parsed.components, lib);
   const detail = options.steps !== false;
   const withFlags = options.flags !== false;
   const sim = new Simulator(parsed, lib, comps, withFlags);
@@ -118,7 +118,7 @@ export function simulateWorkup(parsed: WorkupInput, options: PredictOptions = {}
     const rr = lib.reagents.get(r.reagent);
     if (rr) cur.addReagent(rr, r.volumeMl, lib.density[WATER] as number);
   }
-  cur.comp.set(comps.startMmol);
+  copyInto(cur.comp, comps.startMmol);
 
   const steps: StepResult[] = [];
   let contacts: ContactResult[] = [];

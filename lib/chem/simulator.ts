@@ -31,9 +31,15 @@ export interface ContactContext {
   keep: "organic" | "aqueous" | null;
   reagentKey: string | null;
   reagent: CompiledReagent | null;
-  /** Streams as they were before mixing (for heat of neutralization). */
-  inputs: readonly Stream[];
+  /** Free acid, base and carbonate-bound protons of the streams before mixing (for heat); null when not tracing. */
+  before: AcidBaseContent | null;
   temperatureC: number;
+}
+
+export interface AcidBaseContent {
+  h: number;
+  oh: number;
+  carbonateProtons: number;
 }
 
 export interface ContactOutcome {
@@ -120,7 +126,7 @@ export class Simulator {
     }
     const lost = new Float64Array(comps.count);
     if (ctx.keep) lost.set(ctx.keep === "organic" ? aq.comp : org.comp);
-    const heat = this.heatOfContact(ctx.inputs, aq);
+    const heat = ctx.before ? this.heatOfContact(ctx.before, aq) : 0;
     const organicMass = p.organicVolume * (Number.isFinite(rhoOrg) ? rhoOrg : 0.8);
     const aqueousMass = p.aqueousVolume * (Number.isFinite(rhoAq) ? rhoAq : 1);
     const cp = CP_WATER * aqueousMass + CP_ORGANIC * organicMass;
@@ -156,23 +162,29 @@ export class Simulator {
    * Heat released on mixing, kJ: protons or hydroxide consumed, less the protons taken up by carbonate
    * (bicarbonate neutralization is nearly thermoneutral), times 55.8 kJ/mol (CODATA, see aqueous.ts).
    */
-  private heatOfContact(inputs: readonly Stream[], aq: Stream): number {
-    let hBefore = 0, ohBefore = 0, carbBefore = 0;
-    for (const s of inputs) {
-      if (!Number.isFinite(s.lastPh)) continue;
-      const h = 10 ** -s.lastPh;
-      const v = s.solv[WATER] as number;
-      hBefore += h * v;
-      ohBefore += (1e-14 / h) * v;
-      carbBefore += (s.sys[CARBONATE] as number) * systemBoundProtons(CARBONATE, h);
-    }
+  private heatOfContact(before: AcidBaseContent, aq: Stream): number {
     if (!Number.isFinite(this.eq.pH)) return 0;
     const after = this.eq.freeAcidBase();
     const hAfter = 10 ** -this.eq.pH;
     const carbAfter = (aq.sys[CARBONATE] as number) * systemBoundProtons(CARBONATE, hAfter) + 2 * this.eq.co2Mmol;
-    const consumed = Math.max(hBefore - after.h, ohBefore - after.oh, 0);
-    const n = Math.max(0, consumed - Math.max(0, carbAfter - carbBefore));
+    const consumed = Math.max(before.h - after.h, before.oh - after.oh, 0);
+    const n = Math.max(0, consumed - Math.max(0, carbAfter - before.carbonateProtons));
     return (n / 1000) * -HEAT_OF_NEUTRALIZATION_KJ_PER_MOL;
+  }
+
+  /** Acid–base content of streams about to be mixed; null when no trace is kept (Monte-Carlo path). */
+  acidBase(...streams: Stream[]): AcidBaseContent | null {
+    if (!this.tracing && !this.onContact) return null;
+    let h = 0, oh = 0, carbonateProtons = 0;
+    for (const s of streams) {
+      if (!Number.isFinite(s.lastPh)) continue;
+      const hc = 10 ** -s.lastPh;
+      const v = s.solv[WATER] as number;
+      h += hc * v;
+      oh += (1e-14 / hc) * v;
+      carbonateProtons += (s.sys[CARBONATE] as number) * systemBoundProtons(CARBONATE, hc);
+    }
+    return { h, oh, carbonateProtons };
   }
 
   componentMass(s: Stream): number {
