@@ -8,7 +8,7 @@ import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
 import { WATER } from "./library";
 import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
-import { addAt, type Stream } from "./stream";
+import { addAt } from "./stream";
 
 type Details = Record<string, number | string | boolean>;
 type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => Details;
