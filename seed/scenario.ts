@@ -23,13 +23,13 @@ export const demoGroup = {
     { email: "aiko.brandt@example.org", name: "Aiko Brandt", role: "member" },
     { email: "jonah.mercer@example.org", name: "Jonah Mercer", role: "member" },
     { email: "ruth.okafor@example.org", name: "Ruth Okafor", role: "viewer" },
-  ] satisfies SeedPerson[],
+  ] as const satisfies readonly SeedPerson[],
 };
 
 export const otherGroup = {
   name: "Quayle process group",
   slug: "quayle",
-  people: [{ email: "ines.quayle@example.org", name: "Inès Quayle", role: "lead" }] satisfies SeedPerson[],
+  people: [{ email: "ines.quayle@example.org", name: "Inès Quayle", role: "lead" }] as const satisfies readonly SeedPerson[],
 };
 
 export interface SeedComponentRef {
@@ -43,6 +43,8 @@ export interface WorkupFamily {
   title: string;
   components: SeedComponentRef[];
   solvents: { solvent: string; ml: number }[];
+  /** Aqueous reagents already in the reaction mixture (the base of a saponification). */
+  reagents?: { reagent: string; ml: number }[];
   operations: OperationRaw[];
   /** What the chemist really recovered relative to the prediction (1 = as predicted); < 0.8 makes a poor outcome. */
   outcomeFactor: number;
@@ -128,7 +130,8 @@ export const families: WorkupFamily[] = [
       { compound: "ibuprofen", role: "product", mmol: 6 },
       { compound: "ethyl-benzoate", role: "impurity", mmol: 0.3 },
     ],
-    solvents: [{ solvent: "thf", ml: 20 }, { solvent: "water", ml: 20 }],
+    solvents: [{ solvent: "thf", ml: 20 }],
+    reagents: [{ reagent: "naoh_1m", ml: 20 }],
     operations: [
       { type: "remove_cosolvent", solvent: "thf", fractionRemoved: 0.95 },
       { type: "extract", solvent: "mtbe", volume: mL(15), portions: 1, keep: "aqueous", label: "wash out neutrals with MTBE" },
@@ -142,7 +145,8 @@ export const families: WorkupFamily[] = [
   {
     key: "ibuprofen-thf-left", title: "Ibuprofen from its ethyl ester, THF not removed before extraction",
     components: [{ compound: "ibuprofen", role: "product", mmol: 6 }],
-    solvents: [{ solvent: "thf", ml: 20 }, { solvent: "water", ml: 20 }],
+    solvents: [{ solvent: "thf", ml: 20 }],
+    reagents: [{ reagent: "naoh_1m", ml: 20 }],
     operations: [
       { type: "adjust_ph", reagent: "hcl_3m", targetPh: 2 },
       { type: "extract", solvent: "etoac", volume: mL(20), portions: 2, keep: "organic" },
@@ -201,7 +205,7 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "et2o", volume: mL(20), portions: 2, keep: "organic" },
       washes.brine(20), ...dryAndStrip(),
     ],
-    outcomeFactor: 0.93, purityPct: 94,
+    outcomeFactor: 0.97, purityPct: 94,
   },
   {
     key: "phenol-swing", title: "p-Cresol recovered from a naphthalene mixture by NaOH back-extraction",
