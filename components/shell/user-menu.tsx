@@ -17,7 +17,7 @@ export function UserMenu({ name, email, roleLabel }: { name: string; email: stri
         }
       }}
     >
-      <summary className="flex cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1.5 text-sm text-stone-700 hover:bg-stone-100 focus-visible:outline-2 focus-visible:outline-teal-600">
+      <summary data-testid="user-menu" className="flex cursor-pointer list-none items-center gap-2 rounded-md px-2 py-1.5 text-sm text-stone-700 hover:bg-stone-100 focus-visible:outline-2 focus-visible:outline-teal-600">
         <span aria-hidden className="flex h-7 w-7 items-center justify-center rounded-full bg-teal-700 text-xs font-semibold text-white">
           {initials(name)}
         </span>

@@ -20,7 +20,10 @@ export function isLocalPath(path: string): boolean {
   return path.startsWith("/") && !path.startsWith("//") && !path.startsWith("/\\");
 }
 
-/** Answers a guard failure the way a browser expects; anything else is rethrown to the error page. */
+/**
+ * Answers a guard failure the way a browser expects; anything else is rethrown to the error page. Also for page
+ * loaders' own lookups: `await getWorkup(member, id).catch(pageFailure)` turns a scoped miss into the 404 page.
+ */
 export function pageFailure(error: unknown, returnTo?: string): never {
   if (error instanceof UnauthenticatedError) redirect(signInPath(returnTo));
   if (error instanceof NoMembershipError) redirect("/no-group");

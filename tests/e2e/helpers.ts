@@ -17,7 +17,12 @@ export async function signIn(page: Page, person: Person, password = PASSWORD): P
 }
 
 export async function signOut(page: Page): Promise<void> {
-  await page.getByText("Open account menu").click();
+  await page.getByTestId("user-menu").click();
   await page.getByRole("button", { name: "Sign out" }).click();
   await expect(page).toHaveURL(/\/sign-in/);
+}
+
+/** Our own alerts (Next.js keeps an empty role="alert" route announcer on every page). */
+export function alert(page: Page) {
+  return page.getByRole("alert").filter({ hasText: /\S/ });
 }

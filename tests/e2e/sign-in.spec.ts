@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { fixtures, signIn, signOut } from "./helpers";
+import { alert, fixtures, signIn, signOut } from "./helpers";
 import { GROUP_A, PEOPLE, WORKUP_A_TITLE, WORKUP_B_TITLE } from "./people";
 
 test("a member signs in, sees the group's workups, opens one and signs out", async ({ page }) => {
@@ -34,10 +34,10 @@ test("a wrong password is refused with a clear message, and repeated failures ar
     await page.getByLabel("Email").fill(PEOPLE.lockout.email);
     await page.getByLabel("Password").fill(`not-the-password-${i}`);
     await page.getByRole("button", { name: "Sign in", exact: true }).click();
-    await expect(page.getByRole("alert")).toHaveText("That email and password do not match an account.");
+    await expect(alert(page)).toHaveText("That email and password do not match an account.");
   }
   await page.getByLabel("Password").fill("e2e-partition-coeff-9");
   await page.getByRole("button", { name: "Sign in", exact: true }).click();
-  await expect(page.getByRole("alert")).toHaveText(/^Too many failed sign-ins for this email\. Try again in 1[45] minutes\.$/);
+  await expect(alert(page)).toHaveText(/^Too many failed sign-ins for this email\. Try again in 1[45] minutes\.$/);
   await expect(page).toHaveURL(/\/sign-in/);
 });

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { can } from "@/lib/authz";
-import { requirePageMember } from "@/lib/authz/page";
+import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { Card, PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
 import { formatDate, formatDateTime, formatNumber } from "@/components/ui/format";
@@ -17,7 +17,7 @@ function amount(mmol: number | null): string {
 export default async function WorkupPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await requirePageMember("data:read", { returnTo: `/workups/${id}` });
-  const workup = await getWorkup(member, id);
+  const workup = await getWorkup(member, id).catch(pageFailure);
   const prediction = workup.predictions[0];
   const header: [string, string][] = [
     ["Date", formatDate(workup.performedOn)],

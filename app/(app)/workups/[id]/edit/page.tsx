@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { requirePageMember } from "@/lib/authz/page";
+import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { Card, PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
 import { getWorkup } from "../../_lib/queries";
@@ -10,7 +10,7 @@ export const metadata = { title: "Edit workup" };
 export default async function EditWorkupPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await requirePageMember("data:write", { returnTo: `/workups/${id}/edit` });
-  const workup = await getWorkup(member, id);
+  const workup = await getWorkup(member, id).catch(pageFailure);
   return (
     <>
       <PageHeader title={`Edit: ${workup.title}`} actions={<Link href={`/workups/${workup.id}`} className={buttonClass("ghost")}>Back to the record</Link>} />
