@@ -13,3 +13,4 @@ export * from "./aqueous";
 export * from "./phases";
 export * from "./predict";
 export * from "./flags";
+export * from "./operation-types";

@@ -151,7 +151,7 @@ export class Simulator {
       co2Mmol: eq.co2Mmol,
       heatKJ: heat,
       temperatureRiseK: cp > 0 ? (heat * 1000) / cp : 0,
-      capacityExceeded: ctx.reagent !== null && capacityExceeded(ctx.reagent, fresh, eq.pH),
+      capacityExceeded: ctx.reagent !== null && (ctx.opType === "wash" || ctx.opType === "back_extract") && capacityExceeded(ctx.reagent, fresh, eq.pH),
       liquidVolume: total,
       temperatureC: ctx.temperatureC,
       organicSolvents,
