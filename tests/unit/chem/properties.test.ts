@@ -1,5 +1,5 @@
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { describe, it } from "vitest";
 import { predictWorkup } from "@/lib/chem/predict";
 import { workupInputSchema, type WorkupInputRaw } from "@/lib/chem/schema";
 import { totalsAfterStep } from "./balance";
