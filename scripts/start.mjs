@@ -8,6 +8,8 @@ import path from "node:path";
 
 const root = path.resolve(path.dirname(new URL(import.meta.url).pathname), "..");
 process.chdir(root);
+// Nothing may call out of the machine: Next.js would otherwise send anonymous usage telemetry.
+process.env.NEXT_TELEMETRY_DISABLED ??= "1";
 
 function run(cmd, args, extraEnv = {}) {
   const r = spawnSync(cmd, args, { stdio: "inherit", env: { ...process.env, ...extraEnv } });

@@ -6,6 +6,8 @@ import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 
 mkdirSync(".tmp", { recursive: true });
+// Nothing may call out of the machine: Next.js would otherwise send anonymous usage telemetry.
+process.env.NEXT_TELEMETRY_DISABLED ??= "1";
 const only = process.argv.slice(2);
 const stages = [
   { name: "typecheck", cmd: ["npx", "tsc", "--noEmit"] },

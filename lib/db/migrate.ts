@@ -65,18 +65,18 @@ function matchesChecksum(file: MigrationFile, recorded: string): boolean {
 }
 
 export async function readMigrations(dir: string = defaultMigrationsDir()): Promise<MigrationFile[]> {
-  const lock = await fsp.readFile(path.join(dir, "migration_lock.toml"), "utf8").catch(() => undefined);
+  const lock = await fsp.readFile(/*turbopackIgnore: true*/ path.join(dir, "migration_lock.toml"), "utf8").catch(() => undefined);
   const provider = lock && /^\s*provider\s*=\s*"([^"]*)"/m.exec(lock)?.[1];
   if (provider && provider !== "postgresql") {
     throw new MigrationError(`${dir}/migration_lock.toml is for "${provider}"; Layerwise needs "postgresql" migrations.`);
   }
-  const entries = await fsp.readdir(dir, { withFileTypes: true }).catch((e: NodeJS.ErrnoException) => {
+  const entries = await fsp.readdir(/*turbopackIgnore: true*/ dir, { withFileTypes: true }).catch((e: NodeJS.ErrnoException) => {
     throw new MigrationError(`Cannot read the migrations folder ${dir}: ${e.message}`, undefined, { cause: e });
   });
   const names = entries.filter((e) => e.isDirectory()).map((e) => e.name).sort(); // Prisma orders by folder name
   return Promise.all(
     names.map(async (name) => {
-      const bytes = await fsp.readFile(path.join(dir, name, "migration.sql")).catch((e: unknown) => {
+      const bytes = await fsp.readFile(/*turbopackIgnore: true*/ path.join(dir, name, "migration.sql")).catch((e: unknown) => {
         throw new MigrationError(`Migration ${name} has no readable migration.sql`, name, { cause: e });
       });
       return { name, script: bytes.toString("utf8"), checksum: sha256(bytes) };
