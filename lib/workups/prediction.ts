@@ -8,7 +8,8 @@ import { type WorkupPrediction } from "@/lib/chem/types";
 import { propagateUncertainty, type Interval } from "@/lib/chem/uncertainty";
 import { ENGINE_VERSION } from "@/lib/chem/version";
 import { ValidationError, type FieldErrors } from "@/lib/errors";
-import { type LibraryOverrides } from "@/lib/chem/library";
+import { resolveLibrary, type LibraryOverrides } from "@/lib/chem/library";
+import { applyGroupValues, partitionSources, type GroupValues, type PartitionSource } from "@/lib/partition/overlay";
 
 /**
  * 300 draws: the 2.5 % tail then holds about 7 draws, enough for a stable interval edge at the scale a deviation
@@ -28,6 +29,8 @@ export interface ComponentInterval {
 export interface StoredPredictionResult {
   prediction: WorkupPrediction;
   uncertainty: { draws: number; seed: number; failedDraws: number; components: Record<string, ComponentInterval> } | null;
+  /** Where each component's log K in each organic solvent came from ("group data, n = 4, ±0.12", "estimated from structure"). */
+  partition?: PartitionSource[];
 }
 
 export interface ComputedPrediction {
@@ -64,11 +67,13 @@ export interface PredictionOptions {
   library: LibraryOverrides;
   seed: number;
   draws?: number;
+  /** The group's pooled partition values and registry properties of linked compounds (lib/partition groupValuesForLinks). */
+  groupValues?: GroupValues;
 }
 
 /** Point prediction (with steps, flags and cautions) and, when draws > 0, the Monte Carlo interval. */
 export function computePrediction(spec: unknown, options: PredictionOptions): ComputedPrediction {
-  const parsed = parseSpec(spec, options.library);
+  const parsed = applyGroupValues(parseSpec(spec, options.library), options.groupValues);
   const engine: PredictOptions = { ...options.library };
   const prediction = simulateWorkup(parsed, engine);
   const draws = options.draws ?? SAVE_DRAWS;
@@ -78,7 +83,7 @@ export function computePrediction(spec: unknown, options: PredictionOptions): Co
   const band = productKey !== null ? uncertainty?.components[productKey]?.recovery : undefined;
   return {
     engineVersion: ENGINE_VERSION,
-    result: { prediction, uncertainty },
+    result: { prediction, uncertainty, partition: partitionSources(parsed, resolveLibrary(options.library).solvents) },
     productKey,
     productRecovery,
     recoveryLow: band ? band.p025 : null,

@@ -117,7 +117,7 @@ const booleanParam = z.union([
 ]);
 
 /** List filters; every field optional. Query strings and form values arrive as strings and are coerced here. */
-export const workupListFilterSchema = z
+export const workupListFilterFields = z
   .object({
     /** Words matched in the title, notebook reference and component / compound names (all words must match). */
     q: z.string().trim().max(200, { error: "search text must be ≤ 200 characters" }).optional(),
@@ -132,8 +132,9 @@ export const workupListFilterSchema = z
     /** Opaque cursor from the previous page's `next`. */
     cursor: z.string().max(200).optional(),
     limit: z.coerce.number({ error: "limit must be a number" }).int().min(1, { error: "limit must be ≥ 1" }).max(200, { error: "limit must be ≤ 200" }).default(25),
-  })
-  .refine((f) => !f.from || !f.to || f.from <= f.to, { error: "the start date must not be after the end date", path: ["to"] });
+  });
+
+export const workupListFilterSchema = workupListFilterFields.refine((f) => !f.from || !f.to || f.from <= f.to, { error: "the start date must not be after the end date", path: ["to"] });
 
 /** Prediction without saving (POST /api/v1/predict). */
 export const predictRequestSchema = z.object({
@@ -142,6 +143,12 @@ export const predictRequestSchema = z.object({
   draws: z.number().int().min(0).max(2000, { error: "draws must be ≤ 2000" }).default(400),
   seed: z.number().int().min(1).max(2 ** 31 - 1).optional(),
 });
+
+const versionNumber = (label: string) =>
+  z.coerce.number({ error: `${label} must be a version number` }).int({ error: `${label} must be a whole number` }).min(1, { error: `${label} must be ≥ 1` });
+
+/** Two versions to compare (GET /workups/{id}/diff?from=&to=). */
+export const versionPairSchema = z.object({ from: versionNumber("from"), to: versionNumber("to") });
 
 export type WorkupHeaderInput = z.input<typeof workupHeaderSchema>;
 export type WorkupHeader = z.output<typeof workupHeaderSchema>;

@@ -1,0 +1,9 @@
+// POST: predict a workup with the group's library, without saving anything.
+import { memberRoute } from "@/lib/authz/route";
+import { getDb } from "@/lib/db/client";
+import { readJsonBody } from "@/lib/api/body";
+import { predictSpec } from "@/lib/workups/predict-request";
+
+export const POST = memberRoute("data:read", async (request, { member }) =>
+  Response.json(await predictSpec(await getDb(), member.group.id, await readJsonBody(request))),
+);
