@@ -70,8 +70,7 @@ describe("acid–base separation of a neutral compound from an amine and a carbo
   });
   it("a group's own log K for the compound and solvent changes the prediction", () => {
     const raw = acidBase();
-    const [n] = raw.components as [{ logK?: Record<string, unknown> }];
-    n.logK = { etoac: { value: 0.3, provenance: "group", se: 0.1, n: 3 } };
+    raw.components[0] = { ...naphthalene(), logK: { etoac: { value: 0.3, provenance: "group", se: 0.1, n: 3 } } };
     expect(predictWorkup(raw).recovery.naphthalene).toBeLessThan((r.recovery.naphthalene ?? 0) - 0.2);
   });
 });
