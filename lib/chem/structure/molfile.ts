@@ -23,6 +23,7 @@ export function looksLikeMolBlock(text: string): boolean {
 
 export function checkMolBlock(block: string, options: MolBlockCheckOptions): void {
   const lines = block.replace(/\r\n?/g, "\n").split("\n");
+  while (lines.length > 0 && lines[lines.length - 1]?.trim() === "") lines.pop();
   const offset = options.lineOffset ?? 0;
   const fail = (code: "mol_block_header" | "mol_block_counts" | "mol_block_atom" | "mol_block_bond" | "mol_block_truncated", line: number, message: string) =>
     new StructureError(code, `Line ${line + offset}: ${message}`, { line: line + offset });

@@ -14,6 +14,11 @@ export function errorFromRDKitLog(log: string, what: "SMILES" | "SMARTS" | "MOL 
     const atoms = (kekule[1] ?? "").trim().split(/\s+/).map(Number);
     return new StructureError("aromaticity", `The aromatic ring with atoms ${atoms.map((a) => a + 1).join(", ")} cannot be given alternating single and double bonds; check lowercase (aromatic) atoms and [nH] hydrogens.`, { atoms, detail });
   }
+  const nonRing = /non-ring atom (\d+) marked aromatic/.exec(detail);
+  if (nonRing) {
+    const atom = Number(nonRing[1]);
+    return new StructureError("aromaticity", `Atom ${atom + 1} is written as aromatic (lowercase) but is not in a ring.`, { atoms: [atom], detail });
+  }
   if (/unclosed ring/.test(detail)) return new StructureError("unclosed_ring", `A ring bond in the ${what} is opened but never closed.`, { detail });
   if (/extra (open|close) parenthes/.test(detail)) return new StructureError("unbalanced_parentheses", `The ${what} has unmatched parentheses.`, { detail });
   if (/duplicate|ring closure/i.test(detail)) {

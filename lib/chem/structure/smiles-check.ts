@@ -15,6 +15,8 @@ const AROMATIC_BRACKET = new Set(["b", "c", "n", "o", "p", "s", "se", "as", "te"
 export function checkSmilesLexically(smiles: string): void {
   const openRings = new Map<string, number>();
   const parens: number[] = [];
+  // A ring-bond digit must follow an atom (or its bond symbol); at the start, after "(" or after "." it cannot.
+  let ringAllowed = false;
   let i = 0;
   while (i < smiles.length) {
     const ch = smiles.charAt(i);
@@ -32,10 +34,15 @@ export function checkSmilesLexically(smiles: string): void {
         throw new StructureError("unbalanced_brackets", `The '[' at position ${pos} is never closed with ']'.`, { position: pos });
       }
       checkBracketAtom(smiles.slice(i + 1, close), pos);
+      ringAllowed = true;
       i = close + 1;
       continue;
     }
     if (ch === "]") throw new StructureError("unbalanced_brackets", `The ']' at position ${pos} has no matching '['.`, { position: pos });
+    if ((ch === "%" || /\d/.test(ch)) && !ringAllowed) {
+      throw new StructureError("bad_ring_closure", `Ring-bond digit at position ${pos} does not follow an atom.`, { position: pos });
+    }
+    if (ch === "(" || ch === ".") ringAllowed = false;
     if (ch === "(") parens.push(pos);
     else if (ch === ")") {
       if (parens.pop() === undefined) throw new StructureError("unbalanced_parentheses", `The ')' at position ${pos} has no matching '('.`, { position: pos });
@@ -50,6 +57,7 @@ export function checkSmilesLexically(smiles: string): void {
     } else if (/\d/.test(ch)) toggleRing(openRings, ch, pos);
     else if (/[A-Za-z*]/.test(ch)) {
       i += checkOrganicAtom(smiles, i);
+      ringAllowed = true;
       continue;
     }
     i += 1;
