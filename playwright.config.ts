@@ -1,5 +1,5 @@
 // Browser tests drive Debian's Chromium (/usr/bin/chromium); no browser is ever downloaded.
-// The web server runs the production build (`next build` only when no build exists) against a fresh embedded
+// The web server runs the production build (rebuilt by scripts/ensure-build.mjs when the sources changed) against a fresh embedded
 // database under .tmp/, prepared through the data layer by tests/e2e/prepare.ts, on a free port.
 import { createServer } from "node:net";
 import path from "node:path";
@@ -25,7 +25,7 @@ const baseURL = `http://127.0.0.1:${port}`;
 
 const serve = [
   "npx tsx tests/e2e/prepare.ts",
-  "(test -f .next/BUILD_ID || npx next build)",
+  "node scripts/ensure-build.mjs",
   `npx next start -H 127.0.0.1 -p ${port}`,
 ].join(" && ");
 
