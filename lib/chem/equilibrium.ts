@@ -13,14 +13,16 @@ import { PhaseSplit } from "./phases";
 import { DEFAULT_ION_LOGK_OFFSET } from "./speciation";
 import { copyInto, type Stream } from "./stream";
 
+const reusable = new WeakMap<CompiledLibrary, Equilibrator>();
+
 export class Equilibrator implements ChargeBalance {
   readonly phases: PhaseSplit;
-  readonly kNeutral: Float64Array;
-  readonly kIon: Float64Array;
+  kNeutral: Float64Array;
+  kIon: Float64Array;
   /** Distribution ratio, neutral fraction (aqueous speciation) and fraction in the aqueous layer, per component. */
-  readonly distribution: Float64Array;
-  readonly fractionNeutral: Float64Array;
-  readonly fractionAqueous: Float64Array;
+  distribution: Float64Array;
+  fractionNeutral: Float64Array;
+  fractionAqueous: Float64Array;
   pH = NaN;
   co2Mmol = 0;
   /** Last solved pH, the starting guess for the next contact. */
@@ -33,9 +35,11 @@ export class Equilibrator implements ChargeBalance {
   private va = 0;
   private vo = 0;
   private amounts: Float64Array;
+  private comps: CompiledComponents;
 
-  constructor(private readonly lib: CompiledLibrary, private readonly comps: CompiledComponents) {
+  private constructor(private readonly lib: CompiledLibrary, comps: CompiledComponents) {
     this.phases = new PhaseSplit(lib);
+    this.comps = comps;
     const n = comps.count;
     this.kNeutral = new Float64Array(n);
     this.kIon = new Float64Array(n);
@@ -45,7 +49,20 @@ export class Equilibrator implements ChargeBalance {
     this.amounts = new Float64Array(n);
   }
 
-  /** Equilibrates `mix` and writes the two layers into `org` and `aq` (both cleared first). */
+  /** An equilibrator for this library and these components; one instance is reused per compiled library
+   * (simulations run synchronously, one at a time) to save allocations on the Monte-Carlo path. */
+  static for(lib: CompiledLibrary, comps: CompiledComponents): Equilibrator {
+    const hit = reusable.get(lib);
+    if (hit && hit.amounts.length === comps.count) {
+      hit.comps = comps;
+      return hit;
+    }
+    const eq = new Equilibrator(lib, comps);
+    reusable.set(lib, eq);
+    return eq;
+  }
+
+  /** Equilibrates `mix` and writes the two layers into `org` and `aq`, which must be new (empty) streams. */
   equilibrate(mix: Stream, org: Stream, aq: Stream): void {
     const { phases, comps } = this;
     let sysZ2 = 0;
@@ -54,8 +71,6 @@ export class Equilibrator implements ChargeBalance {
       sysZ2 += (mix.sys[s] as number) * Math.max(1, z0 * z0);
     }
     phases.split(mix, sysZ2);
-    org.clear();
-    aq.clear();
     copyInto(org.solv, phases.org);
     copyInto(aq.solv, phases.aq);
     this.va = phases.hasAqueous ? phases.aqueousVolume : 0;

@@ -60,7 +60,7 @@ export class Simulator {
   onContact: ((ctx: ContactContext, out: ContactOutcome) => void) | null = null;
 
   constructor(readonly input: WorkupInput, readonly lib: CompiledLibrary, readonly comps: CompiledComponents, readonly tracing: boolean) {
-    this.eq = new Equilibrator(lib, comps);
+    this.eq = Equilibrator.for(lib, comps);
     this.current = this.newStream();
   }
 
