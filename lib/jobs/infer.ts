@@ -1,0 +1,103 @@
+/**
+ * Inference jobs: outcomes reported or re-judged since the last pass are fitted for the product's log K
+ * (lib/partition/infer-service.ts). A scheduler finds groups with newer outcomes and queues one job per group; the
+ * job walks the outcomes in (updatedAt, workupId) order with a committed cursor, and at the end queues the
+ * re-validation of the compounds whose observations changed. Outcome.updatedAt is stamped by the writing instance's
+ * clock, so each pass reaches back OVERLAP_MS before the previous one ended; fitting an outcome twice changes
+ * nothing, so the overlap costs only time.
+ */
+import { type Db } from "@/lib/db/client";
+import { applyInferences, dropOrphanInferences, planInferences } from "@/lib/partition/infer-service";
+import { commitProgress, finishJob, LeaseLostError, type ClaimedJob } from "./queue";
+import { enqueueRevalidation } from "./revalidate";
+
+export const OVERLAP_MS = 5 * 60_000;
+export const INFERENCE_BATCH = 10;
+/** Any constant shared by all instances: serializes schedulers so two instances do not queue the same pass. */
+const SCHEDULER_LOCK = 7_240_011;
+
+interface InferPayload {
+  /** Outcomes updated after this (ISO) are in the pass; null for the first pass. */
+  since: string | null;
+  /** …up to and including this, the newest outcome when the pass was queued. */
+  until: string;
+  cursor: { at: string; id: string } | null;
+  changed: string[];
+}
+
+function readPayload(p: Record<string, unknown>): InferPayload {
+  const cursor = p["cursor"] as { at?: unknown; id?: unknown } | null | undefined;
+  return {
+    since: typeof p["since"] === "string" ? p["since"] : null,
+    until: typeof p["until"] === "string" ? p["until"] : new Date(0).toISOString(),
+    cursor: cursor && typeof cursor.at === "string" && typeof cursor.id === "string" ? { at: cursor.at, id: cursor.id } : null,
+    changed: Array.isArray(p["changed"]) ? p["changed"].filter((x): x is string => typeof x === "string") : [],
+  };
+}
+
+/** Queues an inference pass for every group with outcomes newer than its last pass. Returns the number queued. */
+export async function scheduleInference(db: Db): Promise<number> {
+  return db.$transaction(async (tx) => {
+    await tx.$executeRaw`SELECT pg_advisory_xact_lock(${SCHEDULER_LOCK})`;
+    const due = await tx.$queryRaw<{ groupId: string; lastUntil: string | null; newest: Date }[]>`
+      SELECT o."groupId", last."until" AS "lastUntil", max(o."updatedAt") AS newest
+        FROM "Outcome" o
+        LEFT JOIN LATERAL (
+          SELECT j.payload->>'until' AS "until" FROM "Job" j
+           WHERE j."groupId" = o."groupId" AND j.kind = 'infer' AND j.status = 'done'
+           ORDER BY (j.payload->>'until')::timestamp DESC LIMIT 1) last ON true
+       WHERE NOT EXISTS (SELECT 1 FROM "Job" j WHERE j."groupId" = o."groupId" AND j.kind = 'infer' AND j.status IN ('queued', 'running'))
+       GROUP BY o."groupId", last."until"
+      HAVING last."until" IS NULL OR max(o."updatedAt") > (last."until")::timestamp`;
+    for (const g of due) {
+      const since = g.lastUntil ? new Date(new Date(g.lastUntil).getTime() - OVERLAP_MS).toISOString() : null;
+      const payload: InferPayload = { since, until: g.newest.toISOString(), cursor: null, changed: [] };
+      await tx.job.create({ data: { groupId: g.groupId, kind: "infer", payload: { ...payload } }, select: { id: true } });
+    }
+    return due.length;
+  });
+}
+
+function rangeWhere(groupId: string, p: InferPayload) {
+  return {
+    groupId,
+    updatedAt: { lte: new Date(p.until), ...(p.since ? { gt: new Date(p.since) } : {}) },
+    ...(p.cursor
+      ? { OR: [{ updatedAt: { gt: new Date(p.cursor.at) } }, { updatedAt: new Date(p.cursor.at), workupId: { gt: p.cursor.id } }] }
+      : {}),
+  };
+}
+
+/** One batch of an inference job. Returns true when the job is finished. */
+export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolean> {
+  const p = readPayload(job.payload);
+  const total = p.cursor === null && job.done === 0 ? await db.outcome.count({ where: rangeWhere(job.groupId, { ...p, cursor: null }) }) : job.total;
+  const batch = await db.outcome.findMany({
+    where: rangeWhere(job.groupId, p),
+    orderBy: [{ updatedAt: "asc" }, { workupId: "asc" }],
+    take: INFERENCE_BATCH,
+    select: { workupId: true, updatedAt: true },
+  });
+  if (batch.length === 0) {
+    await db.$transaction(async (tx) => {
+      const orphaned = await dropOrphanInferences(tx, job.groupId);
+      const changed = [...new Set([...p.changed, ...orphaned])];
+      if (!(await finishJob(tx, job, { status: "done", payload: { ...job.payload, ...p, changed } }))) throw new LeaseLostError(job.id);
+      await enqueueRevalidation(tx, job.groupId, { compoundIds: changed, reason: "partition values inferred from reported outcomes changed" });
+    });
+    return true;
+  }
+  const plans = await planInferences(db, job.groupId, batch.map((o) => o.workupId));
+  const last = batch[batch.length - 1] as { workupId: string; updatedAt: Date };
+  const done = job.done + batch.length;
+  const next: InferPayload = { ...p, cursor: { at: last.updatedAt.toISOString(), id: last.workupId } };
+  await db.$transaction(async (tx) => {
+    const changed = await applyInferences(tx, job.groupId, plans);
+    next.changed = [...new Set([...p.changed, ...changed])];
+    await commitProgress(tx, job, { done, total: Math.max(total, done), payload: { ...job.payload, ...next } });
+  });
+  job.done = done;
+  job.total = Math.max(total, done);
+  job.payload = { ...job.payload, ...next };
+  return false;
+}

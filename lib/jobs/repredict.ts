@@ -1,0 +1,93 @@
+/**
+ * Re-predicting stored workups with the group's current values, and bringing their comparison with the outcome,
+ * their status, deviation and review flag up to date. The engine runs outside any transaction (it takes a few tenths
+ * of a second per workup and yields to the event loop between workups, so the server keeps answering requests); the
+ * writes of a batch then go in one transaction with the job's progress. A workup saved again meanwhile is left alone:
+ * its own save already predicted it with the same values.
+ */
+import { type Prisma } from "@/generated/prisma/client";
+import { type Db, type DbTransaction } from "@/lib/db/client";
+import { groupValuesForWorkups } from "@/lib/partition/group-values";
+import { analyzeOutcome, type OutcomeAnalysis } from "@/lib/workups/analysis";
+import { isFlagged, type DeviationStatus } from "@/lib/workups/deviation";
+import { groupLibrary } from "@/lib/workups/library";
+import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "@/lib/workups/prediction";
+
+export interface Reprediction {
+  workupId: string;
+  version: number;
+  computed: ComputedPrediction;
+  outcomeId: string | null;
+  analysis: OutcomeAnalysis | null;
+  state: { flagged: boolean; status: DeviationStatus; deviationPct: number | null };
+  wasFlagged: boolean;
+}
+
+export interface RepredictionPlan {
+  plans: Reprediction[];
+  failures: { workupId: string; message: string }[];
+}
+
+const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+export async function planRepredictions(db: Db, groupId: string, workupIds: readonly string[], options: { draws?: number } = {}): Promise<RepredictionPlan> {
+  const library = await groupLibrary(db, groupId);
+  const workups = await db.workup.findMany({
+    where: { groupId, id: { in: [...workupIds] } },
+    orderBy: { id: "asc" },
+    select: {
+      id: true, version: true, spec: true, flagged: true, assayedProductMmol: true, expectedProductMmol: true,
+      components: { where: { groupId }, select: { key: true, compoundId: true } },
+      outcome: { select: { id: true, isolatedMassMg: true, purityPct: true } },
+    },
+  });
+  const values = await groupValuesForWorkups(db, groupId, workups.map((w) => ({ id: w.id, links: w.components })));
+  const out: RepredictionPlan = { plans: [], failures: [] };
+  for (const w of workups) {
+    await yieldToEventLoop();
+    try {
+      const computed = computePrediction(w.spec, { library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {} });
+      const flags = computed.result.prediction.flags;
+      const analysis = w.outcome
+        ? analyzeOutcome({ outcome: w.outcome, header: w, spec: computed.parsed, library, prediction: { ...computed, workupVersion: w.version, flags } })
+        : null;
+      const state = analysis
+        ? { flagged: analysis.flagged, status: analysis.deviation.status, deviationPct: analysis.deviation.deviationPct }
+        : { flagged: isFlagged("unknown", flags), status: "unknown" as const, deviationPct: null };
+      out.plans.push({ workupId: w.id, version: w.version, computed, outcomeId: w.outcome?.id ?? null, analysis, state, wasFlagged: w.flagged });
+    } catch (error) {
+      out.failures.push({ workupId: w.id, message: error instanceof Error ? error.message.slice(0, 300) : "prediction failed" });
+    }
+  }
+  return out;
+}
+
+function asJson(value: unknown): Prisma.InputJsonValue {
+  return value as Prisma.InputJsonValue; // engine results and analyses are plain JSON
+}
+
+/** Writes the plans; returns how many were applied and how many changed their review flag. */
+export async function applyRepredictions(tx: DbTransaction, groupId: string, plans: readonly Reprediction[]): Promise<{ applied: number; flagChanges: number }> {
+  let applied = 0;
+  let flagChanges = 0;
+  for (const p of plans) {
+    const { count } = await tx.workup.updateMany({ where: { id: p.workupId, groupId, version: p.version }, data: p.state });
+    if (count === 0) continue;
+    applied++;
+    if (p.state.flagged !== p.wasFlagged) flagChanges++;
+    await tx.prediction.create({
+      data: {
+        groupId, workupId: p.workupId, workupVersion: p.version, engineVersion: p.computed.engineVersion, result: asJson(p.computed.result),
+        productRecovery: p.computed.productRecovery, recoveryLow: p.computed.recoveryLow, recoveryHigh: p.computed.recoveryHigh,
+      },
+      select: { id: true },
+    });
+    if (p.outcomeId && p.analysis) {
+      await tx.outcome.updateMany({
+        where: { id: p.outcomeId, groupId },
+        data: { analysis: asJson(p.analysis), recoveryPct: p.analysis.reported ? p.analysis.reported.recovery * 100 : null },
+      });
+    }
+  }
+  return { applied, flagChanges };
+}

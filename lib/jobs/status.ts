@@ -1,0 +1,45 @@
+// What the progress bars show: the group's background jobs that are waiting or running, and the last one finished.
+import { type Db } from "@/lib/db/client";
+import { readRevalidationPayload } from "./revalidate";
+
+export interface JobProgress {
+  id: string;
+  kind: string;
+  status: "queued" | "running" | "done" | "failed";
+  total: number;
+  done: number;
+  /** What the job is for, in words. */
+  label: string;
+  flagChanges: number | null;
+  error: string | null;
+  updatedAt: string;
+}
+
+export interface JobsStatus {
+  active: JobProgress[];
+  lastFinished: JobProgress | null;
+}
+
+const select = { id: true, kind: true, status: true, total: true, done: true, payload: true, error: true, updatedAt: true } as const;
+
+type Row = { id: string; kind: string; status: JobProgress["status"]; total: number; done: number; payload: unknown; error: string | null; updatedAt: Date };
+
+function progress(row: Row): JobProgress {
+  const payload = (row.payload ?? {}) as Record<string, unknown>;
+  const revalidation = row.kind === "revalidate" ? readRevalidationPayload(payload) : null;
+  const label = revalidation
+    ? `Re-predicting workups: ${revalidation.reasons.slice(-1)[0] ?? "group data changed"}`
+    : "Learning partition values from reported outcomes";
+  return {
+    id: row.id, kind: row.kind, status: row.status, total: row.total, done: row.done, label,
+    flagChanges: revalidation ? revalidation.flagChanges : null, error: row.error, updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+export async function jobsStatus(db: Db, groupId: string): Promise<JobsStatus> {
+  const [active, last] = await Promise.all([
+    db.job.findMany({ where: { groupId, status: { in: ["queued", "running"] } }, orderBy: [{ createdAt: "asc" }, { id: "asc" }], take: 10, select }),
+    db.job.findFirst({ where: { groupId, status: { in: ["done", "failed"] } }, orderBy: [{ updatedAt: "desc" }, { id: "desc" }], select }),
+  ]);
+  return { active: active.map(progress), lastFinished: last ? progress(last) : null };
+}
