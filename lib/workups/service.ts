@@ -7,6 +7,7 @@
 import { type Db } from "@/lib/db/client";
 import { NotFoundError, parseInput } from "@/lib/errors";
 import { type Caution, type Flag } from "@/lib/chem/types";
+import { groupValuesForLinks } from "@/lib/partition/group-values";
 import { audit } from "./audit";
 import { analyzeOutcome } from "./analysis";
 import { staleVersionError } from "./conflict";
@@ -70,7 +71,9 @@ export async function createWorkup(db: Db, actor: Actor, input: unknown, options
   const parsed = parseInput(createWorkupSchema, input);
   const library = await groupLibrary(db, actor.groupId);
   const id = newRecordId();
-  const prediction = computePrediction(rawSpecOf(input), { library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS });
+  const prediction = computePrediction(rawSpecOf(input), {
+    library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
+  });
   const flagged = isFlagged("unknown", prediction.result.prediction.flags);
   await db.$transaction(async (tx) => {
     const compoundNames = await checkReferences(tx, actor.groupId, parsed.header, parsed.links);
@@ -97,7 +100,9 @@ export async function updateWorkup(db: Db, actor: Actor, id: string, input: unkn
   if (!current) throw new NotFoundError("workup");
   if (current.version !== parsed.baseVersion) throw await staleVersionError(db, id, current.version, parsed.baseVersion);
   const library = await groupLibrary(db, actor.groupId);
-  const prediction = computePrediction(rawSpecOf(input), { library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS });
+  const prediction = computePrediction(rawSpecOf(input), {
+    library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
+  });
   const version = parsed.baseVersion + 1;
   return db.$transaction(async (tx) => {
     const compoundNames = await checkReferences(tx, actor.groupId, parsed.header, parsed.links);
