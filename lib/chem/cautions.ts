@@ -65,8 +65,12 @@ export function evaluateCautions(ctx: FlagContext): Caution[] {
     }
   }
   if (tags.has("hf_source")) add("hydrogen_fluoride", 1, "The mixture contains an HF source: work in a fume hood with calcium gluconate gel at hand, in plastic, never alone, and send the waste through the hazardous-waste programme.");
-  const reprotox = ctx.contacts.find((t) => t.dipolarShare > 0 && ctx.input.mixture.solvents.some((s) => ctx.library.solvents[s.solvent]?.reproductiveToxicant));
-  if (reprotox) add("reproductive_toxicant", reprotox.step, "Amide solvents (DMF, DMAc, NMP) are reproductive toxicants: handle them in the hood with suitable gloves.");
+  const toxic = ctx.lib.solvents.filter((s) => s.reproductiveToxicant).map((s) => s.key);
+  if (toxic.length > 0) {
+    const firstUse = ctx.input.mixture.solvents.some((s) => toxic.includes(s.solvent)) ? 1
+      : ctx.input.operations.findIndex((op) => op.type === "charge" && toxic.includes(op.solvent)) + 1;
+    if (firstUse > 0) add("reproductive_toxicant", firstUse, "Amide solvents (DMF, DMAc, NMP) are reproductive toxicants: handle them in the hood with suitable gloves.");
+  }
   return out.sort((a, b) => a.step - b.step);
 }
 

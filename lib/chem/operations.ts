@@ -261,6 +261,7 @@ export const LOST_COMPONENT_BP_C = { rotavap: 100, n2_stream: 100, distillation:
 const concentrate: Handler<"concentrate"> = (sim, op, step) => {
   const cur = sim.current;
   const waterMl = cur.solv[WATER] as number;
+  const volumeMl = cur.totalVolume();
   const gone = sim.newStream();
   const cut = RETAINED_SOLVENT_BP_C[op.method];
   for (let i = 0; i < cur.solv.length; i++) {
@@ -272,7 +273,7 @@ const concentrate: Handler<"concentrate"> = (sim, op, step) => {
   });
   sim.leave(step, gone, "evaporated", "evaporated solvent");
   sim.residue = true;
-  return { method: op.method, bathC: op.bathC, waterMl };
+  return { method: op.method, bathC: op.bathC, waterMl, volumeMl };
 };
 
 const handlers: { [T in Operation["type"]]: Handler<T> } = {

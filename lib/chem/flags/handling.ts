@@ -110,7 +110,8 @@ export const wetOrganic: Rule = (ctx) => {
   const conc = ctx.steps.find((s) => s.type === "concentrate");
   if (conc && dried.length === 0) {
     const water = Number(conc.details.waterMl ?? 0);
-    if (water > 0.01) {
+    // Solvents that hold > 1 wt% water (EtOAc, ether, 2-MeTHF, BuOH; §3 F23): dissolved water above 0.5 vol%.
+    if (water > 0.005 * Number(conc.details.volumeMl ?? Infinity)) {
       return [flag("F23", "warning", "Organic layer not dried before concentration",
         `About ${water.toFixed(2)} mL of water is predicted in the organic solution concentrated in ${stepName(ctx, conc.index)}: it inflates the crude mass and carries salts into it.`,
         "Wash with brine, then dry over MgSO₄ or Na₂SO₄ until some agent stays free-flowing.", { step: conc.index })];

@@ -192,3 +192,9 @@ describe("safety cautions", () => {
     expect(list.every((c) => /institution's safety plan/.test(c.text))).toBe(true);
   });
 });
+
+describe("F23 threshold", () => {
+  it("toluene, which holds little water (≈0.04 wt%, from memory), is not flagged as wet", () => {
+    expect(codes(workup([naphthalene()], [["toluene", 50]], [wash("water", 30), { type: "concentrate" }]))).not.toContain("F23");
+  });
+});
