@@ -90,6 +90,12 @@ export function addOperation(state: EditorState, type: OperationType, library: L
   return { state: { ...state, operations }, id: op.id };
 }
 
+/** Inserts a step built beforehand (so the caller knows its id even if the edit runs twice). */
+export function insertOperation(state: EditorState, op: OperationState, afterId: string | null = null): EditorState {
+  const at = afterId === null ? state.operations.length : indexOf(state, afterId) + 1;
+  return { ...state, operations: [...state.operations.slice(0, at), op, ...state.operations.slice(at)] };
+}
+
 function replaceOperation(state: EditorState, id: string, f: (op: OperationState) => OperationState): EditorState {
   return { ...state, operations: state.operations.map((op) => (op.id === id ? f(op) : op)) };
 }

@@ -3,66 +3,76 @@ import { can } from "@/lib/authz";
 import { requirePageMember } from "@/lib/authz/page";
 import { EmptyState, PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
-import { formatDate, formatNumber } from "@/components/ui/format";
-import { Badge } from "@/components/ui/badge";
-import { StatusBadge } from "./_components/status-badge";
-import { decodeCursor, listWorkups } from "./_lib/queries";
+import { Notice } from "@/components/ui/notice";
+import { getDb } from "@/lib/db/client";
+import { ValidationError } from "@/lib/errors";
+import { resolveLibrary } from "@/lib/chem/library";
+import { groupLibrary } from "@/lib/workups/library";
+import { listWorkups, type WorkupListPage } from "@/lib/workups/queries";
+import { FILTER_KEYS, FilterForm, filterQuery, type FilterValues } from "@/components/workup/list/filter-form";
+import { FlaggedStrip } from "@/components/workup/list/flagged-strip";
+import { WorkupTable } from "@/components/workup/list/workup-table";
+import { compoundChoices, flaggedWorkups } from "./_lib/list-data";
+import { groupMembers } from "./_lib/editor-data";
 
 export const metadata = { title: "Workups" };
 
-export default async function WorkupsPage({ searchParams }: { searchParams: Promise<{ after?: string }> }) {
+type Search = FilterValues & { cursor?: string };
+
+function firstValues(raw: Record<string, string | string[] | undefined>): Search {
+  const pick = (k: string) => {
+    const v = raw[k];
+    return (Array.isArray(v) ? v[0] : v)?.trim() || undefined;
+  };
+  return Object.fromEntries([...FILTER_KEYS, "cursor"].map((k) => [k, pick(k)]).filter(([, v]) => v !== undefined)) as Search;
+}
+
+export default async function WorkupsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const member = await requirePageMember("data:read", { returnTo: "/workups" });
-  const { after } = await searchParams;
-  const { rows, next, chemists } = await listWorkups(member, decodeCursor(after));
+  const values = firstValues(await searchParams);
+  const { cursor, ...filter } = values;
+  const db = await getDb();
+  let page: WorkupListPage = { rows: [], next: null };
+  let errors: Record<string, string[]> = {};
+  try {
+    page = await listWorkups(db, member.group.id, values);
+  } catch (error) {
+    if (!(error instanceof ValidationError)) throw error;
+    errors = error.fieldErrors;
+  }
+  const [flagged, compounds, members, overrides] = await Promise.all([
+    flaggedWorkups(member), compoundChoices(member), groupMembers(member), groupLibrary(db, member.group.id),
+  ]);
+  const library = resolveLibrary(overrides);
+  const solvents = Object.values(library.solvents).map((s) => ({ value: s.key, label: s.name })).sort((a, b) => a.label.localeCompare(b.label, "en"));
+  const filtered = FILTER_KEYS.some((k) => filter[k]);
   return (
     <>
       <PageHeader
         title="Workups"
         description={`Every workup recorded in ${member.group.name}, newest first.`}
-        actions={can(member, "data:write") ? <span className="text-sm text-stone-500">The workup editor is on its way.</span> : null}
+        actions={
+          <>
+            <Link href="/library" className={buttonClass("ghost")}>Solvent and wash library</Link>
+            {can(member, "data:write") ? <Link href="/workups/new" className={buttonClass("primary")}>New workup</Link> : null}
+          </>
+        }
       />
-      {rows.length === 0 ? (
-        <EmptyState title={after ? "No more workups." : "No workups recorded yet."}>
-          {after ? <Link href="/workups" className="text-teal-700 underline">Back to the newest</Link> : null}
+      {!filtered && !cursor ? <FlaggedStrip items={flagged.items} total={flagged.total} href="/workups?flagged=true" /> : null}
+      <FilterForm values={filter} errors={errors}
+        compounds={compounds.map((c) => ({ value: c.id, label: c.name }))} solvents={solvents} chemists={members.map((m) => ({ value: m.id, label: m.name }))} />
+      {Object.keys(errors).length > 0 ? <div className="mb-4"><Notice tone="error" title="This filter cannot be used">{Object.values(errors).flat().join(" ")}</Notice></div> : null}
+      {page.rows.length === 0 ? (
+        <EmptyState title={cursor ? "No more workups." : filtered ? "No workup matches this filter." : "No workups recorded yet."}>
+          {cursor || filtered ? <Link href="/workups" className="text-teal-700 underline">Back to all workups, newest first</Link> : null}
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white shadow-xs">
-          <table className="min-w-full divide-y divide-stone-200 text-sm">
-            <caption className="sr-only">Workups of {member.group.name}</caption>
-            <thead className="bg-stone-50 text-left text-xs font-semibold uppercase tracking-wide text-stone-500">
-              <tr>
-                <th scope="col" className="px-4 py-2.5">Title</th>
-                <th scope="col" className="px-4 py-2.5">Date</th>
-                <th scope="col" className="px-4 py-2.5">Chemist</th>
-                <th scope="col" className="px-4 py-2.5">Notebook</th>
-                <th scope="col" className="px-4 py-2.5">Outcome</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100">
-              {rows.map((w) => (
-                <tr key={w.id} className="hover:bg-stone-50">
-                  <td className="px-4 py-2.5">
-                    <Link href={`/workups/${w.id}`} className="font-medium text-teal-800 hover:underline focus-visible:outline-2 focus-visible:outline-teal-600">
-                      {w.title}
-                    </Link>
-                  </td>
-                  <td className="whitespace-nowrap px-4 py-2.5 text-stone-600">{formatDate(w.performedOn)}</td>
-                  <td className="px-4 py-2.5 text-stone-600">{(w.chemistId && chemists.get(w.chemistId)) ?? "—"}</td>
-                  <td className="px-4 py-2.5 font-mono text-xs text-stone-600">{w.notebookRef || "—"}</td>
-                  <td className="whitespace-nowrap px-4 py-2.5">
-                    <StatusBadge status={w.status} />
-                    {w.flagged ? <span className="ml-2"><Badge tone="low">Flagged</Badge></span> : null}
-                    {w.deviationPct !== null ? <span className="ml-2 text-xs text-stone-500">{w.deviationPct > 0 ? "+" : ""}{formatNumber(w.deviationPct, 1)} %</span> : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <WorkupTable rows={page.rows} caption={`Workups of ${member.group.name}`} />
       )}
-      <nav aria-label="Pages" className="mt-4 flex justify-between text-sm">
-        {after ? <Link href="/workups" className={buttonClass("ghost")}>Newest</Link> : <span />}
-        {next ? <Link href={`/workups?after=${encodeURIComponent(next)}`} className={buttonClass("secondary")}>Older workups</Link> : null}
+      <nav aria-label="Pages" className="mt-4 flex flex-wrap items-center justify-between gap-3 text-sm">
+        {cursor ? <Link href={`/workups${filterQuery(filter)}`} className={buttonClass("ghost")}>← Newest</Link> : <span />}
+        <a href={`/api/v1/workups.csv${filterQuery(filter)}`} className="text-teal-800 underline" download>Export this list as CSV</a>
+        {page.next ? <Link href={`/workups${filterQuery(filter, { cursor: page.next })}`} className={buttonClass("secondary")}>Older →</Link> : <span />}
       </nav>
     </>
   );

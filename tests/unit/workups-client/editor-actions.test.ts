@@ -4,6 +4,7 @@ import { addComponent, addOperation, duplicateStep, keyFromName, moveOperation, 
 import { blankComponent } from "@/lib/workups-client/compound-component";
 import { emptyEditorState } from "@/lib/workups-client/from-spec";
 import { operationInput } from "@/lib/workups-client/to-spec";
+import { describeOperation } from "@/lib/workups-client/describe";
 
 const lib = DEFAULT_LIBRARY;
 const blank = () => emptyEditorState("2026-11-02", "");
@@ -81,5 +82,16 @@ describe("component keys", () => {
     let s = addComponent(blank(), { ...blankComponent("product"), name: "Ester", autoKey: false, key: "ester" });
     s = updateComponent(s, s.components[0]!.id, { name: "Ethyl ester" });
     expect(s.components[0]?.key).toBe("ester");
+  });
+});
+
+describe("step descriptions", () => {
+  it.each([
+    [{ type: "wash", reagent: "brine", volume: { value: 20, unit: "mL" }, portions: 2, keep: "organic" }, "Wash: Brine (saturated NaCl), 2 × 20 mL, keep the organic layer"],
+    [{ type: "adjust_ph", reagent: "naoh_10pct", targetPh: 12.5 }, "Adjust pH: 10% NaOH, to pH 12.5"],
+    [{ type: "dry", agent: "mgso4", rinse: { solvent: "etoac", volume: { value: 10, unit: "mL" } } }, "Dry: Magnesium sulfate, rinse 10 mL Ethyl acetate"],
+    [{ type: "wash", reagent: "sat_nahco3", volume: { value: 20, unit: "mL" } }, "Wash: sat_nahco3, 20 mL"],
+  ])("%j", (op, expected) => {
+    expect(describeOperation(op, lib)).toBe(expected);
   });
 });

@@ -2,11 +2,22 @@ import Link from "next/link";
 import { can } from "@/lib/authz";
 import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { Card, PageHeader } from "@/components/ui/page-header";
+import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { formatDate, formatDateTime, formatNumber } from "@/components/ui/format";
-import { StatusBadge } from "../_components/status-badge";
-import { ComponentsList, MixtureList, OperationsList } from "../_components/spec-view";
-import { getWorkup } from "../_lib/queries";
+import { getDb } from "@/lib/db/client";
+import { resolveLibrary } from "@/lib/chem/library";
+import { getWorkupDetail } from "@/lib/workups/queries";
+import { groupLibrary } from "@/lib/workups/library";
+import { listVersions } from "@/lib/workups/history";
+import { stepWords } from "@/lib/workups-client/describe";
+import { StatusBadge } from "@/components/workup/detail/status-badge";
+import { ComponentsView } from "@/components/workup/detail/components-view";
+import { StepsView } from "@/components/workup/detail/steps-view";
+import { OutcomeForm } from "@/components/workup/detail/outcome-form";
+import { OutcomeResult } from "@/components/workup/detail/outcome-result";
+import { PredictionOverview, combineSteps } from "@/components/workup/prediction/prediction-overview";
+import { MixtureView } from "@/components/workup/detail/mixture-view";
 
 export const metadata = { title: "Workup" };
 
@@ -17,72 +28,104 @@ function amount(mmol: number | null): string {
 export default async function WorkupPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await requirePageMember("data:read", { returnTo: `/workups/${id}` });
-  const workup = await getWorkup(member, id).catch(pageFailure);
-  const prediction = workup.predictions[0];
+  const db = await getDb();
+  const workup = await getWorkupDetail(db, member.group.id, id).catch(pageFailure);
+  const [overrides, versions] = await Promise.all([groupLibrary(db, member.group.id), listVersions(db, member.group.id, id)]);
+  const library = resolveLibrary(overrides);
+  const stored = workup.prediction;
+  const prediction = stored?.result.prediction ?? null;
+  const analysis = workup.outcome?.analysis ?? null;
+  const writer = can(member, "data:write");
+  const operations = Array.isArray(workup.spec.operations) ? workup.spec.operations : [];
+  const links = new Map(workup.components.flatMap((c) => (c.compound ? [[c.key, c.compound] as const] : [])));
   const header: [string, string][] = [
-    ["Date", formatDate(workup.performedOn)],
+    ["Date", formatDate(workup.header.performedOn)],
     ["Chemist", workup.chemistName ?? "—"],
-    ["Notebook reference", workup.notebookRef || "—"],
-    ["Reaction scale", amount(workup.scaleMmol)],
-    ["Expected product", amount(workup.expectedProductMmol)],
-    ["Product assayed before workup", amount(workup.assayedProductMmol)],
-    ["Version", `${workup.version} · last changed ${formatDateTime(workup.updatedAt)}`],
+    ["Notebook reference", workup.header.notebookRef || "—"],
+    ["Reaction scale", amount(workup.header.scaleMmol)],
+    ["Expected product", amount(workup.header.expectedProductMmol)],
+    ["Product assayed before the workup", amount(workup.header.assayedProductMmol)],
+    ["Version", `${workup.version} · saved ${formatDateTime(workup.updatedAt)}${workup.updatedBy ? ` by ${workup.updatedBy.name}` : ""}`],
   ];
   return (
     <>
       <PageHeader
-        title={workup.title}
-        description={<StatusBadge status={workup.status} />}
+        title={workup.header.title}
+        description={<span className="flex flex-wrap items-center gap-2"><StatusBadge status={workup.status} />{workup.flagged ? <Badge tone="low">Flagged for review</Badge> : null}</span>}
         actions={
           <>
             <Link href="/workups" className={buttonClass("ghost")}>All workups</Link>
-            {can(member, "data:write") ? <Link href={`/workups/${workup.id}/edit`} className={buttonClass("primary")}>Edit</Link> : null}
+            {writer ? <Link href={`/workups/new?copy=${workup.id}`} className={buttonClass("secondary")}>Copy as new</Link> : null}
+            {writer ? <Link href={`/workups/${workup.id}/edit`} className={buttonClass("primary")}>Edit</Link> : null}
           </>
         }
       />
       <div className="grid gap-6 lg:grid-cols-3">
-        <Card title="Record" className="lg:col-span-1">
-          <dl className="space-y-2 text-sm">
-            {header.map(([k, v]) => (
-              <div key={k}>
-                <dt className="text-stone-500">{k}</dt>
-                <dd className="text-stone-900">{v}</dd>
-              </div>
-            ))}
-          </dl>
-        </Card>
-        <div className="space-y-6 lg:col-span-2">
-          <Card title="Prediction and outcome">
-            {prediction?.productRecovery != null ? (
-              <p className="text-sm text-stone-700">
-                Predicted product recovery {formatNumber(prediction.productRecovery * 100, 0)} %
-                {prediction.recoveryLow != null && prediction.recoveryHigh != null
-                  ? ` (likely between ${formatNumber(prediction.recoveryLow * 100, 0)} and ${formatNumber(prediction.recoveryHigh * 100, 0)} %)`
-                  : ""}
-                , engine {prediction.engineVersion}, for version {prediction.workupVersion}.
-              </p>
-            ) : (
-              <p className="text-sm text-stone-500">No stored prediction.</p>
-            )}
+        <div className="space-y-6 lg:col-span-1">
+          <Card title="Record">
+            <dl className="space-y-2 text-sm">
+              {header.map(([k, v]) => (
+                <div key={k}><dt className="text-stone-500">{k}</dt><dd className="text-stone-900">{v}</dd></div>
+              ))}
+            </dl>
+          </Card>
+          <Card title="Outcome">
+            {analysis ? <OutcomeResult analysis={analysis} /> : <p className="text-sm text-stone-600">{workup.outcome ? "Reported, but not compared with a prediction." : "No outcome reported yet."}</p>}
             {workup.outcome ? (
-              <p className="mt-2 text-sm text-stone-700">
-                Isolated {formatNumber(workup.outcome.isolatedMassMg, 1)} mg
-                {workup.outcome.purityPct != null ? `, ${formatNumber(workup.outcome.purityPct, 1)} % pure (${workup.outcome.purityMethod.replace("_", " ")})` : ""}
-                {workup.outcome.recoveryPct != null ? `, recovery ${formatNumber(workup.outcome.recoveryPct, 1)} %` : ""}.
+              <p className="mt-2 text-xs text-stone-500">
+                Isolated {formatNumber(workup.outcome.isolatedMassMg, 1)} mg{workup.outcome.purityPct !== null ? `, ${formatNumber(workup.outcome.purityPct, 1)} % pure` : ""} ({workup.outcome.purityMethod.replace("_", " ")})
+                {workup.outcome.reportedBy ? `, reported by ${workup.outcome.reportedBy.name}` : ""}.
+                {workup.outcome.notes ? <span className="block italic">“{workup.outcome.notes}”</span> : null}
               </p>
+            ) : null}
+            {writer ? (
+              <details className="mt-3" open={!workup.outcome}>
+                <summary className="cursor-pointer text-sm font-medium text-teal-800">{workup.outcome ? "Update the outcome" : "Report the outcome"}</summary>
+                <div className="mt-3">
+                  <OutcomeForm
+                    workupId={workup.id} productKey={prediction?.productKey ?? null}
+                    steps={operations.map((op) => stepWords(op, library).title)}
+                    components={workup.components.map((c) => ({ key: c.key, name: c.name }))}
+                    defaults={workup.outcome ? { isolatedMassMg: workup.outcome.isolatedMassMg, purityPct: workup.outcome.purityPct, purityMethod: workup.outcome.purityMethod, notes: workup.outcome.notes } : null}
+                  />
+                </div>
+              </details>
+            ) : null}
+          </Card>
+          <Card title="History">
+            <ol className="space-y-1 text-sm">
+              {versions.slice(0, 5).map((v) => (
+                <li key={v.version}>
+                  <span className="font-medium">Version {v.version}</span>
+                  <span className="text-stone-600"> · {v.editedBy?.name ?? "unknown"} · {formatDateTime(v.createdAt)}</span>
+                  {v.productRecovery !== null ? <span className="text-stone-500"> · predicted {formatNumber(v.productRecovery * 100, 0)} %</span> : null}
+                </li>
+              ))}
+            </ol>
+            {versions.length === 0 ? <p className="text-sm text-stone-500">No saved versions (this record was written outside the editor).</p> : null}
+            {versions.length > 1 ? <Link href={`/workups/${workup.id}/history`} className="mt-2 inline-block text-sm text-teal-800 underline">Compare versions</Link> : null}
+          </Card>
+        </div>
+        <div className="space-y-6 lg:col-span-2">
+          <Card title="Prediction">
+            {stored && prediction ? (
+              <>
+                <p className="mb-3 text-xs text-stone-500">
+                  Engine {stored.engineVersion}, computed for version {stored.workupVersion} on {formatDateTime(stored.createdAt)}
+                  {stored.result.uncertainty ? `; interval from ${stored.result.uncertainty.draws} Monte Carlo draws (seed ${stored.result.uncertainty.seed})` : ""}.
+                </p>
+                <PredictionOverview
+                  prediction={prediction} intervals={stored.result.uncertainty?.components ?? null} combinedAt={combineSteps(operations as { type?: unknown; streams?: unknown }[])}
+                  intervalNote={stored.result.uncertainty ? `${stored.result.uncertainty.draws} draws` : "no interval stored"} reported={analysis?.reported?.recovery ?? null}
+                />
+              </>
             ) : (
-              <p className="mt-2 text-sm text-stone-500">No outcome reported yet.</p>
+              <p className="text-sm text-stone-600">No stored prediction for this record. It may predate the engine or not fit today&apos;s schema; {writer ? "open the editor, fix what it marks, and save." : "a member can fix it in the editor."}</p>
             )}
           </Card>
-          <Card title="Components">
-            <ComponentsList spec={workup.spec} />
-          </Card>
-          <Card title="Starting mixture">
-            <MixtureList spec={workup.spec} />
-          </Card>
-          <Card title="Steps">
-            <OperationsList spec={workup.spec} />
-          </Card>
+          <Card title="Components"><ComponentsView spec={workup.spec} links={links} /></Card>
+          <Card title="Starting mixture"><MixtureView spec={workup.spec} library={library} /></Card>
+          <Card title="Steps"><StepsView spec={workup.spec} prediction={prediction} library={library} /></Card>
         </div>
       </div>
     </>

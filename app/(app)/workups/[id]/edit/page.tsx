@@ -1,24 +1,31 @@
 import Link from "next/link";
 import { pageFailure, requirePageMember } from "@/lib/authz/page";
-import { Card, PageHeader } from "@/components/ui/page-header";
+import { PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
-import { getWorkup } from "../../_lib/queries";
+import { getDb } from "@/lib/db/client";
+import { getWorkupDetail } from "@/lib/workups/queries";
+import { WorkupEditor } from "@/components/workup/editor/workup-editor";
+import { snapshotOfDetail } from "@/components/workup/editor/snapshot";
+import { editorStateOf } from "@/lib/workups-client/from-spec";
+import { editorContext } from "../../_lib/editor-data";
 
 export const metadata = { title: "Edit workup" };
 
-/** Placeholder for the workup editor: already guarded for writing, so viewers get 403 and other groups 404. */
+/** Guarded for writing: a viewer gets 403, another group's id 404. */
 export default async function EditWorkupPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await requirePageMember("data:write", { returnTo: `/workups/${id}/edit` });
-  const workup = await getWorkup(member, id).catch(pageFailure);
+  const workup = await getWorkupDetail(await getDb(), member.group.id, id).catch(pageFailure);
+  const { members, library } = await editorContext(member);
+  const base = snapshotOfDetail(workup);
   return (
     <>
-      <PageHeader title={`Edit: ${workup.title}`} actions={<Link href={`/workups/${workup.id}`} className={buttonClass("ghost")}>Back to the record</Link>} />
-      <Card>
-        <p className="text-sm text-stone-600" data-testid="editor-placeholder">
-          The editor for version {workup.version} of this workup is not built yet.
-        </p>
-      </Card>
+      <PageHeader
+        title={`Edit: ${workup.header.title}`}
+        description={`Version ${workup.version}. Saving keeps this version in the history and adds a new one.`}
+        actions={<Link href={`/workups/${workup.id}`} className={buttonClass("ghost")}>Back to the record</Link>}
+      />
+      <WorkupEditor workupId={workup.id} baseVersion={workup.version} initial={editorStateOf(workup.header, workup.spec, base.links)} base={base} members={members} library={library} />
     </>
   );
 }

@@ -1,0 +1,29 @@
+// What the editor pages load on the server: the group's members (chemist choices, names in diffs) and the group's
+// library (engine overrides). Scoped by the guard's group.
+import { getDb } from "@/lib/db/client";
+import { type MemberContext } from "@/lib/authz";
+import { groupLibrary } from "@/lib/workups/library";
+import { type LibraryOverrides } from "@/lib/chem/library";
+
+export interface MemberName {
+  id: string;
+  name: string;
+}
+
+export async function groupMembers(member: MemberContext): Promise<MemberName[]> {
+  const db = await getDb();
+  const rows = await db.membership.findMany({
+    where: { groupId: member.group.id },
+    select: { user: { select: { id: true, name: true } } },
+  });
+  return rows.map((r) => r.user).sort((a, b) => a.name.localeCompare(b.name, "en"));
+}
+
+export async function editorContext(member: MemberContext): Promise<{ members: MemberName[]; library: LibraryOverrides }> {
+  const [members, library] = await Promise.all([groupMembers(member), getDb().then((db) => groupLibrary(db, member.group.id))]);
+  return { members, library };
+}
+
+export function todayUtc(): string {
+  return new Date().toISOString().slice(0, 10);
+}

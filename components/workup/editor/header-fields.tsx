@@ -1,0 +1,35 @@
+"use client";
+// The record's header: what a notebook page heads a workup with, plus the amounts the recovery is judged against.
+import { setHeader } from "@/lib/workups-client/editor-actions";
+import { type HeaderState } from "@/lib/workups-client/editor-types";
+import { SelectControl, TextControl } from "./controls";
+import { useEditor } from "./editor-context";
+
+export interface MemberChoice {
+  id: string;
+  name: string;
+}
+
+export function HeaderFields({ members }: { members: MemberChoice[] }) {
+  const { state, apply, messages, touch } = useEditor();
+  const h = state.header;
+  const bind = (field: keyof HeaderState) => {
+    const key = `header.${field}`;
+    return {
+      fieldKey: key, value: h[field], messages: messages(key), onBlur: () => touch(key),
+      onChange: (v: string) => apply((s) => setHeader(s, field, v), key),
+    };
+  };
+  return (
+    <div className="grid gap-3 sm:grid-cols-6">
+      <TextControl {...bind("title")} label="Title" className="sm:col-span-4" placeholder="e.g. Bicarbonate wash of the crude ester" />
+      <TextControl {...bind("performedOn")} label="Date run" type="date" className="sm:col-span-2" />
+      <SelectControl {...bind("chemistId")} label="Chemist" className="sm:col-span-2" blank="Not recorded" choices={members.map((m) => ({ value: m.id, label: m.name }))} />
+      <TextControl {...bind("notebookRef")} label="Notebook reference" className="sm:col-span-2" placeholder="book-page" mono />
+      <TextControl {...bind("scaleMmol")} label="Reaction scale (mmol)" numeric className="sm:col-span-2" hint="Limiting reagent." />
+      <TextControl {...bind("expectedProductMmol")} label="Expected product (mmol)" numeric className="sm:col-span-3" hint="Theoretical amount; recovery is judged against it when nothing was assayed." />
+      <TextControl {...bind("assayedProductMmol")} label="Product assayed before the workup (mmol)" numeric className="sm:col-span-3"
+        hint="From a quantitative sample (qNMR, calibrated HPLC) before the quench; separates reaction yield from workup losses." />
+    </div>
+  );
+}

@@ -1,0 +1,49 @@
+"use client";
+// The editor's state with undo, the set of touched fields, and the messages to show: the browser's own check of the
+// form (same schemas as the server) plus whatever the server answered to the last save.
+import { useCallback, useMemo, useState } from "react";
+import { type LibraryOverrides } from "@/lib/chem/library";
+import { type EditorState } from "@/lib/workups-client/editor-types";
+import { placeMessages, placeServerErrors, type FieldMessages } from "@/lib/workups-client/field-errors";
+import { saveInput } from "@/lib/workups-client/to-spec";
+import { record, redo, reset, startHistory, undo } from "@/lib/workups-client/undo-history";
+import { checkSave } from "@/lib/workups-client/validate";
+
+export function useEditorState(initial: EditorState, library: LibraryOverrides) {
+  const [history, setHistory] = useState(() => startHistory(initial));
+  const [touched, setTouched] = useState<ReadonlySet<string>>(new Set());
+  const [showAll, setShowAll] = useState(false);
+  const [server, setServer] = useState<FieldMessages>({});
+  const state = history.present;
+  const input = useMemo(() => saveInput(state), [state]);
+  const checked = useMemo(() => placeMessages(checkSave(input, library), state), [input, library, state]);
+
+  const touch = useCallback((key: string) => setTouched((t) => (t.has(key) ? t : new Set(t).add(key))), []);
+  const apply = useCallback((edit: (s: EditorState) => EditorState, key: string | null) => {
+    setHistory((h) => record(h, edit(h.present), key, Date.now()));
+    if (key !== null) {
+      touch(key);
+      setServer((s) => (key in s ? Object.fromEntries(Object.entries(s).filter(([k]) => k !== key)) : s));
+    }
+  }, [touch]);
+
+  const visible = useCallback((key: string): string[] => {
+    const own = showAll || touched.has(key) ? (checked[key] ?? []) : [];
+    return [...new Set([...own, ...(server[key] ?? [])])];
+  }, [checked, server, showAll, touched]);
+
+  const problemCount = useCallback((prefix: string) => {
+    const keys = new Set([...Object.keys(checked), ...Object.keys(server)]);
+    return [...keys].filter((k) => k === prefix || k.startsWith(`${prefix}.`)).reduce((n, k) => n + visible(k).length, 0);
+  }, [checked, server, visible]);
+
+  return {
+    state, input, checked, showAll, history,
+    apply, touch, visible, problemCount,
+    undo: () => setHistory(undo),
+    redo: () => setHistory(redo),
+    replace: (next: EditorState) => { setHistory(reset(next)); setServer({}); },
+    revealAll: () => setShowAll(true),
+    setServerErrors: (fieldErrors: Record<string, string[]>) => setServer(placeServerErrors(fieldErrors, state)),
+  };
+}

@@ -1,0 +1,170 @@
+"use client";
+// The workup editor (new and edit): header, components, starting mixture and steps on the left, the live prediction
+// on the right. Keyboard: Ctrl+Z / Ctrl+Shift+Z (or Ctrl+Y) undo and redo the last edit, Ctrl+S or Ctrl+Enter saves,
+// Alt+↑/↓ moves the focused step, Alt+Shift+D duplicates it, Enter in "Add a step" adds one. Leaving with unsaved
+// edits asks first.
+import { useRouter } from "next/navigation";
+import Link from "next/link";
+import { useEffect, useMemo, useRef, useState, useTransition, type ReactNode } from "react";
+import { type LibraryOverrides, resolveLibrary } from "@/lib/chem/library";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { createWorkupAction, updateWorkupAction } from "@/lib/workups/actions";
+import { type WorkupDetail } from "@/lib/workups/queries";
+import { type WorkupSnapshot } from "@/lib/workups/record";
+import { editorStateOf } from "@/lib/workups-client/from-spec";
+import { type EditorState } from "@/lib/workups-client/editor-types";
+import { saveInput } from "@/lib/workups-client/to-spec";
+import { useLivePrediction } from "@/lib/workups-client/use-live-prediction";
+import { EditorContext, type EditorApi } from "./editor-context";
+import { HeaderFields, type MemberChoice } from "./header-fields";
+import { ComponentsSection } from "./components-section";
+import { CompoundPicker } from "./compound-picker";
+import { MixtureSection } from "./mixture-section";
+import { OperationsSection } from "./operations-section";
+import { PredictionPanel } from "./prediction-panel";
+import { ConflictPanel } from "./conflict-panel";
+import { ShortcutsHelp } from "./shortcuts-help";
+import { snapshotOfDetail, snapshotOfState } from "./snapshot";
+import { useEditorState } from "./use-editor-state";
+import { useLeaveGuard } from "./use-leave-guard";
+
+export interface EditorProps {
+  /** null for a new workup. */
+  workupId: string | null;
+  baseVersion: number | null;
+  initial: EditorState;
+  /** The version the form was opened from (for the conflict view); null for a new workup. */
+  base: WorkupSnapshot | null;
+  members: MemberChoice[];
+  library: LibraryOverrides;
+}
+
+function Section({ title, children, id }: { title: string; children: ReactNode; id: string }) {
+  return (
+    <section aria-labelledby={`${id}-h`} className="rounded-lg border border-stone-200 bg-white p-4 shadow-xs">
+      <h2 id={`${id}-h`} className="mb-3 text-base font-semibold text-stone-900">{title}</h2>
+      {children}
+    </section>
+  );
+}
+
+export function WorkupEditor({ workupId, baseVersion, initial, base, members, library }: EditorProps) {
+  const router = useRouter();
+  const editor = useEditorState(initial, library);
+  const { state, input } = editor;
+  const resolved = useMemo(() => resolveLibrary(library), [library]);
+  const live = useLivePrediction(input.spec, library);
+  const [version, setVersion] = useState(baseVersion);
+  const [opened, setOpened] = useState(base);
+  const [baseline, setBaseline] = useState(() => JSON.stringify(input));
+  const [failure, setFailure] = useState<string | null>(null);
+  const [conflict, setConflict] = useState<string | null>(null);
+  const [announcement, setAnnouncement] = useState("");
+  const [saving, startSaving] = useTransition();
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const dirty = JSON.stringify(input) !== baseline;
+  useLeaveGuard(dirty && !saving);
+  const names = Object.fromEntries(members.map((m) => [m.id, m.name]));
+  const issueCount = Object.values(editor.checked).reduce((n, m) => n + m.length, 0);
+
+  const focusFirstProblem = () => requestAnimationFrame(() => {
+    const first = document.querySelector<HTMLElement>("[data-editor] [aria-invalid='true']");
+    (first ?? summaryRef.current)?.focus();
+  });
+
+  const save = () => {
+    editor.revealAll();
+    setFailure(null);
+    if (issueCount > 0) {
+      setAnnouncement(`Not saved: ${issueCount} field${issueCount === 1 ? " needs" : "s need"} attention.`);
+      focusFirstProblem();
+      return;
+    }
+    startSaving(async () => {
+      const result = workupId === null ? await createWorkupAction(input) : await updateWorkupAction(workupId, { ...input, baseVersion: version ?? 1 });
+      if (result.ok) {
+        setBaseline(JSON.stringify(input));
+        setConflict(null);
+        router.push(`/workups/${result.data.id}`);
+        router.refresh();
+        return;
+      }
+      if (result.status === 409) setConflict(result.message);
+      else {
+        if (result.fieldErrors) editor.setServerErrors(result.fieldErrors);
+        setFailure(result.message);
+        focusFirstProblem();
+      }
+    });
+  };
+
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      const mod = e.ctrlKey || e.metaKey;
+      if (!mod || e.altKey) return;
+      const key = e.key.toLowerCase();
+      if (key === "z") { e.preventDefault(); if (e.shiftKey) editor.redo(); else editor.undo(); }
+      else if (key === "y") { e.preventDefault(); editor.redo(); }
+      else if (key === "s" || key === "enter") { e.preventDefault(); save(); }
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  });
+
+  const rebase = (d: WorkupDetail) => { setVersion(d.version); setOpened(snapshotOfDetail(d)); };
+  const takeTheirs = (d: WorkupDetail) => {
+    const next = editorStateOf(d.header, d.spec, snapshotOfDetail(d).links);
+    editor.replace(next);
+    rebase(d);
+    setConflict(null);
+    setBaseline(JSON.stringify(saveInput(next)));
+  };
+
+  const api: EditorApi = {
+    state, apply: editor.apply, messages: editor.visible, problemCount: editor.problemCount, touch: editor.touch,
+    library: resolved, overrides: library, live,
+  };
+  return (
+    <EditorContext.Provider value={api}>
+      <div data-editor className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] xl:grid-cols-[minmax(0,1fr)_26rem]">
+        <div role="form" aria-label={workupId ? "Edit workup" : "New workup"} className="min-w-0 space-y-5">
+          <Section title="Record" id="record"><HeaderFields members={members} /></Section>
+          <Section title="Components" id="components">
+            <div className="space-y-3">
+              <ComponentsSection />
+              <CompoundPicker onAdded={(i) => requestAnimationFrame(() => document.querySelectorAll<HTMLElement>("[data-testid=component-card]")[i]?.querySelector<HTMLElement>("input")?.focus())} />
+            </div>
+          </Section>
+          <Section title="Starting mixture" id="mixture"><MixtureSection /></Section>
+          <Section title="Steps" id="steps"><OperationsSection announce={setAnnouncement} /></Section>
+        </div>
+        <aside className="min-w-0 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto">
+          <PredictionPanel />
+        </aside>
+      </div>
+      <p className="sr-only" aria-live="polite">{announcement}</p>
+      <div className="sticky bottom-0 z-10 -mx-4 mt-6 border-t border-stone-200 bg-white/95 px-4 py-3 backdrop-blur">
+        <div className="space-y-3">
+          {conflict && workupId && opened ? (
+            <ConflictPanel workupId={workupId} message={conflict} base={opened} mine={snapshotOfState(state)} names={names} onRebase={rebase} onTakeTheirs={takeTheirs} />
+          ) : null}
+          {failure ? <Notice tone="error" title="Not saved">{failure}</Notice> : null}
+          <div className="flex flex-wrap items-center gap-3">
+            <Button onClick={save} disabled={saving}>{saving ? "Saving…" : workupId ? "Save changes" : "Save workup"}</Button>
+            <Link href={workupId ? `/workups/${workupId}` : "/workups"} className={buttonClass("ghost")}>Cancel</Link>
+            <Button variant="ghost" onClick={editor.undo} disabled={editor.history.past.length === 0} aria-keyshortcuts="Control+Z">Undo</Button>
+            <Button variant="ghost" onClick={editor.redo} disabled={editor.history.future.length === 0} aria-keyshortcuts="Control+Shift+Z">Redo</Button>
+            <div ref={summaryRef} tabIndex={-1} className="text-sm" data-testid="save-state">
+              {editor.showAll && issueCount > 0
+                ? <span className="text-red-700">{issueCount} field{issueCount === 1 ? " needs" : "s need"} attention (marked in red).</span>
+                : dirty ? <span className="text-amber-800">Unsaved changes{version ? ` to version ${version}` : ""}.</span>
+                  : <span className="text-stone-500">{workupId ? `No changes since version ${version ?? "?"}.` : "Nothing entered yet."}</span>}
+            </div>
+            <ShortcutsHelp />
+          </div>
+        </div>
+      </div>
+    </EditorContext.Provider>
+  );
+}
