@@ -35,23 +35,36 @@ function readPayload(p: Record<string, unknown>): InferPayload {
   };
 }
 
-/** Queues an inference pass for every group with outcomes newer than its last pass. Returns the number queued. */
+/**
+ * Queues an inference pass for every group with outcomes newer than its last pass, or with inferred observations
+ * whose workup was deleted. Returns the number queued.
+ */
 export async function scheduleInference(db: Db): Promise<number> {
   return db.$transaction(async (tx) => {
     await tx.$executeRaw`SELECT pg_advisory_xact_lock(${SCHEDULER_LOCK})`;
-    const due = await tx.$queryRaw<{ groupId: string; lastUntil: string | null; newest: Date }[]>`
-      SELECT o."groupId", last."until" AS "lastUntil", max(o."updatedAt") AS newest
-        FROM "Outcome" o
-        LEFT JOIN LATERAL (
-          SELECT j.payload->>'until' AS "until" FROM "Job" j
-           WHERE j."groupId" = o."groupId" AND j.kind = 'infer' AND j.status = 'done'
-           ORDER BY (j.payload->>'until')::timestamp DESC LIMIT 1) last ON true
-       WHERE NOT EXISTS (SELECT 1 FROM "Job" j WHERE j."groupId" = o."groupId" AND j.kind = 'infer' AND j.status IN ('queued', 'running'))
-       GROUP BY o."groupId", last."until"
-      HAVING last."until" IS NULL OR max(o."updatedAt") > (last."until")::timestamp`;
+    const due = await tx.$queryRaw<{ groupId: string; lastUntil: string | null; newest: Date | null }[]>`
+      WITH last AS (
+        SELECT DISTINCT ON (j."groupId") j."groupId", j.payload->>'until' AS "until" FROM "Job" j
+         WHERE j.kind = 'infer' AND j.status = 'done'
+         ORDER BY j."groupId", (j.payload->>'until')::timestamp DESC
+      ), newest AS (
+        SELECT o."groupId", max(o."updatedAt") AS newest FROM "Outcome" o GROUP BY o."groupId"
+      ), orphaned AS (
+        SELECT DISTINCT p."groupId" FROM "PartitionObservation" p
+         WHERE p.kind = 'inferred' AND p."workupId" IS NOT NULL
+           AND NOT EXISTS (SELECT 1 FROM "Workup" w WHERE w.id = p."workupId" AND w."groupId" = p."groupId")
+      )
+      SELECT g.id AS "groupId", last."until" AS "lastUntil", newest.newest
+        FROM "Group" g
+        LEFT JOIN last ON last."groupId" = g.id
+        LEFT JOIN newest ON newest."groupId" = g.id
+       WHERE NOT EXISTS (SELECT 1 FROM "Job" j WHERE j."groupId" = g.id AND j.kind = 'infer' AND j.status IN ('queued', 'running'))
+         AND ((newest.newest IS NOT NULL AND (last."until" IS NULL OR newest.newest > (last."until")::timestamp))
+              OR g.id IN (SELECT "groupId" FROM orphaned))`;
     for (const g of due) {
       const since = g.lastUntil ? new Date(new Date(g.lastUntil).getTime() - OVERLAP_MS).toISOString() : null;
-      const payload: InferPayload = { since, until: g.newest.toISOString(), cursor: null, changed: [] };
+      const until = g.newest && (!g.lastUntil || g.newest > new Date(g.lastUntil)) ? g.newest.toISOString() : (g.lastUntil ?? new Date(0).toISOString());
+      const payload: InferPayload = { since, until, cursor: null, changed: [] };
       await tx.job.create({ data: { groupId: g.groupId, kind: "infer", payload: { ...payload } }, select: { id: true } });
     }
     return due.length;
