@@ -38,7 +38,7 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/api/v1/me", summary: "Who the caller is, in which group, with which permissions", permission: "data:read",
     success: { status: 200, name: "Me", schema: meSchema, description: "the member" }, errors: [403] },
   { method: "get", path: "/api/v1/workups", summary: "List the group's workups, newest first", permission: "data:read",
-    description: "Keyset-paginated on (performedOn desc, id desc): pass the previous page's `next` as `cursor`.",
+    description: "Keyset-paginated on (performedOn desc, id asc): pass the previous page's `next` as `cursor`.",
     query: workupListFilterSchema, success: { status: 200, name: "WorkupListPage", schema: listPageSchema, description: "one page" }, errors: [403, 422] },
   { method: "post", path: "/api/v1/workups", summary: "Create a workup; the server computes and stores its prediction", permission: "data:write",
     body: { name: "CreateWorkup", schema: createWorkupSchema, limit: "1 MB" },

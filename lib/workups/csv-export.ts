@@ -5,7 +5,7 @@ import { type Db } from "@/lib/db/client";
 import { parseInput } from "@/lib/errors";
 import { csvLine, type CsvCell } from "./csv";
 import { CSV_EXPORT_COLUMNS } from "./csv-columns";
-import { workupWhere } from "./queries";
+import { afterCursor, LIST_ORDER, resolveWhere } from "./queries";
 import { dayOf } from "./record";
 import { workupListFilterSchema } from "./schemas";
 
@@ -42,14 +42,14 @@ function cells(w: ExportRecord, people: Map<string, { name: string; email: strin
 /** Validates the filters first (so a bad filter is a 422, not a broken download), then yields the CSV. */
 export function exportWorkupsCsv(db: Db, groupId: string, input: unknown): AsyncGenerator<string> {
   const filter = parseInput(workupListFilterSchema, input);
-  const where = workupWhere(groupId, filter);
   return (async function* () {
+    const where = await resolveWhere(db, groupId, filter);
     yield csvLine(CSV_EXPORT_COLUMNS);
     let after: { performedOn: Date; id: string } | null = null;
     for (;;) {
       const batch: ExportRecord[] = await db.workup.findMany({
-        where: after ? { AND: [where, { OR: [{ performedOn: { lt: after.performedOn } }, { performedOn: after.performedOn, id: { lt: after.id } }] }] } : where,
-        orderBy: [{ performedOn: "desc" }, { id: "desc" }],
+        where: after ? { AND: [where, afterCursor(after)] } : where,
+        orderBy: LIST_ORDER,
         take: BATCH,
         select: exportSelect,
       });

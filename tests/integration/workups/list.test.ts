@@ -47,7 +47,7 @@ describeEachDatabase("listing and filtering workups", (t) => {
   it("lists the group's workups newest first, never another group's", async () => {
     const all = await list();
     expect(all).toHaveLength(6);
-    expect(all.slice(0, 3)).toEqual(["F", "E", ...(ids["C"]! > ids["D"]! ? ["C"] : ["D"])]);
+    expect(all.slice(0, 4)).toEqual(["F", "E", ...(ids["C"]! < ids["D"]! ? ["C", "D"] : ["D", "C"])]);
     expect(all.at(-1)).toBe("A");
   });
 
@@ -83,6 +83,17 @@ describeEachDatabase("listing and filtering workups", (t) => {
     expect(await list({ flagged: "true" })).toEqual(["E"]);
     expect(await list({ status: "below" })).toEqual(["E"]);
     expect(await list({ chemistId: lab.member.userId, solvent: "etoac", from: "2026-06-01", to: "2026-07-31" })).toEqual(["C", "A"]);
+  });
+
+  it("finds a compound used in thousands of component rows the same way (EXISTS rather than an id list)", async () => {
+    const busy = await t.db.compound.create({ data: { groupId: lab.groupId, name: "Sodium sulfate", canonicalSmiles: "[Na+].[Na+].[O-]S([O-])(=O)=O", formula: "Na2O4S", molarMass: 142.04 } });
+    await t.db.workupComponent.createMany({
+      data: Array.from({ length: 2001 }, (_, i) => ({
+        groupId: lab.groupId, workupId: i % 2 === 0 ? ids["B"]! : ids["C"]!, compoundId: busy.id, key: `salt-${i}`, name: "Sodium sulfate", role: "other" as const, amountMmol: 1,
+      })),
+    });
+    expect(await list({ compoundId: busy.id })).toEqual(["C", "B"]);
+    await t.db.workupComponent.deleteMany({ where: { compoundId: busy.id } });
   });
 
   it("refuses a tampered cursor, a reversed date range and a silly page size with 422", async () => {
