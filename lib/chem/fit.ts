@@ -7,9 +7,9 @@
  */
 import type { WorkupInput } from "./schema";
 import type { WorkupPrediction } from "./types";
+import type { WorkupSimulator } from "./uncertainty";
 
-/** The engine's fast path (simulateWorkup); step detail is asked for only where contacts are read. */
-export type Simulator = (input: WorkupInput, options?: { steps?: boolean; flags?: boolean }) => WorkupPrediction;
+
 
 export interface FitOptions {
   /** Component key. */
@@ -108,7 +108,7 @@ function mainContact(prediction: WorkupPrediction, key: string): { logD: number;
   return best && { logD: best.logD, pH: best.pH, step: best.step };
 }
 
-export function fitLogK(input: WorkupInput, simulate: Simulator, options: FitOptions): LogKFit {
+export function fitLogK(input: WorkupInput, simulate: WorkupSimulator, options: FitOptions): LogKFit {
   const { component: key, observedRecovery: observed } = options;
   const sigma = options.recoverySe ?? 0.03;
   const [lo, hi] = options.logKRange ?? [-4, 8];

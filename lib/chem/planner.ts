@@ -15,6 +15,7 @@ import { reviseOperations, type PlanChange } from "./planner-revise";
 import { planWashGroup, type Impurity, type WashGroupPlan } from "./planner-washes";
 import { type Component, type Operation, type WorkupInput } from "./schema";
 import type { WorkupPrediction } from "./types";
+import type { WorkupSimulator } from "./uncertainty";
 
 export type { ExtractionPlan } from "./planner-extraction";
 export type { PhWindow, WashGroupPlan } from "./planner-washes";
@@ -56,7 +57,6 @@ export interface WorkupPlan {
   notes: string[];
 }
 
-export type PlanSimulator = (input: WorkupInput) => WorkupPrediction;
 
 const isPhWash = (op: Operation): boolean => {
   if (op.type !== "wash" || op.keep !== "organic") return false;
@@ -76,7 +76,7 @@ function pickSolvent(input: WorkupInput, wanted?: string): string {
   return found;
 }
 
-export function planWorkup(input: WorkupInput, options: PlanOptions = {}, simulate?: PlanSimulator): WorkupPlan {
+export function planWorkup(input: WorkupInput, options: PlanOptions = {}, simulate?: WorkupSimulator): WorkupPlan {
   const opts = planOptionsSchema.parse(options);
   const product = opts.product ? input.components.find((c) => c.key === opts.product) : input.components.find((c) => c.role === "product");
   if (!product) throw new RangeError(opts.product ? `no component '${opts.product}' in the work-up` : "no component has role 'product'; pass plan.product");

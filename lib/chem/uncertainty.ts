@@ -16,7 +16,7 @@ export type { UncertainInput, UncertaintyDefaults } from "./perturb";
 export { DEFAULT_UNCERTAINTY } from "./perturb";
 
 /** The engine's fast path (simulateWorkup); called with steps and flags off, since only recoveries are read. */
-export type Simulator = (input: WorkupInput, options?: { steps?: boolean; flags?: boolean }) => WorkupPrediction;
+export type WorkupSimulator = (input: WorkupInput, options?: { steps?: boolean; flags?: boolean }) => WorkupPrediction;
 
 export interface UncertaintyOptions {
   /** Number of Monte Carlo draws. Default 1000. */
@@ -110,7 +110,7 @@ export function solventTranslationSd(input: WorkupInput): number {
 }
 
 /** Monte Carlo over `simulate` (the engine's fast path; the input must already be parsed). */
-export function propagateUncertainty(input: WorkupInput, simulate: Simulator, options: UncertaintyOptions = {}): WorkupUncertainty {
+export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulator, options: UncertaintyOptions = {}): WorkupUncertainty {
   const draws = options.draws ?? 1000;
   const seed = options.seed ?? 1;
   if (!Number.isInteger(draws) || draws < 2 || draws > 1_000_000) throw new RangeError(`draws must be a whole number from 2 to 1000000, got ${draws}`);
