@@ -4,7 +4,7 @@
  */
 import { type Library } from "@/lib/chem/library";
 import { type OperationType } from "@/lib/chem/schema";
-import { type JsonObject, type JsonValue } from "@/lib/workups/record";
+import type { JsonObject, JsonValue } from "@/lib/workups/record";
 import { OPERATION_TYPES } from "./operation-forms";
 import { libraryName } from "./library-options";
 

@@ -4,7 +4,7 @@
  * Every list item carries a client id so focus, keys and validation messages follow it when steps move.
  */
 import { type ComponentRole, type OperationType, type Provenance } from "@/lib/chem/schema";
-import { type JsonObject } from "@/lib/workups/record";
+import type { JsonObject } from "@/lib/workups/record";
 
 /** A typed number with its unit, as entered. */
 export interface Quantity {

@@ -3,7 +3,7 @@
  * older version, an import or a script may not fit today's schema, and the editor is where it gets fixed.
  */
 import { PROVENANCES, ROLES, type ComponentRole, type OperationType, type Provenance } from "@/lib/chem/schema";
-import { type JsonObject, type JsonValue, type SnapshotHeader } from "@/lib/workups/record";
+import type { JsonObject, JsonValue, SnapshotHeader } from "@/lib/workups/record";
 import { newClientId } from "./ids";
 import { COMMON_FIELDS, OPERATION_TYPES, defaultUnit, operationMeta } from "./operation-forms";
 import { unitKey, type ComponentState, type EditorState, type HeaderState, type LogValueState, type OperationState, type Quantity } from "./editor-types";

@@ -4,8 +4,8 @@
  * Blank optional fields are left out; a blank required quantity is sent without its value so the schema names it.
  */
 import { type OperationFieldMeta } from "@/lib/chem/operation-types";
-import { type CreateWorkupInput } from "@/lib/workups/schemas";
-import { type JsonObject, type JsonValue } from "@/lib/workups/record";
+import type { CreateWorkupInput } from "@/lib/workups/schemas";
+import type { JsonObject, JsonValue } from "@/lib/workups/record";
 import { COMMON_FIELDS, operationMeta } from "./operation-forms";
 import { unitKey, type ComponentState, type EditorState, type HeaderState, type OperationState, type Quantity } from "./editor-types";
 

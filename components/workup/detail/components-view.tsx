@@ -2,7 +2,7 @@
 import Link from "next/link";
 import { Badge } from "@/components/ui/badge";
 import { formatNumber } from "@/components/ui/format";
-import { type JsonObject, type JsonValue } from "@/lib/workups/record";
+import type { JsonObject, JsonValue } from "@/lib/workups/record";
 
 const asRecord = (v: JsonValue | undefined): JsonObject => (v !== null && typeof v === "object" && !Array.isArray(v) ? v : {});
 const text = (v: JsonValue | undefined) => (typeof v === "string" ? v : typeof v === "number" ? formatNumber(v) : "");

@@ -1,6 +1,6 @@
 // The starting mixture of a saved workup: solvents and aqueous reagents with their volumes, and the shared settings.
 import { type Library } from "@/lib/chem/library";
-import { type JsonObject, type JsonValue } from "@/lib/workups/record";
+import type { JsonObject, JsonValue } from "@/lib/workups/record";
 import { libraryName } from "@/lib/workups-client/library-options";
 
 const asRecord = (v: JsonValue | undefined): JsonObject => (v !== null && typeof v === "object" && !Array.isArray(v) ? v : {});

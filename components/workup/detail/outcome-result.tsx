@@ -2,7 +2,7 @@
 // its interval, the deviation and status, and the likely causes of a shortfall ranked by how much of the gap each
 // explains (the model re-run with one suspect parameter changed).
 import { formatNumber } from "@/components/ui/format";
-import { type OutcomeAnalysis } from "@/lib/workups/analysis";
+import type { OutcomeAnalysis } from "@/lib/workups/analysis";
 import { RecoveryInterval } from "@/components/workup/prediction/recovery-interval";
 import { pct } from "@/components/workup/prediction/format";
 import { StatusBadge } from "./status-badge";

@@ -3,7 +3,7 @@
 // longer fits the schema still shows its steps.
 import { type Library } from "@/lib/chem/library";
 import { type WorkupPrediction } from "@/lib/chem/types";
-import { type JsonObject, type JsonValue } from "@/lib/workups/record";
+import type { JsonObject, JsonValue } from "@/lib/workups/record";
 import { stepWords } from "@/lib/workups-client/describe";
 import { drawingCapacityMl } from "@/lib/workups-client/funnel-geometry";
 import { CautionNotes, FlagNotes } from "@/components/workup/prediction/step-notes";
@@ -29,8 +29,8 @@ export function StepsView({ spec, prediction, library }: { spec: JsonObject; pre
             <div className="min-w-0 flex-1 space-y-2">
               <p className="text-sm text-stone-900">
                 <span className="sr-only">Step {n}: </span>
-                {/* The type is written in lower case and shown capitalised, so the words read the same in any casing. */}
-                <span className="inline-block font-medium first-letter:uppercase">{words.title.toLowerCase()}</span>
+                {/* Sentence case from the style sheet, so the step type reads as a word in running text ("wash"). */}
+                <span className="inline-block font-medium first-letter:uppercase">{words.title.charAt(0).toLowerCase() + words.title.slice(1)}</span>
                 {words.details ? <span className="text-stone-700">: {words.details}</span> : null}
                 {label ? <span className="ml-2 text-stone-500">“{label}”</span> : null}
               </p>

@@ -1,7 +1,7 @@
 // What changed between two versions of a workup (or between a saved version and the editor's unsaved form):
 // header fields, components and steps, each old → new.
-import { type FieldChange, type VersionDiff } from "@/lib/workups/diff";
-import { type JsonValue } from "@/lib/workups/record";
+import type { FieldChange, VersionDiff } from "@/lib/workups/diff";
+import type { JsonValue } from "@/lib/workups/record";
 
 const FIELD_WORDS: Record<string, string> = {
   title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", scaleMmol: "Scale (mmol)",

@@ -45,14 +45,16 @@ function ComponentCard({ component: c, index }: { component: ComponentState; ind
         <TextControl {...bind("name")} label="Name" value={c.name} className="min-w-48 flex-1" onChange={(v) => patch({ name: v }, "name")} />
         <SelectControl {...bind("role")} label="Role" value={c.role} choices={ROLES.map((r) => ({ value: r, label: roleLabel(r) }))}
           onChange={(v) => patch({ role: v as ComponentState["role"] }, "role")} />
-        <QuantityControl {...bind("amount")} label="Amount" quantity={c.amount} units={AMOUNT_UNITS} className="w-40" onChange={(q) => patch({ amount: q }, "amount")} />
-        <TextControl {...bind("molarMass")} label="Molar mass (g/mol)" numeric value={c.molarMass} className="w-32" onChange={(v) => patch({ molarMass: v }, "molarMass")} />
-        <div className="ml-auto pt-4">
+        <div className="pt-4">
           <ToolButton label={`Remove ${label}`} tone="danger" onClick={() => apply((s) => removeComponent(s, c.id), null)}>Remove</ToolButton>
         </div>
       </div>
-      <div className="mt-2 flex flex-wrap items-start gap-3 border-t border-stone-100 pt-2">
+      <div className="mt-2 flex flex-wrap items-start gap-3">
+        <QuantityControl {...bind("amount")} label="Amount" quantity={c.amount} units={AMOUNT_UNITS} className="w-40" onChange={(q) => patch({ amount: q }, "amount")} />
+        <TextControl {...bind("molarMass")} label="Molar mass (g/mol)" numeric value={c.molarMass} className="w-32" onChange={(v) => patch({ molarMass: v }, "molarMass")} />
         <LogPFields component={c} />
+      </div>
+      <div className="mt-2 border-t border-stone-100 pt-2">
         <PKaFields component={c} />
       </div>
       <p className="mt-2 text-xs text-stone-500">
@@ -86,7 +88,7 @@ function PKaFields({ component: c }: { component: ComponentState }) {
   const setPKas = (pKas: PKaState[], field: string | null) => apply((s) => updateComponent(s, c.id, { pKas }), field);
   const edit = (id: string, p: Partial<PKaState>, field: string) => setPKas(c.pKas.map((x) => (x.id === id ? { ...x, ...p } : x)), `pka:${id}.${field}`);
   return (
-    <div className="flex-1">
+    <div>
       <p className="text-xs font-medium text-stone-700">Ionizable sites (pKa; for a base, of its conjugate acid)</p>
       {c.pKas.length === 0 ? <p className="mt-1 text-xs text-stone-500">None: the engine treats the compound as neutral at every pH.</p> : null}
       <ul className="mt-1 space-y-1">

@@ -1,7 +1,7 @@
 // The editor state in the shape a saved version keeps (header, spec as entered, links), so the version diff can
 // compare unsaved edits with a saved version.
-import { type WorkupDetail } from "@/lib/workups/queries";
-import { type WorkupSnapshot } from "@/lib/workups/record";
+import type { WorkupDetail } from "@/lib/workups/queries";
+import type { WorkupSnapshot } from "@/lib/workups/record";
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { linksInput, parseNumber, specInput } from "@/lib/workups-client/to-spec";
 

@@ -50,17 +50,15 @@ export function FilterForm({ values, compounds, solvents, chemists, errors }: {
       <Select name="compoundId" label="Compound" value={values.compoundId} choices={compounds} errors={err("compoundId")} />
       <Select name="solvent" label="Solvent" value={values.solvent} choices={solvents} errors={err("solvent")} />
       <Select name="chemistId" label="Chemist" value={values.chemistId} choices={chemists} errors={err("chemistId")} />
-      <div className="flex gap-2">
-        {(["from", "to"] as const).map((k) => (
-          <div key={k} className="flex-1">
+      {(["from", "to"] as const).map((k) => (
+          <div key={k}>
             <label htmlFor={`filter-${k}`} className="block text-xs font-medium text-stone-700">{k === "from" ? "Run on or after" : "Run on or before"}</label>
             <input id={`filter-${k}`} name={k} type="date" defaultValue={values[k] ?? ""} className={`${inputClass} mt-0.5 py-1.5`} aria-invalid={err(k).length > 0 || undefined} />
             {err(k).map((e) => <p key={e} className="text-xs text-red-700">{e}</p>)}
           </div>
-        ))}
-      </div>
+      ))}
       <Select name="status" label="Outcome" value={values.status} choices={OUTCOME_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] ?? s }))} errors={err("status")} />
-      <div className="flex items-end justify-between gap-3">
+      <div className="flex items-end justify-between gap-3 sm:col-span-2 lg:col-span-4">
         <label className="flex items-center gap-2 pb-2 text-sm text-stone-800">
           <input type="checkbox" name="flagged" value="true" defaultChecked={values.flagged === "true"} className="h-4 w-4 accent-teal-700" />
           Flagged only

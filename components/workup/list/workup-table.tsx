@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { Badge } from "@/components/ui/badge";
 import { formatDate, formatNumber } from "@/components/ui/format";
-import { type WorkupListRow } from "@/lib/workups/queries";
+import type { WorkupListRow } from "@/lib/workups/queries";
 import { StatusBadge } from "@/components/workup/detail/status-badge";
 
 const pct = (v: number | null) => (v === null ? "—" : `${formatNumber(v, 0)} %`);

@@ -57,7 +57,7 @@ export function PredictionOverview({ prediction, intervals, intervalNote, combin
         <tbody>
           {prediction.components.map((c) => (
             <tr key={c.key} className={c.key === key ? "font-medium" : "text-stone-700"}>
-              <th scope="row" className="max-w-44 truncate py-0.5 text-left font-[inherit]" title={c.name}>{c.name}</th>
+              <th scope="row" className={`max-w-44 truncate py-0.5 text-left ${c.key === key ? "font-medium" : "font-normal"}`} title={c.name}>{c.name}</th>
               <td className="text-right tabular-nums">{pct(c.recovery)}</td>
               <td className="text-right tabular-nums">{mg(c.isolatedMg)}</td>
             </tr>

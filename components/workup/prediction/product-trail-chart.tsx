@@ -19,7 +19,7 @@ export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[];
   const used = KINDS.filter((k) => trail.some((t) => t.lost[k] > 0.0005));
   return (
     <figure>
-      <svg viewBox={`0 0 ${width} ${H + 18}`} className="w-full max-w-md" aria-hidden>
+      <svg viewBox={`0 0 ${width} ${H + 18}`} className="h-36 w-auto max-w-full" aria-hidden>
         {[0, 0.5, 1].map((t) => (
           <g key={t}>
             <line x1="24" x2={width} y1={H * (1 - t) + 2} y2={H * (1 - t) + 2} stroke="#e7e5e4" />
@@ -49,7 +49,8 @@ export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[];
         {trail.some((t) => t.saved > 0.0005) ? <Legend fill="#5eead4" label="in a saved layer" /> : null}
         {used.map((k) => <Legend key={k} fill={LOSS_STYLE[k].fill} label={`lost: ${LOSS_STYLE[k].label}`} />)}
       </figcaption>
-      <table className="sr-only">
+      <div className="sr-only">
+      <table>
         <caption>Share of the product after each step</caption>
         <thead><tr><th scope="col">Step</th><th scope="col">Carried forward</th><th scope="col">Saved</th>{KINDS.map((k) => <th key={k} scope="col">Lost to {LOSS_STYLE[k].label}</th>)}</tr></thead>
         <tbody>
@@ -58,6 +59,7 @@ export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[];
           ))}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }

@@ -10,7 +10,8 @@ const x = (fraction: number) => X0 + Math.max(0, Math.min(1.2, fraction)) / 1.2 
 export function RecoveryInterval({ predicted, low, high, reported }: { predicted: number; low: number | null; high: number | null; reported?: number | null }) {
   const label = `Predicted ${pct(predicted)}${low !== null && high !== null ? `, 95 % interval ${pct(low)} to ${pct(high)}` : ""}${reported != null ? `; reported ${pct(reported)}` : ""}`;
   return (
-    <svg viewBox={`0 0 ${W} 44`} className="w-full" role="img" aria-label={label}>
+    <svg viewBox={`0 0 ${W} 52`} className="w-full max-w-sm" role="img" aria-label={label}>
+      <g transform="translate(0 8)">
       <line x1={X0} x2={X1} y1="20" y2="20" stroke="#d6d3d1" strokeWidth="2" />
       {[0, 0.5, 1].map((t) => (
         <g key={t}>
@@ -23,9 +24,10 @@ export function RecoveryInterval({ predicted, low, high, reported }: { predicted
       {reported != null ? (
         <g>
           <path d={`M${x(reported)} 8 l6 12 l-6 12 l-6 -12 z`} fill="#b45309" stroke="white" strokeWidth="1" />
-          <text x={x(reported)} y="7" textAnchor="middle" fontSize="9" fill="#92400e">reported</text>
+          <text x={x(reported)} y="1" textAnchor={reported < 0.1 ? "start" : reported > 1.1 ? "end" : "middle"} fontSize="9" fill="#92400e">reported</text>
         </g>
       ) : null}
+      </g>
     </svg>
   );
 }

@@ -36,8 +36,8 @@ export function StepPrediction({ step, components, capacityMl, startMmol }: {
           <>
             <ul className="space-y-0.5">
               {[...contact.phases].sort((a, b) => (a.position === "top" ? -1 : b.position === "top" ? 1 : 0)).map((p) => (
-                <li key={p.kind + p.position} className="flex items-center gap-1.5">
-                  <span aria-hidden className={`inline-block h-2.5 w-2.5 rounded-sm ${PHASE_COLORS[p.kind].swatch}`} />
+                <li key={p.kind + p.position}>
+                  <span aria-hidden className={`mr-1.5 inline-block h-2.5 w-2.5 rounded-sm align-middle ${PHASE_COLORS[p.kind].swatch}`} />
                   <span className="font-medium capitalize">{p.position === "single" ? "One phase" : p.position}</span>: {p.kind}, {ml(p.volumeMl)}, ρ {formatNumber(p.densityGPerMl, 2)} g/mL
                   {p.pH !== null ? <span className="font-medium">, pH {pH(p.pH)}</span> : null}
                 </li>
