@@ -84,6 +84,8 @@ export const API_ROUTES: ApiRoute[] = [
     success: { status: 201, schema: looseObject, description: "created and skipped" }, errors: [400, 403, 422] },
   { method: "get", path: "/api/v1/compounds/{id}", summary: "A compound with its properties, partition data and workups", permission: "data:read",
     success: { status: 200, schema: looseObject, description: "the compound" }, errors: readErrors },
+  { method: "get", path: "/api/v1/partition/{compoundId}", summary: "A compound's partition observations and pooled value per solvent (?format=csv for a file)", permission: "data:read",
+    success: { status: 200, schema: looseObject, description: "observations and pooled values" }, errors: readErrors },
   { method: "get", path: "/api/v1/jobs", summary: "The group's background jobs waiting or running, with progress, and the last one finished", permission: "data:read",
     success: { status: 200, schema: looseObject, description: "job status" }, errors: [403] },
   { method: "get", path: "/api/v1/openapi.json", summary: "This document", permission: null,

@@ -5,6 +5,7 @@
  */
 import { type Db } from "@/lib/db/client";
 import { ValidationError } from "@/lib/errors";
+import { groupValuesForLinks } from "@/lib/partition/group-values";
 import { analyzeOutcome, type OutcomeAnalysis } from "./analysis";
 import { audit } from "./audit";
 import { LONG_TRANSACTION, type Actor } from "./context";
@@ -14,7 +15,8 @@ import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
 import { computePrediction, IMPORT_DRAWS, seedFromId, type ComputedPrediction } from "./prediction";
 import { headerColumns, plainJson, searchTextOf, snapshotHeader, solventKeysOf, type JsonObject } from "./record";
-import { createWorkupSchema, outcomeInputSchema, type CreateWorkup, type OutcomeInput } from "./schemas";
+import { columnErrors, readRow, templateLookup, type RowContext } from "./csv-rows";
+import { type CreateWorkup, type OutcomeInput } from "./schemas";
 import { isFlagged } from "./deviation";
 
 export interface ImportProgress {
@@ -53,34 +55,6 @@ interface CheckedRow {
   analysis: OutcomeAnalysis | null;
 }
 
-const COLUMN_OF_HEADER: Record<string, string> = {
-  title: "title", performedOn: "performed_on", chemistId: "chemist_email", notebookRef: "notebook_ref",
-  scaleMmol: "scale_mmol", expectedProductMmol: "expected_product_mmol", assayedProductMmol: "assayed_product_mmol",
-};
-const COLUMN_OF_OUTCOME: Record<string, string> = {
-  isolatedMassMg: "isolated_mass_mg", purityPct: "purity_pct", purityMethod: "purity_method", notes: "outcome_notes",
-};
-
-/** "" → absent; a number → number; anything else stays text so the schema names it ("must be a number"). */
-function numeric(cell: string | undefined): number | string | undefined {
-  if (cell === undefined || cell === "") return undefined;
-  const n = Number(cell);
-  return Number.isFinite(n) ? n : cell;
-}
-
-/** Turns a ValidationError's field paths into CSV columns. */
-function columnErrors(error: ValidationError, specColumn: string): { column: string; message: string }[] {
-  return Object.entries(error.fieldErrors).flatMap(([path, messages]) => {
-    const [head, field, ...rest] = path.split(".");
-    const column =
-      head === "header" ? (COLUMN_OF_HEADER[field ?? ""] ?? path)
-        : head === "spec" || head === "links" ? specColumn
-          : (COLUMN_OF_OUTCOME[head ?? ""] ?? path);
-    const where = head === "spec" && field ? `${[field, ...rest].join(".")}: ` : "";
-    return messages.map((m) => ({ column, message: `${where}${m}` }));
-  });
-}
-
 export async function importWorkupsCsv(db: Db, actor: Actor, text: string, options: CsvImportOptions = {}): Promise<CsvImportResult> {
   const table = parseCsv(text);
   for (const required of ["title", "performed_on"]) {
@@ -93,62 +67,30 @@ export async function importWorkupsCsv(db: Db, actor: Actor, text: string, optio
   const total = table.rows.length;
   const library = await groupLibrary(db, actor.groupId);
   const members = await db.membership.findMany({ where: { groupId: actor.groupId }, select: { user: { select: { id: true, email: true } } } });
-  const memberByEmail = new Map(members.map((m) => [m.user.email.toLowerCase(), m.user.id]));
-  const templates = await templateLookup(db, actor.groupId, table.rows.map((r) => r.cells["template"] ?? "").filter((t) => t !== ""));
+  const context: RowContext = {
+    memberByEmail: new Map(members.map((m) => [m.user.email.toLowerCase(), m.user.id])),
+    templates: await templateLookup(db, actor.groupId, table.rows.map((r) => r.cells["template"] ?? "").filter((t) => t !== "")),
+  };
   const errors: RowError[] = [];
   const checked: CheckedRow[] = [];
   for (const [index, { line, cells }] of table.rows.entries()) {
     const row = index + 1;
     const fail = (column: string, message: string) => errors.push({ row, line, column, message });
-    const before = errors.length;
-    const email = cells["chemist_email"] ?? "";
-    const chemistId = email === "" ? null : (memberByEmail.get(email.toLowerCase()) ?? null);
-    if (email !== "" && !chemistId) fail("chemist_email", `no member of this group has the email ${email}`);
-    const templateName = cells["template"] ?? "";
-    const specText = cells["spec_json"] ?? "";
-    let spec: unknown;
-    let links: unknown[] = [];
-    const specColumn = templateName !== "" ? "template" : "spec_json";
-    if ((templateName === "") === (specText === "")) fail("spec_json", "give either spec_json or template (one of the two)");
-    else if (templateName !== "") {
-      const found = templates.get(templateName);
-      if (!found) fail("template", `no workup of this group has the title or id '${templateName}'`);
-      else if (found === "ambiguous") fail("template", `several workups are titled '${templateName}'; use the id`);
-      else ({ spec, links } = found);
-    } else {
-      try {
-        spec = JSON.parse(specText) as unknown;
-      } catch (e) {
-        fail("spec_json", `not valid JSON (${e instanceof Error ? e.message : "parse error"})`);
-      }
-    }
-    const header = {
-      title: cells["title"] ?? "", performedOn: cells["performed_on"] ?? "", chemistId, notebookRef: cells["notebook_ref"] ?? "",
-      scaleMmol: numeric(cells["scale_mmol"]), expectedProductMmol: numeric(cells["expected_product_mmol"]), assayedProductMmol: numeric(cells["assayed_product_mmol"]),
-    };
-    const parsed = createWorkupSchema.safeParse({ header, spec: spec ?? {}, links });
-    if (!parsed.success) for (const e of columnErrors(ValidationError.fromZod(parsed.error), specColumn)) if (spec !== undefined || e.column !== specColumn) fail(e.column, e.message);
-    let outcome: OutcomeInput | null = null;
-    if ((cells["isolated_mass_mg"] ?? "") !== "") {
-      const o = outcomeInputSchema.safeParse({
-        isolatedMassMg: numeric(cells["isolated_mass_mg"]), purityPct: numeric(cells["purity_pct"]) ?? null,
-        purityMethod: cells["purity_method"] ?? "", notes: cells["outcome_notes"] ?? "",
-      });
-      if (o.success) outcome = o.data;
-      else for (const e of columnErrors(ValidationError.fromZod(o.error), specColumn)) fail(e.column, e.message);
-    }
-    if (errors.length === before && parsed.success) {
+    const { spec, specColumn, input, outcome, errors: problems } = readRow(cells, context);
+    for (const p of problems) fail(p.column, p.message);
+    if (problems.length === 0 && input) {
       const id = newRecordId();
       try {
-        const prediction = computePrediction(spec, { library, seed: seedFromId(id), draws: options.draws ?? IMPORT_DRAWS });
+        const groupValues = await groupValuesForLinks(db, actor.groupId, input.links);
+        const prediction = computePrediction(spec, { library, seed: seedFromId(id), draws: options.draws ?? IMPORT_DRAWS, groupValues });
         const analysis = outcome
           ? analyzeOutcome({
               outcome, spec: prediction.parsed, library,
-              header: { assayedProductMmol: parsed.data.header.assayedProductMmol ?? null, expectedProductMmol: parsed.data.header.expectedProductMmol ?? null },
+              header: { assayedProductMmol: input.header.assayedProductMmol ?? null, expectedProductMmol: input.header.expectedProductMmol ?? null },
               prediction: { ...prediction, workupVersion: 1, flags: prediction.result.prediction.flags },
             })
           : null;
-        checked.push({ row, id, input: parsed.data, rawSpec: plainJson(spec), prediction, outcome, analysis });
+        checked.push({ row, id, input, rawSpec: plainJson(spec), prediction, outcome, analysis });
       } catch (error) {
         if (!(error instanceof ValidationError)) throw error;
         for (const e of columnErrors(error, specColumn)) fail(e.column, e.message);
@@ -158,24 +100,6 @@ export async function importWorkupsCsv(db: Db, actor: Actor, text: string, optio
   }
   if (errors.length > 0) return { ok: false, rows: total, errors };
   return { ok: true, created: await writeRows(db, actor, checked, options) };
-}
-
-type Template = { spec: unknown; links: unknown[] } | "ambiguous";
-
-async function templateLookup(db: Db, groupId: string, names: string[]): Promise<Map<string, Template>> {
-  const wanted = [...new Set(names)];
-  if (wanted.length === 0) return new Map();
-  const rows = await db.workup.findMany({
-    where: { groupId, OR: [{ id: { in: wanted } }, { title: { in: wanted } }] },
-    select: { id: true, title: true, spec: true, components: { select: { key: true, compoundId: true } } },
-  });
-  const map = new Map<string, Template>();
-  for (const w of rows) {
-    const template = { spec: w.spec, links: w.components.filter((c) => c.compoundId !== null).map((c) => ({ key: c.key, compoundId: c.compoundId })) };
-    map.set(w.id, template);
-    if (wanted.includes(w.title)) map.set(w.title, map.has(w.title) ? "ambiguous" : template);
-  }
-  return map;
 }
 
 async function writeRows(db: Db, actor: Actor, rows: CheckedRow[], options: CsvImportOptions) {

@@ -7,6 +7,8 @@ import { type Db } from "@/lib/db/client";
 import { ConflictError, NotFoundError, ValidationError, parseInput, type FieldErrors } from "@/lib/errors";
 import { type Flag } from "@/lib/chem/types";
 import { type WorkupInput } from "@/lib/chem/schema";
+import { groupValuesForLinks } from "@/lib/partition/group-values";
+import { applyGroupValues } from "@/lib/partition/overlay";
 import { analyzeOutcome, type OutcomeAnalysis, type PredictionFacts } from "./analysis";
 import { audit } from "./audit";
 import { type Actor } from "./context";
@@ -49,6 +51,7 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
       where: { id: workupId, groupId: actor.groupId },
       select: {
         version: true, spec: true, assayedProductMmol: true, expectedProductMmol: true,
+        components: { where: { groupId: actor.groupId }, select: { key: true, compoundId: true } },
         predictions: {
           orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1,
           select: { workupVersion: true, engineVersion: true, productRecovery: true, recoveryLow: true, recoveryHigh: true, result: true },
@@ -57,7 +60,8 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
     });
     if (!workup) throw new NotFoundError("workup");
     const library = await groupLibrary(db, actor.groupId);
-    const spec = parseSpec(workup.spec, library);
+    // The causes are re-runs of the prediction, so they start from the same input: the group's values overlaid.
+    const spec = applyGroupValues(parseSpec(workup.spec, library), await groupValuesForLinks(db, actor.groupId, workup.components));
     checkAssays(outcome, spec);
     const stored = workup.predictions[0];
     const prediction: PredictionFacts | null = stored

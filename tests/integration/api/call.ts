@@ -12,7 +12,8 @@ import { HeadersAdapter } from "next/dist/server/web/spec-extension/adapters/hea
 import { newApiToken } from "@/lib/authz/api-token-format";
 import { type Db } from "@/lib/db/client";
 
-type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response> | Response;
+/** Any route handler: its params type is whatever its route declares (the caller passes matching `params`). */
+type Handler = (request: Request, context: { params: Promise<never> }) => Promise<Response> | Response;
 
 export interface CallOptions {
   token?: string | null;
@@ -42,7 +43,7 @@ export async function callRoute(handler: Handler, method: string, path: string, 
   type UnitStore = Parameters<typeof workUnitAsyncStorage.run>[0];
   return workAsyncStorage.run(workStore as unknown as WorkStore, () =>
     workUnitAsyncStorage.run(requestStore as unknown as UnitStore, () =>
-      Promise.resolve(handler(request, { params: Promise.resolve(options.params ?? {}) })),
+      Promise.resolve(handler(request, { params: Promise.resolve(options.params ?? {}) as Promise<never> })),
     ),
   );
 }
