@@ -11,6 +11,22 @@ import { GraphMatcher, type QueryNode, type QueryPlan, Test, node } from "./grap
 
 export class UnsupportedQuery extends Error {}
 
+/**
+ * Relaxed compilation replaces a test the matcher cannot evaluate by "true", which only widens the set of matches
+ * (and/or are monotone) unless a negation sits above it; there the whole atom or bond test becomes "true".
+ */
+interface Mode {
+  relax: boolean;
+  negatedAbove: boolean;
+}
+class RelaxWhole extends Error {}
+
+function unsupported(mode: Mode, negated: boolean, what: string): QueryNode {
+  if (!mode.relax) throw new UnsupportedQuery(what);
+  if (mode.negatedAbove || negated) throw new RelaxWhole(what);
+  return node(Test.True);
+}
+
 const KNOWN_KEYS = new Set(["descr", "tag", "val", "negated", "children", "subquery", "type"]);
 
 const ATOM_LEAVES: Record<string, Test> = {
@@ -24,52 +40,71 @@ const BOND_LEAVES: Record<string, Test> = {
   SingleOrDoubleBond: Test.SingleOrDouble, BondNull: Test.True, BondInRing: Test.BondInRing,
 };
 
-function checkKeys(q: JsonQueryNode): void {
-  if (Object.keys(q).some((k) => !KNOWN_KEYS.has(k))) throw new UnsupportedQuery(`query fields of ${q.descr}`);
-}
-
-function atomNode(q: JsonQueryNode): QueryNode {
-  checkKeys(q);
+function atomNode(q: JsonQueryNode, mode: Mode): QueryNode {
   const negated = q.negated === true;
+  if (Object.keys(q).some((k) => !KNOWN_KEYS.has(k))) return unsupported(mode, negated, `query fields of ${q.descr}`);
   const val = q.val ?? 0;
+  const inner: Mode = { relax: mode.relax, negatedAbove: mode.negatedAbove || negated };
   if (q.descr === "AtomAnd" || q.descr === "AtomOr") {
-    const children = (q.children ?? []).map(atomNode);
-    if (children.length === 0) throw new UnsupportedQuery("empty atom and/or");
+    const children = (q.children ?? []).map((c) => atomNode(c, inner));
+    if (children.length === 0) return unsupported(mode, negated, "empty atom and/or");
     return node(q.descr === "AtomAnd" ? Test.And : Test.Or, 0, negated, children);
   }
   if (q.descr === "RecursiveStructure") {
-    if (typeof q.subquery !== "object" || q.subquery === null) throw new UnsupportedQuery("recursion without subquery");
-    const sub = new GraphMatcher(compileQueryPlan(parseMolecule(q.subquery as Record<string, unknown>), 0));
-    return node(Test.Recursive, 0, negated, [], sub);
+    if (typeof q.subquery !== "object" || q.subquery === null) return unsupported(mode, negated, "recursion without subquery");
+    const subMolecule = parseMolecule(q.subquery as Record<string, unknown>);
+    let plan: QueryPlan;
+    try {
+      plan = compileQueryPlan(subMolecule, 0);
+    } catch (error) {
+      if (!(error instanceof UnsupportedQuery)) throw error;
+      if (!mode.relax) throw error;
+      if (inner.negatedAbove) throw new RelaxWhole(error.message);
+      plan = compileQueryPlan(subMolecule, 0, true);
+    }
+    return node(Test.Recursive, 0, negated, [], new GraphMatcher(plan));
   }
   if (q.descr === "AtomInNRings") return node(val < 0 ? Test.InAnyRing : Test.RingCount, val, negated);
   if (q.descr === "AtomRingSize") {
-    if (val < 3 || val > 10) throw new UnsupportedQuery(`ring size ${val}`);
+    if (val < 3 || val > 10) return unsupported(mode, negated, `ring size ${val}`);
     return node(Test.RingSize, val, negated);
   }
   const test = ATOM_LEAVES[q.descr];
-  if (test === undefined) throw new UnsupportedQuery(q.descr);
+  if (test === undefined) return unsupported(mode, negated, q.descr);
   return node(test, val, negated);
 }
 
-function bondNode(q: JsonQueryNode): QueryNode {
-  checkKeys(q);
+function bondNode(q: JsonQueryNode, mode: Mode): QueryNode {
   const negated = q.negated === true;
+  if (Object.keys(q).some((k) => !KNOWN_KEYS.has(k))) return unsupported(mode, negated, `query fields of ${q.descr}`);
+  const inner: Mode = { relax: mode.relax, negatedAbove: mode.negatedAbove || negated };
   if (q.descr === "BondAnd" || q.descr === "BondOr") {
-    const children = (q.children ?? []).map(bondNode);
-    if (children.length === 0) throw new UnsupportedQuery("empty bond and/or");
+    const children = (q.children ?? []).map((c) => bondNode(c, inner));
+    if (children.length === 0) return unsupported(mode, negated, "empty bond and/or");
     return node(q.descr === "BondAnd" ? Test.And : Test.Or, 0, negated, children);
   }
   const test = BOND_LEAVES[q.descr];
-  if (test === undefined) throw new UnsupportedQuery(q.descr);
+  if (test === undefined) return unsupported(mode, negated, q.descr);
   return node(test, q.val ?? 0, negated);
 }
 
+/** The whole test of one atom or bond, relaxed to "true" when an unsupported part sits under a negation. */
+function whole(build: (mode: Mode) => QueryNode, relax: boolean): QueryNode {
+  try {
+    return build({ relax, negatedAbove: false });
+  } catch (error) {
+    if (error instanceof RelaxWhole) return node(Test.True);
+    throw error;
+  }
+}
+
 /** RDKit Atom::Match for a plain (non-query) atom. */
-function moleculeAtomNode(m: JsonMolecule, index: number): QueryNode {
+function moleculeAtomNode(m: JsonMolecule, index: number, relax: boolean): QueryNode {
   const a = m.atoms[index];
-  if (!a || a.z === 0) throw new UnsupportedQuery("dummy atom in a molecule query");
-  if (a.nRad > 1) throw new UnsupportedQuery("radical count");
+  if (!a || a.z === 0 || a.nRad > 1) {
+    if (relax) return node(Test.True);
+    throw new UnsupportedQuery(a?.z === 0 ? "dummy atom in a molecule query" : "radical count");
+  }
   const n = node(Test.MoleculeAtom, a.z);
   n.rings = Math.min(255, m.atomRings.filter((r) => r.includes(index)).length);
   n.charge = a.chg;
@@ -78,21 +113,31 @@ function moleculeAtomNode(m: JsonMolecule, index: number): QueryNode {
   return n;
 }
 
-function moleculeBondNode(m: JsonMolecule, index: number): QueryNode {
+function moleculeBondNode(m: JsonMolecule, index: number, relax: boolean): QueryNode {
   const bond = m.bonds[index];
   const code = m.aromaticBonds.has(index) ? BOND_AROMATIC : bond && bond.bo >= 1 && bond.bo <= 4 ? bond.bo : undefined;
-  if (code === undefined) throw new UnsupportedQuery("unusual bond type in a molecule query");
+  if (code === undefined) {
+    if (relax) return node(Test.True);
+    throw new UnsupportedQuery("unusual bond type in a molecule query");
+  }
   return node(Test.BondOrder, code);
 }
 
-/** Builds the matching plan; `root` forces the first atom (recursive SMARTS anchor at atom 0). */
-export function compileQueryPlan(m: JsonMolecule, root?: number): QueryPlan {
+/**
+ * Builds the matching plan; `root` forces the first atom (recursive SMARTS anchor at atom 0). With `relax`, tests
+ * the matcher cannot evaluate are widened (see Mode), giving a plan whose matches include all true matches.
+ */
+export function compileQueryPlan(m: JsonMolecule, root?: number, relax = false): QueryPlan {
   const n = m.atoms.length;
   if (n === 0) throw new UnsupportedQuery("empty query");
   const queryMode = m.atomQueries !== undefined;
-  if (queryMode && (m.atomQueries?.length !== n || m.bondQueries?.length !== m.bonds.length)) throw new UnsupportedQuery("partial query");
-  const atoms = m.atoms.map((_, i) => (queryMode ? atomNode(m.atomQueries?.[i] as JsonQueryNode) : moleculeAtomNode(m, i)));
-  const bonds = m.bonds.map((_, i) => (queryMode ? bondNode(m.bondQueries?.[i] as JsonQueryNode) : moleculeBondNode(m, i)));
+  if (queryMode && (m.atomQueries?.length !== n || m.bondQueries?.length !== m.bonds.length)) {
+    // Some atoms or bonds carry queries and some do not (a MOL block with query features): nothing certain.
+    if (!relax) throw new UnsupportedQuery("partial query");
+    return compileQueryPlan({ ...m, atomQueries: m.atoms.map(() => ({ descr: "AtomNull" })), bondQueries: m.bonds.map(() => ({ descr: "BondNull" })) }, root);
+  }
+  const atoms = m.atoms.map((_, i) => (queryMode ? whole((mode) => atomNode(m.atomQueries?.[i] as JsonQueryNode, mode), relax) : moleculeAtomNode(m, i, relax)));
+  const bonds = m.bonds.map((_, i) => (queryMode ? whole((mode) => bondNode(m.bondQueries?.[i] as JsonQueryNode, mode), relax) : moleculeBondNode(m, i, relax)));
   const adjacency: { nbr: number; bond: number }[][] = m.atoms.map(() => []);
   m.bonds.forEach((b, i) => {
     adjacency[b.atoms[0]]?.push({ nbr: b.atoms[1], bond: i });

@@ -1,5 +1,5 @@
 /**
- * One group's pattern fingerprints in id order: leaves of up to 64 entries, each leaf one memory chunk, leaves sorted
+ * One group's screening fingerprints in id order: leaves of up to 64 entries, each leaf one memory chunk, leaves sorted
  * by their first id (the leaf level of a B+-tree). Keeping id order lets a substructure search with a limit screen
  * and match from the start and stop after `limit` hits, and the same query returns the same page on every instance.
  */
@@ -16,7 +16,7 @@ export interface ScreenVisit<Meta> {
   (entry: IndexEntry<Meta>): boolean;
 }
 
-export class PatternPartition<Meta> {
+export class ScreenPartition<Meta> {
   private readonly leaves: Leaf<Meta>[] = [];
   private count = 0;
 
@@ -83,7 +83,7 @@ export class PatternPartition<Meta> {
   }
 
   /**
-   * Visits, in id order, every entry whose pattern fingerprint contains all bits of `query`. Screens `batch` leaves
+   * Visits, in id order, every entry whose screening fingerprint contains all bits of `query`. Screens `batch` leaves
    * per kernel call, growing the batch geometrically, so a search that stops early has screened little.
    */
   screen(query: Uint8Array, visit: ScreenVisit<Meta>, firstBatch = 16): void {

@@ -1,7 +1,8 @@
 /**
  * The in-memory compound search index of one server process. Entries are partitioned by group, so a query only ever
  * scans its own group. Similarity is exact top-k Tanimoto on Morgan fingerprints; substructure search screens
- * pattern fingerprints in WebAssembly and confirms candidates with the graph matcher (or RDKit).
+ * screening fingerprints (screen.ts) in WebAssembly and confirms candidates with the graph matcher (and RDKit for
+ * the rare query the matcher cannot decide alone).
  *
  * `generation` increases with every change; `watermark` is the newest `updatedAt` applied, which sync.ts uses to
  * fetch only rows changed since (so several app instances over one PostgreSQL converge).
@@ -9,8 +10,9 @@
 import { FINGERPRINT_BYTES } from "@/lib/chem/structure/fingerprint";
 import { type IndexEntry } from "./entry";
 import { FingerprintMemory } from "./fingerprint-memory";
-import { PatternPartition } from "./pattern-partition";
+import { ScreenPartition } from "./screen-partition";
 import { type SimilarityOptions, SimilarityPartition } from "./similarity-partition";
+import { targetScreen } from "./screen";
 import { type SubstructureQuery } from "./substructure-query";
 
 export interface IndexedCompound {
@@ -18,10 +20,11 @@ export interface IndexedCompound {
   groupId: string;
   /** Morgan radius 2, 2048 bits (256 bytes). */
   morganFingerprint: Uint8Array;
-  /** RDKit pattern fingerprint, 2048 bits; needed for substructure search. */
-  patternFingerprint?: Uint8Array;
   /** Compact graph (lib/chem/structure/search-graph.ts); needed for substructure search. */
   searchGraph?: Uint8Array;
+  /** Accepted for compatibility and ignored: the index derives its screening fingerprint from `searchGraph`. */
+  patternFingerprint?: Uint8Array;
+  /** Canonical SMILES; lets RDKit confirm hits for the rare query the graph matcher cannot decide alone. */
   canonicalSmiles?: string;
   updatedAt?: Date;
 }
@@ -42,7 +45,7 @@ export interface SubstructureResult<Meta> {
 
 interface Group<Meta> {
   similarity: SimilarityPartition<Meta>;
-  pattern: PatternPartition<Meta>;
+  screens: ScreenPartition<Meta>;
 }
 
 export class CompoundSearchIndex<Meta = unknown> {
@@ -76,7 +79,6 @@ export class CompoundSearchIndex<Meta = unknown> {
   /** Adds or replaces a compound; moving it to another group is allowed. */
   upsert(compound: IndexedCompound, meta?: Meta): void {
     checkFingerprint(compound.morganFingerprint, "morganFingerprint");
-    if (compound.patternFingerprint) checkFingerprint(compound.patternFingerprint, "patternFingerprint");
     const updatedAt = compound.updatedAt?.getTime();
     if (updatedAt !== undefined && (this.newest === undefined || updatedAt > this.newest)) this.newest = updatedAt;
     const existing = this.entries.get(compound.id);
@@ -93,13 +95,13 @@ export class CompoundSearchIndex<Meta = unknown> {
       meta,
       popcount: 0,
       position: 0,
-      graph: compound.patternFingerprint && compound.searchGraph ? compound.searchGraph : undefined,
+      graph: compound.searchGraph,
       smiles: compound.canonicalSmiles,
       updatedAt,
     };
     const group = this.group(compound.groupId);
     group.similarity.add(entry, compound.morganFingerprint);
-    if (compound.patternFingerprint && (entry.graph || entry.smiles)) group.pattern.add(entry, compound.patternFingerprint);
+    if (entry.graph) group.screens.add(entry, targetScreen(entry.graph));
     this.entries.set(entry.id, entry);
     this.changes += 1;
   }
@@ -136,13 +138,13 @@ export class CompoundSearchIndex<Meta = unknown> {
     let candidates = 0;
     let more = false;
     const group = this.groups.get(groupId);
-    if (!group || limit <= 0) return { hits, more: (group?.pattern.size ?? 0) > 0 && limit <= 0, candidates };
-    const matcher = query.matcher;
-    group.pattern.screen(
-      query.patternFingerprint,
+    if (!group || limit <= 0) return { hits, more: (group?.screens.size ?? 0) > 0 && limit <= 0, candidates };
+    group.screens.screen(
+      query.screen,
       (entry) => {
         candidates += 1;
-        const matched = matcher && entry.graph ? matcher.matches(entry.graph) : entry.smiles !== undefined && query.verify(entry.smiles);
+        const graph = entry.graph as Uint8Array;
+        const matched = query.matcher.matches(graph) && (query.exact || (entry.smiles !== undefined && query.verify(entry.smiles)));
         if (!matched) return true;
         if (hits.length >= limit) {
           more = true;
@@ -166,7 +168,7 @@ export class CompoundSearchIndex<Meta = unknown> {
   private group(groupId: string): Group<Meta> {
     let group = this.groups.get(groupId);
     if (!group) {
-      group = { similarity: new SimilarityPartition<Meta>(this.memory), pattern: new PatternPartition<Meta>(this.memory) };
+      group = { similarity: new SimilarityPartition<Meta>(this.memory), screens: new ScreenPartition<Meta>(this.memory) };
       this.groups.set(groupId, group);
     }
     return group;
@@ -176,7 +178,7 @@ export class CompoundSearchIndex<Meta = unknown> {
     const group = this.groups.get(entry.groupId);
     if (group) {
       group.similarity.remove(entry);
-      group.pattern.remove(entry);
+      group.screens.remove(entry);
       if (group.similarity.size === 0) this.groups.delete(entry.groupId);
     }
     this.entries.delete(entry.id);
@@ -184,7 +186,7 @@ export class CompoundSearchIndex<Meta = unknown> {
 
   private unchanged(entry: IndexEntry<Meta>, compound: IndexedCompound): boolean {
     const group = this.groups.get(entry.groupId);
-    return !!group && group.similarity.holds(entry, compound.morganFingerprint) && !compound.patternFingerprint === !entry.graph && sameBytes(entry.graph, compound.searchGraph);
+    return !!group && group.similarity.holds(entry, compound.morganFingerprint) && sameBytes(entry.graph, compound.searchGraph);
   }
 }
 

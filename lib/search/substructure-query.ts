@@ -1,22 +1,25 @@
 /**
- * A substructure query ready for the index: its pattern fingerprint for screening, the compiled graph matcher when
- * RDKit's rules for it are reproduced exactly, and an RDKit check for the rare query the matcher does not cover.
- * Holds one RDKit molecule: call dispose() when done.
+ * A substructure query ready for the index: a screening fingerprint, a graph matcher, and an RDKit check. When the
+ * matcher reproduces RDKit's rules for every test in the query, it decides alone (`exact`); otherwise it runs a
+ * relaxed plan as a prefilter and RDKit decides each survivor. Holds one RDKit molecule: call dispose() when done.
  */
-import { patternFingerprint } from "@/lib/chem/structure/fingerprint";
 import { type RDKitModule, type RDKitMol } from "@/lib/chem/structure/rdkit";
 import { parseRDKitJson } from "@/lib/chem/structure/rdkit-json";
 import { readSmarts, readSmiles } from "@/lib/chem/structure/read";
 import { GraphMatcher } from "./graph-match";
 import { compileQueryPlan, UnsupportedQuery } from "./query-graph";
+import { queryScreen } from "./screen";
 
 export interface SubstructureQuery {
   text: string;
   /** "smarts": SMARTS semantics (C is aliphatic carbon, bonds default to single-or-aromatic); "smiles": the molecule as a query. */
   mode: "smarts" | "smiles";
-  patternFingerprint: Uint8Array;
-  /** Undefined when the query uses features only RDKit evaluates (then `verify` decides each candidate). */
-  matcher: GraphMatcher | undefined;
+  /** Bits every matching compound's screen has (screen.ts). */
+  screen: Uint8Array;
+  matcher: GraphMatcher;
+  /** True when `matcher` alone decides; false when RDKit (`verify`) confirms what the relaxed matcher lets through. */
+  exact: boolean;
+  /** Why the matcher is relaxed, when it is. */
   unsupportedReason: string | undefined;
   verify(smiles: string): boolean;
   dispose(): void;
@@ -25,21 +28,23 @@ export interface SubstructureQuery {
 export function compileSubstructureQuery(rdkit: RDKitModule, text: string, mode: "smarts" | "smiles" = "smarts"): SubstructureQuery {
   const query: RDKitMol = mode === "smarts" ? readSmarts(rdkit, text) : readSmiles(rdkit, text, { allowDummyAtoms: true });
   try {
-    const fingerprint = patternFingerprint(query);
-    let matcher: GraphMatcher | undefined;
+    const molecule = parseRDKitJson(query.get_json());
     let unsupportedReason: string | undefined;
+    let plan;
     try {
-      matcher = new GraphMatcher(compileQueryPlan(parseRDKitJson(query.get_json())));
+      plan = compileQueryPlan(molecule);
     } catch (error) {
       if (!(error instanceof UnsupportedQuery)) throw error;
       unsupportedReason = error.message;
+      plan = compileQueryPlan(molecule, undefined, true);
     }
     let disposed = false;
     return {
       text,
       mode,
-      patternFingerprint: fingerprint,
-      matcher,
+      screen: queryScreen(plan),
+      matcher: new GraphMatcher(plan),
+      exact: unsupportedReason === undefined,
       unsupportedReason,
       verify(smiles: string): boolean {
         if (disposed) throw new Error("substructure query already disposed");

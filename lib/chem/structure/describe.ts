@@ -36,7 +36,7 @@ export interface StructureProperties {
 export interface SearchKeys {
   /** Morgan radius 2, 2048 bits, 256 bytes (layout in fingerprint.ts). */
   morganFingerprint: Uint8Array;
-  /** RDKit pattern fingerprint, 2048 bits, 256 bytes. */
+  /** RDKit pattern fingerprint, 2048 bits, 256 bytes. Not needed by the search index (it screens with its own). */
   patternFingerprint: Uint8Array;
   /** Compact graph for exact substructure matching (search-graph.ts). */
   searchGraph: Uint8Array;

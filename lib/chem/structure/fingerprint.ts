@@ -7,8 +7,9 @@
  *
  * - Morgan (circular) fingerprint, radius 2, 2048 bits: Rogers & Hahn, J. Chem. Inf. Model. 2010, 50, 742
  *   (the ECFP4-like setting). Used for Tanimoto similarity.
- * - RDKit pattern fingerprint, 2048 bits: hashed substructure patterns designed so that a substructure's bits are a
- *   subset of the superstructure's bits; used only to screen candidates before an exact substructure match.
+ * - RDKit pattern fingerprint, 2048 bits: hashed substructure patterns meant to make a substructure's bits a subset
+ *   of its superstructure's. Offered for callers; the search index screens with its own fingerprint instead
+ *   (lib/search/screen.ts), because RDKit's query form drops true hits for some SMARTS.
  */
 import { type RDKitMol } from "./rdkit";
 
