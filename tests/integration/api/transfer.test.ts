@@ -91,6 +91,14 @@ describeWithAppDatabase("import and export routes", (t) => {
     expect(body.error.rows.map((r) => [r.row, r.column])).toEqual([[1, "title"], [2, "template"], [2, "performed_on"]]);
     const viewer = await callRoute(csvImport.POST, "POST", "/api/v1/workups/import", { token: tokens.viewer, rawBody: "title,performed_on,template\n" });
     expect(viewer.status).toBe(403);
+    const unterminated = await callRoute(csvImport.POST, "POST", "/api/v1/workups/import", { token: tokens.member, rawBody: 'title,performed_on,template\n"Open,2026-11-21,x\n' });
+    expect(unterminated.status).toBe(422);
+    expect((await json<{ error: { fields: Record<string, string[]> } }>(unterminated)).error.fields["csv"]).toEqual(["line 2: a quoted field is never closed"]);
+    const noSpecColumn = await callRoute(csvImport.POST, "POST", "/api/v1/workups/import", { token: tokens.member, rawBody: "title,performed_on\nA,2026-11-21\n" });
+    expect((await json<{ error: { fields: Record<string, string[]> } }>(noSpecColumn)).error.fields["csv"]).toEqual(["the header needs a 'spec_json' or a 'template' column"]);
+    const oversized = await callRoute(csvImport.POST, "POST", "/api/v1/workups/import", { token: tokens.member, rawBody: "x".repeat(10 * 1024 * 1024 + 1) });
+    expect(oversized.status).toBe(413);
+    expect((await json<{ error: { message: string } }>(oversized)).error.message).toBe("The request body is larger than 10 MB. Send less at once.");
     expect(await footprint(t.db)).toEqual(before);
   });
 
