@@ -19,20 +19,27 @@ export interface ConflictProps {
   base: WorkupSnapshot;
   mine: WorkupSnapshot;
   names: Record<string, string>;
-  /** Their version is now the base of the next save; the form keeps the user's edits. */
-  onRebase: (detail: WorkupDetail) => void;
+  /** Their version becomes the base of the next save; their changes merge into the form where it left them alone. */
+  onRebase: (detail: WorkupDetail) => { taken: string[]; both: string[] };
   onTakeTheirs: (detail: WorkupDetail) => void;
 }
 
+const PART_NAMES: Record<string, string> = {
+  title: "title", performedOn: "date", chemistId: "chemist", notebookRef: "notebook reference", scaleMmol: "scale", expectedProductMmol: "expected product",
+  assayedProductMmol: "assayed product", components: "components", mixture: "starting mixture", operations: "steps", temperature: "temperature", funnel: "funnel size", name: "name",
+};
+const partName = (k: string) => PART_NAMES[k] ?? k;
+
 export function ConflictPanel({ workupId, message, base, mine, names, onRebase, onTakeTheirs }: ConflictProps) {
   const [theirs, setTheirs] = useState<WorkupDetail | null>(null);
+  const [merge, setMerge] = useState<{ taken: string[]; both: string[] }>({ taken: [], both: [] });
   const [problem, setProblem] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
   const load = () => startTransition(async () => {
     const result = await getWorkupAction(workupId);
     if (!result.ok) return setProblem(result.message);
     setTheirs(result.data);
-    onRebase(result.data);
+    setMerge(onRebase(result.data));
   });
   return (
     <div role="alert" className="space-y-3 rounded-lg border border-amber-300 bg-amber-50 p-4 text-sm text-amber-950" data-testid="save-conflict">
@@ -42,8 +49,10 @@ export function ConflictPanel({ workupId, message, base, mine, names, onRebase, 
         <>
           <p>
             Version {theirs.version} is now loaded as the base of your next save{theirs.updatedBy ? `, saved by ${theirs.updatedBy.name}` : ""} at {formatDateTime(theirs.updatedAt)}.
-            Your edits are still in the form. Check both lists, then save again to put your version on top, or take theirs.
+            Your edits are still in the form. Check both lists, then save again, or take their version instead.
           </p>
+          {merge.taken.length > 0 ? <p>Taken into your form from their version (you had not changed these): <strong>{merge.taken.map(partName).join(", ")}</strong>.</p> : null}
+          {merge.both.length > 0 ? <p>Changed by both of you; your version is kept: <strong>{merge.both.map(partName).join(", ")}</strong>.</p> : null}
           <details open className="rounded border border-amber-200 bg-white p-3">
             <summary className="cursor-pointer font-medium">What they changed since you opened it</summary>
             <div className="mt-2"><VersionDiffView diff={diffSnapshots(base, snapshotOfDetail(theirs))} names={names} /></div>

@@ -13,6 +13,7 @@ import { createWorkupAction, updateWorkupAction } from "@/lib/workups/actions";
 import type { WorkupDetail } from "@/lib/workups/queries";
 import type { WorkupSnapshot } from "@/lib/workups/record";
 import { editorStateOf } from "@/lib/workups-client/from-spec";
+import { mergeSnapshots } from "@/lib/workups-client/merge";
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { saveInput } from "@/lib/workups-client/to-spec";
 import { useLivePrediction } from "@/lib/workups-client/use-live-prediction";
@@ -112,11 +113,19 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
     return () => window.removeEventListener("keydown", onKey);
   });
 
-  const rebase = (d: WorkupDetail) => { setVersion(d.version); setOpened(snapshotOfDetail(d)); };
+  const rebase = (d: WorkupDetail) => {
+    const theirs = snapshotOfDetail(d);
+    const result = opened ? mergeSnapshots(opened, theirs, snapshotOfState(state)) : { merged: theirs, taken: [], both: [] };
+    editor.apply(() => editorStateOf(result.merged.header, result.merged.spec, result.merged.links), null);
+    setVersion(d.version);
+    setOpened(theirs);
+    return { taken: result.taken, both: result.both };
+  };
   const takeTheirs = (d: WorkupDetail) => {
     const next = editorStateOf(d.header, d.spec, snapshotOfDetail(d).links);
     editor.replace(next);
-    rebase(d);
+    setVersion(d.version);
+    setOpened(snapshotOfDetail(d));
     setConflict(null);
     setBaseline(JSON.stringify(saveInput(next)));
   };
