@@ -12,7 +12,8 @@
  * A fitted value carries the fit's standard error combined with the ±5 % volume uncertainty, and half the weight of
  * a measurement (lib/chem/pool.ts's default for inferred observations). Pure: the caller supplies the simulator.
  */
-import { fitLogK, type LogKFit, type Simulator } from "@/lib/chem/fit";
+import { fitLogK, type LogKFit } from "@/lib/chem/fit";
+import { type WorkupSimulator as Simulator } from "@/lib/chem/uncertainty";
 import { type WorkupInput } from "@/lib/chem/schema";
 import { type Flag } from "@/lib/chem/types";
 import { DEFAULT_UNCERTAINTY } from "@/lib/chem/perturb";

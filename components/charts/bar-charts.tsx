@@ -1,0 +1,53 @@
+"use client";
+// The distribution of deviations, and the mean deviation of each group of a factor with its n beside it
+// (workup-practice §6 view 3: "always show n per group").
+import { Bar, BarChart, CartesianGrid, Cell, LabelList, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { ABOVE_COLOR, BELOW_COLOR, MUTED_COLOR, PRINT_WIDTH } from "./palette";
+
+export interface Bin {
+  from: number;
+  to: number;
+  label: string;
+  count: number;
+}
+
+export function DeviationHistogram({ bins }: { bins: Bin[] }) {
+  return (
+    <BarChart width={PRINT_WIDTH} height={300} data={bins} margin={{ top: 10, right: 20, bottom: 40, left: 10 }} barCategoryGap={1} accessibilityLayer>
+      <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" vertical={false} />
+      <XAxis dataKey="label" angle={-35} textAnchor="end" interval={0} height={50} tick={{ fontSize: 11 }}
+        label={{ value: "Reported − predicted recovery (percentage points)", position: "insideBottom", offset: -30 }} />
+      <YAxis allowDecimals={false} label={{ value: "Workups", angle: -90, position: "insideLeft", offset: 15 }} />
+      <Tooltip formatter={(value) => [String(value), "workups"]} />
+      <Bar dataKey="count" isAnimationActive={false}>
+        {bins.map((b) => <Cell key={b.label} fill={b.to <= 0 ? BELOW_COLOR : b.from >= 0 ? ABOVE_COLOR : MUTED_COLOR} />)}
+      </Bar>
+    </BarChart>
+  );
+}
+
+export interface GroupBar {
+  label: string;
+  mean: number;
+  n: number;
+  few: boolean;
+}
+
+export function GroupMeanChart({ groups }: { groups: GroupBar[] }) {
+  const data = groups.map((g) => ({ ...g, name: `${g.label} (n = ${g.n})` }));
+  const extent = Math.max(10, ...data.map((d) => Math.abs(d.mean))) * 1.15;
+  return (
+    <BarChart width={PRINT_WIDTH} height={Math.max(120, 34 * data.length + 60)} data={data} layout="vertical" margin={{ top: 10, right: 50, bottom: 25, left: 10 }} accessibilityLayer>
+      <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" horizontal={false} />
+      <XAxis type="number" domain={[-extent, extent]} tickFormatter={(v: number) => v.toFixed(0)}
+        label={{ value: "Mean deviation (percentage points)", position: "insideBottom", offset: -15 }} />
+      <YAxis type="category" dataKey="name" width={210} tick={{ fontSize: 12 }} />
+      <ReferenceLine x={0} stroke="#57534e" />
+      <Tooltip formatter={(value) => [typeof value === "number" ? `${value.toFixed(1)} points` : String(value), "mean deviation"]} />
+      <Bar dataKey="mean" isAnimationActive={false}>
+        {data.map((d) => <Cell key={d.name} fill={d.few ? MUTED_COLOR : d.mean < 0 ? BELOW_COLOR : ABOVE_COLOR} />)}
+        <LabelList dataKey="mean" position="right" formatter={(v: unknown) => (typeof v === "number" ? v.toFixed(1) : "")} style={{ fontSize: 11 }} />
+      </Bar>
+    </BarChart>
+  );
+}

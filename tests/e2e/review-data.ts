@@ -1,0 +1,58 @@
+// Workups with outcomes for the review and partition browser tests, created through the JSON API with the signed-in
+// browser's session (the real guard, validation and prediction). People and titles are invented; acetanilide is real:
+// M = 135.17 g/mol, log P 1.16 (PhysProp experimental log Kow, from memory).
+import { expect, type APIRequestContext } from "@playwright/test";
+
+export const ACETANILIDE_SMILES = "CC(=O)Nc1ccccc1";
+const MOLAR_MASS = 135.17;
+
+export interface ExtractionOptions {
+  title: string;
+  performedOn: string;
+  solvent: "etoac" | "dcm";
+  chemistId?: string;
+  /** A stated log K for the solvent (literature, ±0.1; a value chosen for the tests) instead of the log P estimate. */
+  statedLogK?: number;
+}
+
+/** 5 mmol acetanilide from 60 mL water into 2 × 30 mL solvent, dried and concentrated. */
+export function extractionBody(o: ExtractionOptions, compoundId?: string) {
+  return {
+    header: { title: o.title, performedOn: o.performedOn, chemistId: o.chemistId ?? null, notebookRef: "E2E", expectedProductMmol: 5, assayedProductMmol: 5 },
+    spec: {
+      components: [{
+        key: "acetanilide", name: "Acetanilide", role: "product", smiles: ACETANILIDE_SMILES, molarMass: MOLAR_MASS, amount: { value: 5, unit: "mmol" },
+        logP: { value: 1.16, provenance: "literature", source: "PhysProp experimental log Kow (from memory)" },
+        ...(o.statedLogK !== undefined ? { logK: { [o.solvent]: { value: o.statedLogK, provenance: "literature", se: 0.1, source: "test value" } } } : {}),
+      }],
+      mixture: { solvents: [{ solvent: "water", volume: { value: 60, unit: "mL" } }] },
+      operations: [
+        { type: "extract", solvent: o.solvent, volume: { value: 30, unit: "mL" }, portions: 2, keep: "organic" },
+        { type: "dry", agent: "na2so4", mass: { value: 3, unit: "g" } },
+        { type: "concentrate" },
+      ],
+    },
+    links: compoundId ? [{ key: "acetanilide", compoundId }] : [],
+  };
+}
+
+export async function me(request: APIRequestContext): Promise<{ id: string; name: string }> {
+  const response = await request.get("/api/v1/me");
+  expect(response.ok()).toBe(true);
+  return ((await response.json()) as { user: { id: string; name: string } }).user;
+}
+
+/** Saves the workup and reports `recovery` of the product (qNMR, or weight only). Returns the workup id. */
+export async function workupWithOutcome(request: APIRequestContext, o: ExtractionOptions, recovery: number, options: { compoundId?: string; weightOnly?: boolean } = {}): Promise<string> {
+  const saved = await request.post("/api/v1/workups", { data: extractionBody(o, options.compoundId) });
+  expect(saved.status(), await saved.text()).toBe(201);
+  const { id } = (await saved.json()) as { id: string };
+  const mg = recovery * 5 * MOLAR_MASS;
+  const outcome = await request.post(`/api/v1/workups/${id}/outcome`, {
+    data: options.weightOnly
+      ? { isolatedMassMg: Number(mg.toFixed(1)), purityMethod: "weight_only" }
+      : { isolatedMassMg: Number((mg / 0.98).toFixed(1)), purityPct: 98, purityMethod: "qnmr" },
+  });
+  expect(outcome.ok(), await outcome.text()).toBe(true);
+  return id;
+}

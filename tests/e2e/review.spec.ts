@@ -1,0 +1,128 @@
+// The group-meeting review in a real browser: parity points that open their records, date, chemist and solvent
+// filters, per-person figures kept in aggregate for members, CSV/SVG/PNG export of a view, and an A4 print layout.
+import fs from "node:fs";
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import { signIn } from "./helpers";
+import { PEOPLE, type Person } from "./people";
+import { me, workupWithOutcome } from "./review-data";
+
+const TITLES = {
+  asExpected: "Review: anilide wash A",
+  shortfall: "Review: anilide shortfall",
+  dcm: "Review: anilide in DCM",
+  lead: "Review: lead's anilide run",
+};
+
+async function signedIn(browser: Browser, person: Person): Promise<Page> {
+  const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+  await signIn(page, person);
+  return page;
+}
+
+const points = (page: Page) => page.locator("a.parity-point");
+const section = (page: Page, title: string) => page.getByRole("region", { name: title });
+
+test.describe.serial("review page", () => {
+  test.beforeAll(async ({ browser }) => {
+    // Dates before the group's other workups, so they do not push those off the first page of the list.
+    const member = await signedIn(browser, PEOPLE.memberA);
+    const memberId = (await me(member.request)).id;
+    await workupWithOutcome(member.request, { title: TITLES.asExpected, performedOn: "2026-09-05", solvent: "etoac", chemistId: memberId, statedLogK: 1.3 }, 0.95);
+    await workupWithOutcome(member.request, { title: TITLES.shortfall, performedOn: "2026-09-12", solvent: "etoac", chemistId: memberId, statedLogK: 1.3 }, 0.6);
+    await workupWithOutcome(member.request, { title: TITLES.dcm, performedOn: "2026-09-15", solvent: "dcm", chemistId: memberId, statedLogK: 1.3 }, 0.93);
+    await member.context().close();
+    const lead = await signedIn(browser, PEOPLE.leadA);
+    await workupWithOutcome(lead.request, { title: TITLES.lead, performedOn: "2026-09-20", solvent: "etoac", chemistId: (await me(lead.request)).id, statedLogK: 1.3 }, 0.94);
+    await lead.context().close();
+  });
+
+  test("a member reviews the workups: points open their records, filters narrow every view, per-person figures stay in aggregate", async ({ page }) => {
+    await signIn(page, PEOPLE.memberA);
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Review" }).click();
+    await expect(page.getByRole("heading", { name: "Review", level: 1 })).toBeVisible();
+    await expect(points(page)).toHaveCount(4);
+    await expect(page.getByTestId("summary-workups")).toHaveText("4");
+    await expect(page.getByTestId("flagged-list").getByRole("link")).toHaveText([TITLES.shortfall]);
+    const flagged = page.getByTestId("flagged-list").getByRole("listitem").first();
+    await expect(flagged).toContainText("Reported 60 % against");
+    await expect(flagged).toContainText("Likely causes:");
+
+    // Per-person statistics: the member's own beside everyone else's, never another chemist's name.
+    const byChemist = section(page, "Deviations by chemist");
+    await expect(byChemist.getByRole("row")).toHaveCount(3);
+    await expect(byChemist.getByRole("cell", { name: "You", exact: true })).toBeVisible();
+    await expect(byChemist.getByRole("cell", { name: "Everyone else (too few to judge)" })).toBeVisible();
+    await expect(page.getByText(PEOPLE.leadA.name)).toHaveCount(0);
+    await expect(page.getByLabel("Chemist").getByRole("option")).toHaveText(["Everyone (in aggregate)", `Only mine (${PEOPLE.memberA.name})`]);
+
+    // Solvent filter: only the DCM workup is left in every view.
+    await page.getByLabel("Solvent system").selectOption({ label: "Dichloromethane / water" });
+    await page.getByRole("button", { name: "Apply" }).click();
+    await expect(page).toHaveURL(/solvent=dcm/);
+    await expect(points(page)).toHaveCount(1);
+    await expect(page.getByTestId("review-selection")).toContainText("in Dichloromethane / water");
+    await expect(section(page, "Deviations by solvent system").getByRole("row")).toHaveCount(2);
+
+    // Date range: 10–16 September holds the shortfall and the DCM run.
+    await page.goto("/review?from=2026-09-10&to=2026-09-16");
+    await expect(points(page)).toHaveCount(2);
+    await expect(page.getByLabel("From")).toHaveValue("2026-09-10");
+
+    // Asking for another chemist's workups alone is refused with a notice; the view stays in aggregate.
+    await page.goto("/review?chemist=someone-else");
+    await expect(page.getByText("Only a group lead can look at another chemist's workups on their own")).toBeVisible();
+    await expect(points(page)).toHaveCount(4);
+
+    // A point is a link to its record.
+    await page.goto("/review?solvent=dcm");
+    await points(page).first().click();
+    await expect(page.getByRole("heading", { name: TITLES.dcm, level: 1 })).toBeVisible();
+  });
+
+  test("the lead sees each chemist by name and can look at one chemist's workups", async ({ page }) => {
+    await signIn(page, PEOPLE.leadA);
+    await page.goto("/review");
+    const byChemist = section(page, "Deviations by chemist");
+    await expect(byChemist.getByRole("cell", { name: `${PEOPLE.memberA.name}`, exact: true })).toBeVisible();
+    await expect(byChemist.getByRole("cell", { name: `${PEOPLE.leadA.name} (too few to judge)` })).toBeVisible();
+    await page.getByLabel("Chemist").selectOption({ label: PEOPLE.memberA.name });
+    await page.getByRole("button", { name: "Apply" }).click();
+    await expect(points(page)).toHaveCount(3);
+    await expect(page.getByTestId("review-selection")).toContainText(`by ${PEOPLE.memberA.name}`);
+  });
+
+  test("each view exports its data and its image, and the page prints on A4 without navigation or controls", async ({ page }) => {
+    await signIn(page, PEOPLE.memberA);
+    await page.goto("/review");
+    const parity = section(page, "Predicted and reported recovery");
+    await expect(points(page)).toHaveCount(4);
+
+    const [csv] = await Promise.all([page.waitForEvent("download"), parity.getByRole("button", { name: "CSV" }).click()]);
+    expect(csv.suggestedFilename()).toBe("parity.csv");
+    const lines = fs.readFileSync(await csv.path(), "utf8").trim().split("\r\n");
+    expect(lines[0]).toBe("workup_id,title,performed_on,solvent_system,predicted_pct,interval_low_pct,interval_high_pct,reported_pct");
+    expect(lines).toHaveLength(5);
+
+    const [svg] = await Promise.all([page.waitForEvent("download"), parity.getByRole("button", { name: "SVG" }).click()]);
+    expect(svg.suggestedFilename()).toBe("parity.svg");
+    const markup = fs.readFileSync(await svg.path(), "utf8");
+    expect(markup).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    expect(markup).toContain("Predicted recovery (%)");
+
+    const histogram = section(page, "Spread of deviations");
+    const [png] = await Promise.all([page.waitForEvent("download"), histogram.getByRole("button", { name: "PNG" }).click()]);
+    expect(png.suggestedFilename()).toBe("deviation-histogram.png");
+    expect(fs.readFileSync(await png.path()).subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+
+    await page.emulateMedia({ media: "print" });
+    await expect(page.getByRole("navigation", { name: "Main" })).toBeHidden();
+    await expect(page.getByRole("form", { name: "Review filters" })).toBeHidden();
+    await expect(parity.getByRole("button", { name: "CSV" })).toBeHidden();
+    await expect(parity.locator("svg.recharts-surface")).toBeVisible();
+    const pdf = await page.pdf({ format: "A4", printBackground: true });
+    expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    // The views that start on a new page: spread, solvent systems, chemists and the flagged list, after the first.
+    const pages = pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? [];
+    expect(pages.length).toBeGreaterThanOrEqual(5);
+  });
+});
