@@ -4,7 +4,7 @@
 // predictions, deviations and flags show the new values.
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
-import { type JobProgress, type JobsStatus } from "../status";
+import type { JobProgress, JobsStatus } from "../status";
 
 const ACTIVE_POLL_MS = 1500;
 const IDLE_POLL_MS = 15_000;

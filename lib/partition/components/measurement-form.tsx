@@ -6,7 +6,7 @@ import { useState, useTransition } from "react";
 import { Field, FieldErrors, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
-import { type FieldErrors as Errors } from "@/lib/errors";
+import type { FieldErrors as Errors } from "@/lib/errors";
 import { addMeasurementAction } from "../actions";
 import { MEASUREMENT_METHODS, METHOD_LABELS } from "../schemas";
 

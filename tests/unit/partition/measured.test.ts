@@ -60,7 +60,7 @@ describe("neutral log K from log D at the measured pH", () => {
   });
 
   it("refuses a measurement where almost nothing is neutral, or without the pH an ionizable compound needs", () => {
-    const refusal = (m: MeasurementInputRaw) => {
+    const refusal = (m: Partial<MeasurementInputRaw>) => {
       try {
         measuredLogK(input(m), BENZOIC);
       } catch (error) {

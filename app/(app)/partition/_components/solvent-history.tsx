@@ -2,7 +2,7 @@
 import { ChartFrame } from "@/components/charts/chart-frame";
 import { fileSlug } from "@/components/charts/csv";
 import { PooledHistoryChart } from "@/components/charts/pooled-history-chart";
-import { type SolventPartition } from "@/lib/partition/queries";
+import type { SolventPartition } from "@/lib/partition/queries";
 
 function summary(s: SolventPartition): string {
   const p = s.pooled;
