@@ -44,14 +44,14 @@ function Hint({ fieldKey, hint }: { fieldKey: string; hint: ReactNode }) {
   return hint ? <p id={`${fieldId(fieldKey)}-hint`} className="mt-0.5 text-xs text-stone-500">{hint}</p> : null;
 }
 
-export function TextControl({ fieldKey, label, value, onChange, messages, hint, className = "", hideLabel, onBlur, numeric, placeholder, type = "text", mono }: Common & {
-  value: string; onChange: (v: string) => void; numeric?: boolean; placeholder?: string; type?: "text" | "date"; mono?: boolean;
+export function TextControl({ fieldKey, label, value, onChange, messages, hint, className = "", hideLabel, onBlur, numeric, placeholder, type = "text", mono, readOnly }: Common & {
+  value: string; onChange: (v: string) => void; numeric?: boolean; placeholder?: string; type?: "text" | "date"; mono?: boolean; readOnly?: boolean;
 }) {
   return (
     <div className={className}>
       <Label fieldKey={fieldKey} label={label} hideLabel={hideLabel} />
       <input
-        id={fieldId(fieldKey)} type={type} value={value} placeholder={placeholder} inputMode={numeric ? "decimal" : undefined}
+        id={fieldId(fieldKey)} type={type} value={value} placeholder={placeholder} inputMode={numeric ? "decimal" : undefined} readOnly={readOnly}
         onChange={(e) => onChange(e.target.value)} onBlur={onBlur} autoComplete="off" spellCheck={numeric || mono ? false : undefined}
         aria-invalid={messages?.length ? true : undefined} aria-describedby={describedBy(fieldKey, messages, hint)}
         className={`${smallInput} mt-0.5 ${numeric ? "tabular-nums" : ""} ${mono ? "font-mono" : ""}`}
