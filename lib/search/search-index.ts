@@ -76,7 +76,7 @@ export class CompoundSearchIndex<Meta = unknown> {
     return this.entries.has(id);
   }
 
-  /** Adds or replaces a compound; moving it to another group is allowed. */
+  /** Adds or replaces a compound; moving it to another group is allowed. The index keeps `searchGraph` as given. */
   upsert(compound: IndexedCompound, meta?: Meta): void {
     checkFingerprint(compound.morganFingerprint, "morganFingerprint");
     const updatedAt = compound.updatedAt?.getTime();
@@ -126,6 +126,8 @@ export class CompoundSearchIndex<Meta = unknown> {
     checkFingerprint(queryFingerprint, "query fingerprint");
     const threshold = options.threshold ?? 0;
     if (!(threshold >= 0 && threshold <= 1)) throw new RangeError("threshold must be between 0 and 1");
+    const k = options.k ?? 10;
+    if (!(Number.isInteger(k) || k === Infinity) || k < 0) throw new RangeError("k must be a whole number ≥ 0, or Infinity");
     const group = this.groups.get(groupId);
     if (!group) return [];
     return group.similarity.search(queryFingerprint, options).map(({ entry, score }) => ({ id: entry.id, score, meta: entry.meta }));

@@ -90,6 +90,8 @@ describe("similarity search equals a brute-force scan", () => {
     expect(index.similar("alpha", new Uint8Array(256), { threshold: 0.1 })).toEqual([]);
     expect(() => index.similar("alpha", new Uint8Array(100))).toThrow(TypeError);
     expect(() => index.similar("alpha", new Uint8Array(256), { threshold: 1.5 })).toThrow(RangeError);
+    expect(() => index.similar("alpha", new Uint8Array(256), { k: 2.5 })).toThrow(RangeError);
+    expect(index.similar("alpha", new Uint8Array(256), { k: 0 })).toEqual([]);
     expect(() => index.upsert({ id: "x", groupId: "alpha", morganFingerprint: new Uint8Array(3) })).toThrow(TypeError);
   });
 
