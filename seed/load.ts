@@ -1,8 +1,8 @@
 /**
  * Loads the demo scenario into a database: groups, people (all with the demo password), each group's copy of the
  * solvent and wash library, the compounds (properties computed from the structure by RDKit, literature values
- * beside them), and the workups with their outcomes. Everything goes through one transaction per group, so a
- * failed seed leaves nothing behind.
+ * beside them), the workups with their outcomes, and the group's partition measurements. Workups, outcomes and
+ * measurements go through the same services as the app, so the demo exercises the real path.
  */
 import { hashPassword } from "@/lib/auth/password";
 import { DEFAULT_LIBRARY } from "@/lib/chem/library";
@@ -11,6 +11,8 @@ import type { Db } from "@/lib/db/client";
 import { seedCompounds } from "./compounds";
 import { type CompoundFacts } from "./generate";
 import { DEMO_PASSWORD, demoGroup, otherGroup, type SeedPerson } from "./scenario";
+import { drainQueue } from "@/lib/jobs/worker";
+import { seedPartition } from "./partition";
 import { seedWorkups } from "./workups";
 
 export interface SeedSummary {
@@ -86,6 +88,10 @@ export async function seedDemo(db: Db): Promise<SeedSummary> {
   const lead = main.users.get(demoGroup.people[0].email)!;
   const compounds = await registerCompounds(db, main.groupId, lead);
   const workups = await seedWorkups(db, main.groupId, main.users, compounds);
+  // The group's own measurements, then the re-validation and inference they queue, so the first start already shows
+  // predictions that use group values and the log K learned from the reported outcomes.
+  await seedPartition(db, main.groupId, lead, compounds);
+  await drainQueue(db, { schedule: true });
 
   const other = await createGroup(db, otherGroup, passwordHash);
   const otherLead = other.users.get(otherGroup.people[0].email)!;
