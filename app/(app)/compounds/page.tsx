@@ -9,6 +9,7 @@ import { buttonClass } from "@/components/ui/button";
 import { formatNumber } from "@/components/ui/format";
 import { EmptyState, PageHeader } from "@/components/ui/page-header";
 import { Depiction } from "./_components/depiction";
+import { Formula } from "./_components/formula";
 
 export const metadata = { title: "Compounds" };
 
@@ -62,7 +63,7 @@ export default async function CompoundsPage({ searchParams }: { searchParams: Pr
                   <td className="px-4 py-2.5">
                     <Link href={`/compounds/${c.id}`} className="font-medium text-teal-800 hover:underline">{c.name}</Link>
                   </td>
-                  <td className="px-4 py-2.5 text-stone-700">{c.formula}</td>
+                  <td className="px-4 py-2.5 text-stone-700"><Formula formula={c.formula} /></td>
                   <td className="px-4 py-2.5 text-right tabular-nums text-stone-700">{formatNumber(c.molarMass, 2)}</td>
                   <td className="px-4 py-2.5 text-right tabular-nums text-stone-700">
                     {c.logP !== null ? formatNumber(c.logP, 2) : c.crippenLogP !== null ? <span title="Estimated from the structure (Wildman–Crippen)">{formatNumber(c.crippenLogP, 2)}*</span> : "—"}

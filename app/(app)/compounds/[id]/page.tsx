@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { can } from "@/lib/authz";
-import { requirePageMember } from "@/lib/authz/page";
+import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { getDb } from "@/lib/db/client";
 import { getCompound, partitionDataFor, workupsUsing } from "@/lib/compounds/queries";
 import { Badge } from "@/components/ui/badge";
@@ -19,7 +19,7 @@ export default async function CompoundPage({ params }: { params: Promise<{ id: s
   const { id } = await params;
   const member = await requirePageMember("data:read", { returnTo: `/compounds/${id}` });
   const db = await getDb();
-  const compound = await getCompound(db, member.group.id, id);
+  const compound = await getCompound(db, member.group.id, id).catch((e: unknown) => pageFailure(e));
   const [observations, workups] = [await partitionDataFor(db, member.group.id, compound.id), await workupsUsing(db, member.group.id, [compound.id])];
   const used = workups.get(compound.id) ?? [];
   const editable = can(member, "data:write");

@@ -4,6 +4,7 @@ import { formatNumber } from "@/components/ui/format";
 import { Card } from "@/components/ui/page-header";
 import { parseLogPSource } from "@/lib/compounds/provenance";
 import type { CompoundDetail } from "@/lib/compounds/queries";
+import { Formula } from "./formula";
 import { LogPEditor } from "./log-p-editor";
 
 /** Wildman & Crippen, J. Chem. Inf. Comput. Sci. 1999, 39, 868: σ = 0.677 log units on their training set. */
@@ -19,7 +20,7 @@ export function PropertiesCard({ compound, editable }: { compound: CompoundDetai
   return (
     <Card title="Properties">
       <dl className="divide-y divide-stone-100 text-sm">
-        <Row label="Formula">{compound.formula}</Row>
+        <Row label="Formula"><Formula formula={compound.formula} /></Row>
         <Row label="Molar mass">{formatNumber(compound.molarMass, 2)} g/mol</Row>
         <Row label="log P (octanol/water)">
           <div className="space-y-1.5" data-testid="logp">
