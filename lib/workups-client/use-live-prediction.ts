@@ -36,6 +36,7 @@ const INITIAL: LivePrediction = {
 function useIntervalRunner(onReply: (reply: IntervalReply) => void) {
   const worker = useRef<Worker | null>(null);
   const busy = useRef(false);
+  const inFlight = useRef<IntervalRequest | null>(null);
   const pending = useRef<IntervalRequest | null>(null);
   const reply = useRef(onReply);
   useEffect(() => {
@@ -52,6 +53,7 @@ function useIntervalRunner(onReply: (reply: IntervalReply) => void) {
       const queued = pending.current;
       pending.current = null;
       busy.current = queued !== null;
+      inFlight.current = queued;
       if (queued) w?.postMessage(queued);
     };
     if (w) {
@@ -59,9 +61,15 @@ function useIntervalRunner(onReply: (reply: IntervalReply) => void) {
         reply.current(event.data);
         next();
       };
-      w.onerror = () => {
+      // A worker that fails to load (blocked script, old browser) hands its work to the main thread from then on.
+      w.onerror = (event) => {
+        event.preventDefault();
         worker.current = null;
         busy.current = false;
+        const lost = pending.current ?? inFlight.current;
+        pending.current = null;
+        inFlight.current = null;
+        if (lost) setTimeout(() => reply.current(computeInterval(lost)), 0);
       };
     }
     worker.current = w;
@@ -79,6 +87,7 @@ function useIntervalRunner(onReply: (reply: IntervalReply) => void) {
     if (busy.current) pending.current = request;
     else {
       busy.current = true;
+      inFlight.current = request;
       w.postMessage(request);
     }
   }, []);

@@ -9,10 +9,11 @@ import { saveInput } from "@/lib/workups-client/to-spec";
 import { record, redo, reset, startHistory, undo } from "@/lib/workups-client/undo-history";
 import { checkSave } from "@/lib/workups-client/validate";
 
-export function useEditorState(initial: EditorState, library: LibraryOverrides) {
+/** `revealAll`: show every message from the start (a saved record opened for editing: its problems are news). */
+export function useEditorState(initial: EditorState, library: LibraryOverrides, revealAll = false) {
   const [history, setHistory] = useState(() => startHistory(initial));
   const [touched, setTouched] = useState<ReadonlySet<string>>(new Set());
-  const [showAll, setShowAll] = useState(false);
+  const [showAll, setShowAll] = useState(revealAll);
   const [server, setServer] = useState<FieldMessages>({});
   const state = history.present;
   const input = useMemo(() => saveInput(state), [state]);

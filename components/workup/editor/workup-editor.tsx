@@ -52,7 +52,7 @@ function Section({ title, children, id }: { title: string; children: ReactNode; 
 
 export function WorkupEditor({ workupId, baseVersion, initial, base, members, library }: EditorProps) {
   const router = useRouter();
-  const editor = useEditorState(initial, library);
+  const editor = useEditorState(initial, library, workupId !== null);
   const { state, input } = editor;
   const resolved = useMemo(() => resolveLibrary(library), [library]);
   const live = useLivePrediction(input.spec, library);
