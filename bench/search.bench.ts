@@ -66,7 +66,9 @@ if (substructureSet === "10k" || substructureSet === "100k") {
 }
 
 const summary = {
-  sizes: Object.fromEntries(Object.entries(similarity).map(([size, r]) => [size, { p50_ms: r.p50_ms, p95_ms: r.p95_ms, exact: r.exact, threshold_0_5: r.threshold_0_5 }])),
+  sizes: Object.fromEntries(
+    Object.entries(similarity).map(([size, r]) => [size, { p50_ms: r.p50_ms, p95_ms: r.p95_ms, cpu_p50_ms: r.cpu_p50_ms, cpu_p95_ms: r.cpu_p95_ms, exact: r.exact, threshold_0_5: r.threshold_0_5 }]),
+  ),
   substructure,
   build: Object.fromEntries(Object.entries(similarity).map(([size, r]) => [size, { ms: r.build_ms, wasm_mb: r.wasm_mb, heap_mb: r.heap_mb }])),
   rdkit_load_ms: round(rdkitLoadMs, 1),

@@ -2,14 +2,12 @@
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import { type KeySet } from "./dataset";
-import { nowMs, passStats, round } from "./stats";
+import { nowMs, passStats, round, type Timing } from "./stats";
 import { CompoundSearchIndex, bruteForceSimilar } from "@/lib/search";
 
-export interface SimilarityReport {
+export interface SimilarityReport extends Timing {
   n: number;
-  p50_ms: number;
-  p95_ms: number;
-  threshold_0_5: { p50_ms: number; p95_ms: number };
+  threshold_0_5: Timing;
   exact: boolean;
   verified_queries: number;
   build_ms: number;

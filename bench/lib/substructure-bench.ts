@@ -3,11 +3,9 @@
  * and RDKit's own SubstructLibrary in WebAssembly on the same machine as baseline and as the exactness reference.
  */
 import { type KeySet } from "./dataset";
-import { nowMs, passStats, round } from "./stats";
+import { nowMs, passStats, round, type Timing } from "./stats";
 import { type RDKitModule } from "@/lib/chem/structure/rdkit";
 import { CompoundSearchIndex, compileSubstructureQuery, type SubstructureQuery } from "@/lib/search";
-
-type Timing = { p50_ms: number; p95_ms: number };
 
 export interface SubstructureReport {
   n: number;

@@ -30,100 +30,139 @@ const RING_ATOM = 2;
 const BOND = 3;
 const RING_BOND = 4;
 const PATH = 5;
+const THRESHOLDS: Record<number, number[]> = { [ATOM]: ATOM_THRESHOLDS, [RING_ATOM]: ATOM_THRESHOLDS, [BOND]: BOND_THRESHOLDS, [RING_BOND]: BOND_THRESHOLDS, [PATH]: PATH_THRESHOLDS };
 
-function hash(parts: number[]): number {
-  let h = 0x811c9dc5;
-  for (const p of parts) {
-    h ^= p & 0xffff;
-    h = Math.imul(h, 0x01000193);
-    h ^= p >>> 16;
-    h = Math.imul(h, 0x01000193);
+/** FNV-1a-style mixing of whole integers (Fowler, Noll & Vo); any collision only adds screen candidates. */
+const mix = (h: number, v: number) => Math.imul(h ^ v, 0x01000193) >>> 0;
+const SEED = 0x811c9dc5;
+
+/**
+ * Counts of feature keys in a reusable open-addressing table. Two features whose keys collide are counted together;
+ * that only raises counts on both sides (the query's merged count never exceeds the target's), so it stays safe.
+ */
+class Counter {
+  private keys = new Uint32Array(4096);
+  private counts = new Uint16Array(4096);
+  private kinds = new Uint8Array(4096);
+  private readonly slots: number[] = [];
+
+  reset(expected: number): void {
+    for (const i of this.slots) this.counts[i] = 0;
+    this.slots.length = 0;
+    if (this.keys.length < expected * 2) {
+      let size = this.keys.length;
+      while (size < expected * 2) size *= 2;
+      this.keys = new Uint32Array(size);
+      this.counts = new Uint16Array(size);
+      this.kinds = new Uint8Array(size);
+    }
   }
-  return (h >>> 0) % BITS;
-}
 
-class Features {
-  private readonly counts = new Map<string, { parts: number[]; n: number }>();
-
-  add(parts: number[]): void {
-    const key = parts.join(",");
-    const entry = this.counts.get(key);
-    if (entry) entry.n += 1;
-    else this.counts.set(key, { parts, n: 1 });
+  add(kind: number, key: number): void {
+    const mask = this.keys.length - 1;
+    let i = Math.imul(key, 0x9e3779b1) >>> 0 & mask;
+    for (;;) {
+      const c = this.counts[i] ?? 0;
+      if (c === 0) {
+        this.keys[i] = key;
+        this.kinds[i] = kind;
+        this.counts[i] = 1;
+        this.slots.push(i);
+        return;
+      }
+      if (this.keys[i] === key) {
+        this.counts[i] = c + 1;
+        return;
+      }
+      i = (i + 1) & mask;
+    }
   }
 
   /** Targets set every threshold up to their count; queries only the largest threshold their count reaches. */
   toFingerprint(asQuery: boolean): Uint8Array {
     const fp = new Uint8Array(BITS / 8);
-    for (const { parts, n } of this.counts.values()) {
-      const thresholds = parts[0] === ATOM || parts[0] === RING_ATOM ? ATOM_THRESHOLDS : parts[0] === PATH ? PATH_THRESHOLDS : BOND_THRESHOLDS;
-      const reached = thresholds.filter((t) => t <= n);
-      for (const t of asQuery ? reached.slice(-1) : reached) {
-        const bit = hash([...parts, t]);
-        fp[bit >> 3] = (fp[bit >> 3] ?? 0) | (1 << (bit & 7));
+    for (const i of this.slots) {
+      const n = this.counts[i] ?? 0;
+      const key = this.keys[i] ?? 0;
+      const thresholds = THRESHOLDS[this.kinds[i] ?? 0] ?? ATOM_THRESHOLDS;
+      let last = -1;
+      for (const t of thresholds) {
+        if (t > n) break;
+        if (!asQuery) setBit(fp, mix(key, t) % BITS);
+        last = t;
       }
+      if (asQuery && last > 0) setBit(fp, mix(key, last) % BITS);
     }
     return fp;
   }
 }
 
-const orderedPair = (a: number, b: number) => (a <= b ? [a, b] : [b, a]);
-
-function addBond(f: Features, la: number, code: number, lb: number, ring: boolean): void {
-  const [x = 0, y = 0] = orderedPair(la, lb);
-  f.add([BOND, x, code, y]);
-  if (ring) f.add([RING_BOND, x, code, y]);
+function setBit(fp: Uint8Array, bit: number): void {
+  fp[bit >> 3] = (fp[bit >> 3] ?? 0) | (1 << (bit & 7));
 }
 
-function addPath(f: Features, l1: number, c1: number, l2: number, c2: number, l3: number): void {
-  const forward = [l1, c1, l2, c2, l3];
-  const backward = [l3, c2, l2, c1, l1];
-  f.add([PATH, ...(forward.join(",") <= backward.join(",") ? forward : backward)]);
+const counter = new Counter();
+
+const atomKey = (kind: number, label: number) => mix(mix(SEED, kind), label);
+
+function addBond(f: Counter, la: number, code: number, lb: number, ring: boolean): void {
+  const key = la <= lb ? mix(mix(mix(SEED, la), code), lb) : mix(mix(mix(SEED, lb), code), la);
+  f.add(BOND, mix(key, BOND));
+  if (ring) f.add(RING_BOND, mix(key, RING_BOND));
+}
+
+/** A two-bond path l1–c1–l2–c2–l3, read from whichever end makes (l, c) smaller, so both directions agree. */
+function addPath(f: Counter, l1: number, c1: number, l2: number, c2: number, l3: number): void {
+  const key = l1 < l3 || (l1 === l3 && c1 <= c2)
+    ? mix(mix(mix(mix(mix(mix(SEED, PATH), l1), c1), l2), c2), l3)
+    : mix(mix(mix(mix(mix(mix(SEED, PATH), l3), c2), l2), c1), l1);
+  f.add(PATH, key);
 }
 
 /** Screening fingerprint of a target molecule from its compact graph. */
 export function targetScreen(g: Uint8Array): Uint8Array {
   const n = (g[1] ?? 0) | ((g[2] ?? 0) << 8);
   const entries = HEADER_BYTES + n * ATOM_BYTES;
-  const label: number[] = [];
-  const z: number[] = [];
-  const f = new Features();
+  const exact = new Int32Array(n);
+  const loose = new Int32Array(n);
+  counter.reset(24 * n + 64);
+  const f = counter;
   for (let i = 0; i < n; i++) {
     const at = HEADER_BYTES + i * ATOM_BYTES;
-    z[i] = g[at + ATOM_Z] ?? 0;
-    label[i] = (z[i] ?? 0) * 2 + ((g[at + ATOM_FLAGS] ?? 0) & FLAG_AROMATIC ? 1 : 0);
+    const z = g[at + ATOM_Z] ?? 0;
+    exact[i] = z * 2 + ((g[at + ATOM_FLAGS] ?? 0) & FLAG_AROMATIC ? 1 : 0);
+    loose[i] = elementOnly(z);
     const ring = (g[at + ATOM_RING_COUNT] ?? 0) > 0;
-    for (const l of [label[i] ?? 0, elementOnly(z[i] ?? 0)]) {
-      f.add([ATOM, l]);
-      if (ring) f.add([RING_ATOM, l]);
+    f.add(ATOM, atomKey(ATOM, exact[i] ?? 0));
+    f.add(ATOM, atomKey(ATOM, loose[i] ?? 0));
+    if (ring) {
+      f.add(RING_ATOM, atomKey(RING_ATOM, exact[i] ?? 0));
+      f.add(RING_ATOM, atomKey(RING_ATOM, loose[i] ?? 0));
     }
   }
-  const neighbours = (i: number) => {
+  for (let i = 0; i < n; i++) {
     const at = HEADER_BYTES + i * ATOM_BYTES;
     const start = (g[at + ATOM_NEIGHBOUR_START] ?? 0) | ((g[at + ATOM_NEIGHBOUR_START + 1] ?? 0) << 8);
-    const out: { nbr: number; code: number; ring: boolean }[] = [];
-    for (let k = 0; k < (g[at + ATOM_DEGREE] ?? 0); k++) {
-      const e = entries + (start + k) * NEIGHBOUR_BYTES;
-      out.push({ nbr: (g[e] ?? 0) | ((g[e + 1] ?? 0) << 8), code: g[e + 2] ?? 0, ring: ((g[e + 3] ?? 0) & BOND_FLAG_RING) !== 0 });
-    }
-    return out;
-  };
-  for (let i = 0; i < n; i++) {
-    const list = neighbours(i);
-    const variants = (j: number) => [label[j] ?? 0, elementOnly(z[j] ?? 0)];
-    for (const { nbr, code, ring } of list) {
-      if (nbr < i) continue;
-      for (let v = 0; v < 2; v++) for (const c of [code, ANY]) addBond(f, variants(i)[v] ?? 0, c, variants(nbr)[v] ?? 0, ring);
-    }
-    for (let a = 0; a < list.length; a++) {
-      for (let b = a + 1; b < list.length; b++) {
-        const x = list[a];
-        const y = list[b];
-        if (!x || !y) continue;
-        for (let v = 0; v < 2; v++) {
-          addPath(f, variants(x.nbr)[v] ?? 0, x.code, variants(i)[v] ?? 0, y.code, variants(y.nbr)[v] ?? 0);
-          addPath(f, variants(x.nbr)[v] ?? 0, ANY, variants(i)[v] ?? 0, ANY, variants(y.nbr)[v] ?? 0);
-        }
+    const degree = g[at + ATOM_DEGREE] ?? 0;
+    for (let x = 0; x < degree; x++) {
+      const ex = entries + (start + x) * NEIGHBOUR_BYTES;
+      const nx = (g[ex] ?? 0) | ((g[ex + 1] ?? 0) << 8);
+      const cx = g[ex + 2] ?? 0;
+      if (nx > i) {
+        const ring = ((g[ex + 3] ?? 0) & BOND_FLAG_RING) !== 0;
+        addBond(f, exact[i] ?? 0, cx, exact[nx] ?? 0, ring);
+        addBond(f, exact[i] ?? 0, ANY, exact[nx] ?? 0, ring);
+        addBond(f, loose[i] ?? 0, cx, loose[nx] ?? 0, ring);
+        addBond(f, loose[i] ?? 0, ANY, loose[nx] ?? 0, ring);
+      }
+      for (let y = x + 1; y < degree; y++) {
+        const ey = entries + (start + y) * NEIGHBOUR_BYTES;
+        const ny = (g[ey] ?? 0) | ((g[ey + 1] ?? 0) << 8);
+        const cy = g[ey + 2] ?? 0;
+        addPath(f, exact[nx] ?? 0, cx, exact[i] ?? 0, cy, exact[ny] ?? 0);
+        addPath(f, exact[nx] ?? 0, ANY, exact[i] ?? 0, ANY, exact[ny] ?? 0);
+        addPath(f, loose[nx] ?? 0, cx, loose[i] ?? 0, cy, loose[ny] ?? 0);
+        addPath(f, loose[nx] ?? 0, ANY, loose[i] ?? 0, ANY, loose[ny] ?? 0);
       }
     }
   }
@@ -179,12 +218,13 @@ export function queryScreen(plan: QueryPlan): Uint8Array {
   const exact = (i: number) => (certain[i] && certain[i].z >= 0 && certain[i].aromatic >= 0 ? certain[i].z * 2 + certain[i].aromatic : -1);
   const loose = (i: number) => (certain[i] && certain[i].z >= 0 ? elementOnly(certain[i].z) : -1);
   const inCycle = cycleMembership(bonds);
-  const f = new Features();
+  const f = counter;
+  f.reset(24 * n + 64);
   for (let i = 0; i < n; i++) {
     for (const l of [exact(i), loose(i)]) {
       if (l < 0) continue;
-      f.add([ATOM, l]);
-      if (inCycle.atoms.has(i)) f.add([RING_ATOM, l]);
+      f.add(ATOM, atomKey(ATOM, l));
+      if (inCycle.atoms.has(i)) f.add(RING_ATOM, atomKey(RING_ATOM, l));
     }
   }
   bonds.forEach(({ a, b, code }, k) => {
