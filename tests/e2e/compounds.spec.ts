@@ -13,6 +13,23 @@ async function registerSmiles(page: Page, text: string) {
   await page.getByRole("button", { name: "Register", exact: true }).click();
 }
 
+/** A V2000 MOL block written by hand (BIOVIA "CTfile Formats" 2020: counts, atom and bond lines at fixed columns). */
+function molBlock(title: string, atoms: [string, number, number][], bonds: [number, number, number][]): string {
+  const f = (v: number) => v.toFixed(4).padStart(10);
+  const n = (v: number) => String(v).padStart(3);
+  return [
+    title, "  hand-drawn", "",
+    `${n(atoms.length)}${n(bonds.length)}  0  0  0  0  0  0  0  0999 V2000`,
+    ...atoms.map(([el, x, y]) => `${f(x)}${f(y)}${f(0)} ${el.padEnd(3)} 0  0  0  0  0  0  0  0  0  0  0  0`),
+    ...bonds.map(([a, b, order]) => `${n(a)}${n(b)}${n(order)}  0`),
+    "M  END",
+  ].join("\n");
+}
+
+const ACETIC_ACID = molBlock("acetic acid", [["C", 0, 0], ["C", 1.299, 0.75], ["O", 1.299, 2.25], ["O", 2.598, 0]], [[1, 2, 1], [2, 3, 2], [2, 4, 1]]);
+const ETHYLAMINE = (bondTo: number) => molBlock("ethylamine", [["C", 0, 0], ["C", 1.299, 0.75], ["N", 2.598, 0]], [[1, 2, 1], [2, bondTo, 1]]);
+const sdf = (...blocks: string[]) => blocks.map((b) => `${b}\n$$$$\n`).join("");
+
 /** The image finished loading and is not a broken-image placeholder. */
 async function expectDrawn(page: Page, alt: string) {
   const image = page.getByAltText(alt).first();
@@ -95,6 +112,39 @@ test("a chemist registers compounds from SMILES, sees the depiction and estimate
   await expect(hits.first().getByRole("row").filter({ hasText: title })).toContainText(/pp|—/);
   await expectDrawn(page, "Structure of lidocaine");
   await expect(hits.filter({ hasText: "paracetamol" })).toHaveCount(0); // far below 0.3 from a lidocaine analogue
+});
+
+test("a chemist registers an SD file; a bad record is named by its number, title and line, and nothing is saved", async ({ page }) => {
+  await signIn(page, PEOPLE.memberA);
+  await page.goto("/compounds/new");
+  await page.getByLabel("A MOL or SD file").check();
+  const upload = (text: string) => page.getByLabel("MOL or SD file", { exact: true }).setInputFiles({ name: "batch.sdf", mimeType: "chemical/x-mdl-sdfile", buffer: Buffer.from(text) });
+
+  await upload(sdf(ACETIC_ACID, ETHYLAMINE(9)));
+  await page.getByRole("button", { name: "Register", exact: true }).click();
+  await expect(alert(page)).toContainText("Nothing was registered: 1 of 2 records needs attention.");
+  await expect(alert(page)).toContainText(/Record 2 “ethylamine” \(line \d+\): Line \d+: /);
+
+  await upload(sdf(ACETIC_ACID, ETHYLAMINE(3)));
+  await page.getByRole("button", { name: "Register", exact: true }).click();
+  await expect(page.getByRole("list", { name: "Registered compounds" }).getByRole("link")).toHaveText(["acetic acid", "ethylamine"]);
+  await page.getByRole("link", { name: "acetic acid" }).click();
+  await expect(page.getByRole("heading", { name: "acetic acid", level: 1 })).toBeVisible();
+  await expect(page.getByLabel("Canonical SMILES")).toHaveText("CC(=O)O");
+  await expectDrawn(page, "Structure of acetic acid");
+  await expect(page.getByTestId("sites").getByRole("row").filter({ hasText: "carboxylic acid" })).toContainText("estimated from structure");
+});
+
+test("an SD file over 1 MB is registered through the same checks", async ({ page }) => {
+  await signIn(page, PEOPLE.memberA);
+  await page.goto("/compounds/new");
+  await page.getByLabel("A MOL or SD file").check();
+  // One record carrying a long data item, as exports from instruments and inventories often do.
+  const padded = `${molBlock("propanoic acid", [["C", 0, 0], ["C", 1.299, 0.75], ["C", 2.598, 0], ["O", 2.598, -1.5], ["O", 3.897, 0.75]], [[1, 2, 1], [2, 3, 1], [3, 4, 2], [3, 5, 1]])}\n> <NOTES>\n${"batch record ".repeat(100_000)}\n\n$$$$\n`;
+  expect(padded.length).toBeGreaterThan(1_100_000);
+  await page.getByLabel("MOL or SD file", { exact: true }).setInputFiles({ name: "large.sdf", mimeType: "chemical/x-mdl-sdfile", buffer: Buffer.from(padded) });
+  await page.getByRole("button", { name: "Register", exact: true }).click();
+  await expect(page.getByRole("list", { name: "Registered compounds" }).getByRole("link")).toHaveText(["propanoic acid"]);
 });
 
 test("another group never sees the compounds: not in its search, and their pages answer not-found", async ({ page }) => {

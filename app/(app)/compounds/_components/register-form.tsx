@@ -3,10 +3,10 @@ import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, FieldErrors, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { registerCompoundsAction } from "@/lib/compounds/actions";
 import type { RegisterOutcome } from "@/lib/compounds/actions";
 import { type RegisterFormat } from "@/lib/compounds/schemas";
 import { RegisterReport } from "./register-report";
+import { sendRegistration } from "./register-request";
 
 type Source = "paste" | "file";
 
@@ -30,7 +30,7 @@ export function RegisterForm() {
     startTransition(async () => {
       setFailure(null);
       const body = source === "file" && file ? { format: formatOfFile(file.name), text: await file.text() } : { format: "smiles" as const, text };
-      const result = await registerCompoundsAction({ ...body, tags, onDuplicate });
+      const result = await sendRegistration({ ...body, tags, onDuplicate });
       if (result.ok) {
         setOutcome(result.data);
         if (result.data.status === "registered") {

@@ -1,6 +1,7 @@
 import { memberRoute } from "@/lib/authz/route";
 import { getDb } from "@/lib/db/client";
-import { BadRequestError, parseInput } from "@/lib/errors";
+import { readJsonBody } from "@/lib/api/body";
+import { parseInput } from "@/lib/errors";
 import { listCompounds } from "@/lib/compounds/queries";
 import { listCompoundsSchema, registerCompoundsSchema, searchSchema } from "@/lib/compounds/schemas";
 import { compoundSearch } from "@/lib/compounds/search-service";
@@ -21,15 +22,15 @@ export const GET = memberRoute("data:read", async (request, { member }) => {
   return Response.json(await listCompounds(db, member.group.id, parseInput(listCompoundsSchema, params)));
 });
 
+/** A JSON body holding the largest accepted text (MAX_REGISTER_TEXT characters) with room for escaping. */
+const REGISTER_BODY_LIMIT = 20 * 1024 * 1024 + 64 * 1024;
+
 /**
  * POST /api/v1/compounds  { format: "smiles" | "sdf" | "mol", text, tags?, onDuplicate?: "reject" | "skip" }
- * 201 { created, skipped }; 422 with `records` naming every record that stopped the batch (nothing is written).
+ * 201 { created, skipped }; 413 over 20 MB; 422 with `records` naming every record that stopped the batch (nothing is written).
  */
 export const POST = memberRoute("data:write", async (request, { member }) => {
-  const body: unknown = await request.json().catch(() => {
-    throw new BadRequestError("Send a JSON body: { format, text, tags?, onDuplicate? }.");
-  });
-  const input = parseInput(registerCompoundsSchema, body);
+  const input = parseInput(registerCompoundsSchema, await readJsonBody(request, REGISTER_BODY_LIMIT));
   try {
     const result = await registerCompounds(await getDb(), { groupId: member.group.id, userId: member.user.id }, input);
     return Response.json(result, { status: 201 });
