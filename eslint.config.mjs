@@ -7,7 +7,7 @@ export default tseslint.config(
   {
     ignores: [
       "node_modules/**", ".next/**", "generated/**", "data/**", "test-results/**", "playwright-report/**",
-      "next-env.d.ts", "**/*.mjs", "**/*.cjs", ".tmp/**",
+      "next-env.d.ts", "**/*.mjs", "**/*.cjs", ".tmp/**", ".tmp-*", "**/*.tmp.ts",
     ],
   },
   js.configs.recommended,
