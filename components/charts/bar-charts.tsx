@@ -1,8 +1,9 @@
 "use client";
 // The distribution of deviations, and the mean deviation of each group of a factor with its n beside it
 // (workup-practice §6 view 3: "always show n per group").
-import { Bar, BarChart, CartesianGrid, Cell, LabelList, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { ABOVE_COLOR, BELOW_COLOR, MUTED_COLOR, PRINT_WIDTH } from "./palette";
+import { niceStep } from "./scale";
 
 export interface Bin {
   from: number;
@@ -26,6 +27,12 @@ export function DeviationHistogram({ bins }: { bins: Bin[] }) {
   );
 }
 
+/** A category label on one line (Recharts wraps long labels at the axis width). */
+function CategoryTick(props: unknown) {
+  const { x, y, payload } = props as { x?: number; y?: number; payload?: { value?: string | number } };
+  return <text x={x} y={y} dx={-6} textAnchor="end" dominantBaseline="middle" fontSize={12} fill="#44403c">{payload?.value ?? ""}</text>;
+}
+
 export interface GroupBar {
   label: string;
   mean: number;
@@ -35,18 +42,20 @@ export interface GroupBar {
 
 export function GroupMeanChart({ groups }: { groups: GroupBar[] }) {
   const data = groups.map((g) => ({ ...g, name: `${g.label} (n = ${g.n})` }));
-  const extent = Math.max(10, ...data.map((d) => Math.abs(d.mean))) * 1.15;
+  // A symmetric axis on round numbers, so that zero sits in the middle and the ticks read easily.
+  const step = niceStep(Math.max(10, ...data.map((d) => Math.abs(d.mean))) / 2);
+  const extent = 2 * step * Math.ceil(Math.max(10, ...data.map((d) => Math.abs(d.mean))) / (2 * step) + 0.05);
+  const ticks = Array.from({ length: Math.round((2 * extent) / step) + 1 }, (_, i) => -extent + i * step);
   return (
     <BarChart width={PRINT_WIDTH} height={Math.max(120, 34 * data.length + 60)} data={data} layout="vertical" margin={{ top: 10, right: 50, bottom: 25, left: 10 }} accessibilityLayer>
       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" horizontal={false} />
-      <XAxis type="number" domain={[-extent, extent]} tickFormatter={(v: number) => v.toFixed(0)}
+      <XAxis type="number" domain={[-extent, extent]} ticks={ticks} tickFormatter={(v: number) => v.toFixed(0)}
         label={{ value: "Mean deviation (percentage points)", position: "insideBottom", offset: -15 }} />
-      <YAxis type="category" dataKey="name" width={210} tick={{ fontSize: 12 }} />
+      <YAxis type="category" dataKey="name" width={250} tick={CategoryTick} />
       <ReferenceLine x={0} stroke="#57534e" />
       <Tooltip formatter={(value) => [typeof value === "number" ? `${value.toFixed(1)} points` : String(value), "mean deviation"]} />
       <Bar dataKey="mean" isAnimationActive={false}>
         {data.map((d) => <Cell key={d.name} fill={d.few ? MUTED_COLOR : d.mean < 0 ? BELOW_COLOR : ABOVE_COLOR} />)}
-        <LabelList dataKey="mean" position="right" formatter={(v: unknown) => (typeof v === "number" ? v.toFixed(1) : "")} style={{ fontSize: 11 }} />
       </Bar>
     </BarChart>
   );

@@ -17,21 +17,59 @@ export function downloadCsv(filename: string, rows: readonly (readonly CsvCell[]
   downloadBlob(filename, new Blob([toCsv(rows)], { type: "text/csv;charset=utf-8" }));
 }
 
-/** The chart's SVG as a standalone document: explicit size, white background, the page's font. */
+const SVG_NS = "http://www.w3.org/2000/svg";
+const LEGEND_ROW = 24;
+
+/** The chart's own drawing surface (legend icons are small svg elements of their own, inside the HTML legend). */
+function chartSurface(root: HTMLElement): SVGSVGElement | null {
+  return root.querySelector<SVGSVGElement>(".recharts-wrapper > svg.recharts-surface") ?? root.querySelector<SVGSVGElement>("svg");
+}
+
+/** Recharts draws its legend in HTML beside the SVG; an exported image needs it inside. */
+function legendItems(root: HTMLElement): { label: string; color: string }[] {
+  return [...root.querySelectorAll<HTMLElement>(".recharts-legend-item")].map((item) => ({
+    label: item.textContent?.trim() ?? "",
+    color: item.querySelector("path, rect, circle")?.getAttribute("fill") ?? "#000000",
+  }));
+}
+
+/** The chart's SVG as a standalone document: explicit size, white background, the page's font, its legend inside. */
 export function svgMarkup(root: HTMLElement): { markup: string; width: number; height: number } | null {
-  const svg = root.querySelector<SVGSVGElement>("svg.recharts-surface") ?? root.querySelector<SVGSVGElement>("svg");
+  const svg = chartSurface(root);
   if (!svg) return null;
-  const { width, height } = svg.getBoundingClientRect();
+  const { width, height: chartHeight } = svg.getBoundingClientRect();
+  const legend = legendItems(root);
+  const offset = legend.length > 0 ? LEGEND_ROW : 0;
+  const height = chartHeight + offset;
   const copy = svg.cloneNode(true) as SVGSVGElement;
-  copy.setAttribute("xmlns", "http://www.w3.org/2000/svg");
+  copy.setAttribute("xmlns", SVG_NS);
   copy.setAttribute("width", String(Math.round(width)));
   copy.setAttribute("height", String(Math.round(height)));
+  copy.setAttribute("viewBox", `0 0 ${Math.round(width)} ${Math.round(height)}`);
   copy.setAttribute("style", `font-family: ${getComputedStyle(root).fontFamily}; font-size: 12px; background: #fff`);
-  const background = document.createElementNS("http://www.w3.org/2000/svg", "rect");
+  const body = document.createElementNS(SVG_NS, "g");
+  body.setAttribute("transform", `translate(0, ${offset})`);
+  while (copy.firstChild) body.appendChild(copy.firstChild);
+  const background = document.createElementNS(SVG_NS, "rect");
   background.setAttribute("width", "100%");
   background.setAttribute("height", "100%");
   background.setAttribute("fill", "#ffffff");
-  copy.insertBefore(background, copy.firstChild);
+  copy.append(background, body);
+  let x = 60;
+  for (const item of legend) {
+    const dot = document.createElementNS(SVG_NS, "circle");
+    dot.setAttribute("cx", String(x));
+    dot.setAttribute("cy", "14");
+    dot.setAttribute("r", "5");
+    dot.setAttribute("fill", item.color);
+    const text = document.createElementNS(SVG_NS, "text");
+    text.setAttribute("x", String(x + 9));
+    text.setAttribute("y", "18");
+    text.setAttribute("fill", "#292524");
+    text.textContent = item.label;
+    copy.append(dot, text);
+    x += 24 + item.label.length * 7;
+  }
   return { markup: new XMLSerializer().serializeToString(copy), width, height };
 }
 

@@ -44,10 +44,10 @@ export function ParityChart({ points, seriesLabel }: { points: ParityPoint[]; se
   return (
     <ScatterChart width={PRINT_WIDTH} height={440} margin={{ top: 10, right: 20, bottom: 30, left: 10 }} accessibilityLayer>
       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" />
-      <XAxis type="number" dataKey="predicted" name="Predicted" unit=" %" domain={[0, LIMIT]} ticks={[0, 20, 40, 60, 80, 100]}
+      <XAxis type="number" dataKey="predicted" name="Predicted" domain={[0, LIMIT]} ticks={[0, 20, 40, 60, 80, 100]}
         label={{ value: "Predicted recovery (%)", position: "insideBottom", offset: -15 }} />
-      <YAxis type="number" dataKey="reported" name="Reported" unit=" %" domain={[0, LIMIT]} ticks={[0, 20, 40, 60, 80, 100]}
-        label={{ value: "Reported recovery (%)", angle: -90, position: "insideLeft", offset: 10 }} />
+      <YAxis type="number" dataKey="reported" name="Reported" domain={[0, LIMIT]} ticks={[0, 20, 40, 60, 80, 100]} width={50}
+        label={{ value: "Reported recovery (%)", angle: -90, position: "insideLeft", style: { textAnchor: "middle" }, dy: 0, dx: 5 }} />
       <ReferenceLine segment={[{ x: 0, y: 0 }, { x: LIMIT, y: LIMIT }]} stroke="#57534e" ifOverflow="hidden" />
       <ReferenceLine segment={[{ x: 0, y: 10 }, { x: LIMIT - 10, y: LIMIT }]} stroke="#a8a29e" strokeDasharray="4 4" ifOverflow="hidden" />
       <ReferenceLine segment={[{ x: 10, y: 0 }, { x: LIMIT, y: LIMIT - 10 }]} stroke="#a8a29e" strokeDasharray="4 4" ifOverflow="hidden" />

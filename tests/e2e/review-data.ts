@@ -42,12 +42,15 @@ export async function me(request: APIRequestContext): Promise<{ id: string; name
   return ((await response.json()) as { user: { id: string; name: string } }).user;
 }
 
-/** Saves the workup and reports `recovery` of the product (qNMR, or weight only). Returns the workup id. */
-export async function workupWithOutcome(request: APIRequestContext, o: ExtractionOptions, recovery: number, options: { compoundId?: string; weightOnly?: boolean } = {}): Promise<string> {
+/**
+ * Saves the workup and reports a recovery of `factor` times the predicted one (qNMR, or weight only): 1 is as
+ * predicted, 0.6 a clear shortfall. Returns the workup id.
+ */
+export async function workupWithOutcome(request: APIRequestContext, o: ExtractionOptions, factor: number, options: { compoundId?: string; weightOnly?: boolean } = {}): Promise<string> {
   const saved = await request.post("/api/v1/workups", { data: extractionBody(o, options.compoundId) });
   expect(saved.status(), await saved.text()).toBe(201);
-  const { id } = (await saved.json()) as { id: string };
-  const mg = recovery * 5 * MOLAR_MASS;
+  const { id, prediction } = (await saved.json()) as { id: string; prediction: { productRecovery: number } };
+  const mg = prediction.productRecovery * factor * 5 * MOLAR_MASS;
   const outcome = await request.post(`/api/v1/workups/${id}/outcome`, {
     data: options.weightOnly
       ? { isolatedMassMg: Number(mg.toFixed(1)), purityMethod: "weight_only" }

@@ -19,6 +19,8 @@ export interface ReviewViewsProps {
 }
 
 const fmt = (v: number | null, digits = 1) => (v === null ? "" : v.toFixed(digits));
+/** A change that would lose more than the whole shortfall overshoots: say so rather than print "247 %". */
+const gapShare = (share: number) => (share > 1.05 ? "more than the whole gap" : `${(100 * share).toFixed(0)} % of the gap`);
 
 function GroupTable({ stats, factor }: { stats: GroupStat[]; factor: string }) {
   return (
@@ -105,7 +107,7 @@ export function ReviewViews(props: ReviewViewsProps) {
         description="Flagged when the recovery fell below the predicted interval or the engine saw a danger. Likely causes are ranked by the share of the gap each explains."
         csv={[["rank", "workup_id", "title", "performed_on", "solvent_system", "predicted_pct", "reported_pct", "deviation_points", "likely_causes", "danger_flags"],
           ...flagged.map((r, i) => [i + 1, r.id, r.title, r.performedOn, r.solventSystem, r.predicted, r.reported, r.deviationPct,
-            r.causes.map((c) => `${c.title} (${(100 * c.share).toFixed(0)} %)`).join("; "), r.dangerFlags.join(" ")])]}
+            r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; "), r.dangerFlags.join(" ")])]}
         fileBase="flagged-workups">
         {flagged.length === 0 ? <p className="text-sm text-stone-500">Nothing flagged in this selection.</p> : (
           <ol className="divide-y divide-stone-100" data-testid="flagged-list">
@@ -120,7 +122,7 @@ export function ReviewViews(props: ReviewViewsProps) {
                     {r.dangerFlags.length > 0 ? `; danger flags ${r.dangerFlags.join(", ")}` : ""}
                   </p>
                   {r.causes.length > 0 ? (
-                    <p className="text-xs text-stone-500">Likely causes: {r.causes.map((c) => `${c.title} (${(100 * c.share).toFixed(0)} % of the gap)`).join("; ")}</p>
+                    <p className="text-xs text-stone-500">Likely causes: {r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; ")}</p>
                   ) : null}
                 </div>
               </li>
