@@ -48,11 +48,11 @@ export function recoveryAt(logK: number): number {
  * A workup extracting 5 mmol acetanilide (assayed before the workup, so the reported recovery is the work-up's own)
  * whose reported qNMR outcome is what the engine gives at `trueLogK`.
  */
-export async function workupWithOutcome(db: Db, lab: Lab, compoundId: string, trueLogK: number | null, title = "Acetanilide into EtOAc") {
+export async function workupWithOutcome(db: Db, lab: Lab, compoundId: string | null, trueLogK: number | null, title = "Acetanilide into EtOAc", headerOverrides: Record<string, unknown> = {}) {
   const saved = await createWorkup(db, lab.member, {
-    header: header({ title, assayedProductMmol: 5 }),
+    header: header({ title, assayedProductMmol: 5, ...headerOverrides }),
     spec: extractionSpec(),
-    links: [{ key: ACETANILIDE.key, compoundId }],
+    links: compoundId ? [{ key: ACETANILIDE.key, compoundId }] : [],
   }, { draws: TEST_DRAWS });
   if (trueLogK !== null) {
     const mg = recoveryAt(trueLogK) * 5 * ACETANILIDE.molarMass;
