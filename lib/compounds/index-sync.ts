@@ -46,7 +46,7 @@ const KEYS_PER_SLICE = 250;
 
 export class GroupIndexSync {
   private readonly groups = new Map<string, GroupState>();
-  private readonly inFlight = new Map<string, Promise<void>>();
+  private readonly flights = new Map<string, { running: Promise<void>; queued?: Promise<void> }>();
   private readonly windowMs: number;
   private readonly countCheckMs: number;
 
@@ -59,13 +59,23 @@ export class GroupIndexSync {
     this.countCheckMs = options.countCheckMs ?? 60_000;
   }
 
-  /** Brings one group up to date; concurrent callers for the same group share one round trip. */
+  /**
+   * Brings one group up to date. A caller arriving while a read is in flight cannot use that read (its snapshot may
+   * predate the caller's request), so it waits for one follow-up read, shared by everyone who arrived meanwhile.
+   */
   refresh(db: Db, groupId: string): Promise<void> {
-    let running = this.inFlight.get(groupId);
-    if (!running) {
-      running = this.pull(db, groupId).finally(() => this.inFlight.delete(groupId));
-      this.inFlight.set(groupId, running);
-    }
+    const flight = this.flights.get(groupId);
+    if (!flight) return this.start(db, groupId);
+    flight.queued ??= flight.running.catch(() => undefined).then(() => this.start(db, groupId));
+    return flight.queued;
+  }
+
+  private start(db: Db, groupId: string): Promise<void> {
+    const running: Promise<void> = this.pull(db, groupId).finally(() => {
+      const flight = this.flights.get(groupId);
+      if (flight?.running === running && !flight.queued) this.flights.delete(groupId);
+    });
+    this.flights.set(groupId, { running });
     return running;
   }
 

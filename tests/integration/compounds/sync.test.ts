@@ -89,6 +89,22 @@ describeEachDatabase("search index sync between app instances", (t) => {
     expect(one.indexedIds(actor.groupId)).toEqual([old.id]);
   });
 
+  it("a search that arrives while another's read is in flight still sees a compound registered before it", async () => {
+    const actor = await makeActor(t.db);
+    await register(t.db, actor, "CCOC(=O)CC ethyl propanoate");
+    let release = () => undefined as void;
+    const gate = new Promise<void>((resolve) => (release = resolve));
+    // Holds the first read at its RDKit step, after its snapshot was taken.
+    const one = new CompoundSearchService({ rdkit: () => gate.then(() => loadRDKit()) });
+    const first = idsOf(one, t.db, actor, "CCCOC(=O)CC");
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    const { created } = await register(other, actor, "CCCOC(=O)CC propyl propanoate");
+    const second = idsOf(one, t.db, actor, "CCCOC(=O)CC");
+    release();
+    expect(await first).toEqual([]);
+    expect(await second).toEqual([created[0]!.id]);
+  });
+
   it("both instances agree with a brute-force scan after a random run of registrations and deletions", async () => {
     const actor = await makeActor(t.db);
     const instances = [{ service: new CompoundSearchService(), db: t.db }, { service: new CompoundSearchService(), db: other }];
