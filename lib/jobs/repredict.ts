@@ -21,6 +21,8 @@ export interface Reprediction {
   analysis: OutcomeAnalysis | null;
   state: { flagged: boolean; status: DeviationStatus; deviationPct: number | null };
   wasFlagged: boolean;
+  /** Kept as it was: "last changed" on a workup means a person's edit, not a re-validation. */
+  updatedAt: Date;
 }
 
 export interface RepredictionPlan {
@@ -36,7 +38,7 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
     where: { groupId, id: { in: [...workupIds] } },
     orderBy: { id: "asc" },
     select: {
-      id: true, version: true, spec: true, flagged: true, assayedProductMmol: true, expectedProductMmol: true,
+      id: true, version: true, spec: true, flagged: true, updatedAt: true, assayedProductMmol: true, expectedProductMmol: true,
       components: { where: { groupId }, select: { key: true, compoundId: true } },
       outcome: { select: { id: true, isolatedMassMg: true, purityPct: true } },
     },
@@ -54,7 +56,7 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
       const state = analysis
         ? { flagged: analysis.flagged, status: analysis.deviation.status, deviationPct: analysis.deviation.deviationPct }
         : { flagged: isFlagged("unknown", flags), status: "unknown" as const, deviationPct: null };
-      out.plans.push({ workupId: w.id, version: w.version, computed, outcomeId: w.outcome?.id ?? null, analysis, state, wasFlagged: w.flagged });
+      out.plans.push({ workupId: w.id, version: w.version, computed, outcomeId: w.outcome?.id ?? null, analysis, state, wasFlagged: w.flagged, updatedAt: w.updatedAt });
     } catch (error) {
       out.failures.push({ workupId: w.id, message: error instanceof Error ? error.message.slice(0, 300) : "prediction failed" });
     }
@@ -71,7 +73,7 @@ export async function applyRepredictions(tx: DbTransaction, groupId: string, pla
   let applied = 0;
   let flagChanges = 0;
   for (const p of plans) {
-    const { count } = await tx.workup.updateMany({ where: { id: p.workupId, groupId, version: p.version }, data: p.state });
+    const { count } = await tx.workup.updateMany({ where: { id: p.workupId, groupId, version: p.version }, data: { ...p.state, updatedAt: p.updatedAt } });
     if (count === 0) continue;
     applied++;
     if (p.state.flagged !== p.wasFlagged) flagChanges++;
