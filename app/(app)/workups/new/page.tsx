@@ -4,6 +4,7 @@ import { getDb } from "@/lib/db/client";
 import { getWorkupDetail } from "@/lib/workups/queries";
 import { NotFoundError } from "@/lib/errors";
 import { WorkupEditor } from "@/components/workup/editor/workup-editor";
+import { snapshotOfDetail } from "@/components/workup/editor/snapshot";
 import { editorStateOf, emptyEditorState } from "@/lib/workups-client/from-spec";
 import { editorContext, todayUtc } from "../_lib/editor-data";
 
@@ -26,7 +27,7 @@ export default async function NewWorkupPage({ searchParams }: { searchParams: Pr
   const { members, library } = await editorContext(member);
   const source = copy ? await copySource(member.group.id, copy) : null;
   const initial = source
-    ? editorStateOf({ ...source.header, title: `${source.header.title} (copy)`, performedOn: todayUtc(), chemistId: member.user.id }, source.spec, [])
+    ? editorStateOf({ ...source.header, title: `${source.header.title} (copy)`, performedOn: todayUtc(), chemistId: member.user.id }, source.spec, snapshotOfDetail(source).links)
     : emptyEditorState(todayUtc(), member.user.id);
   return (
     <>
