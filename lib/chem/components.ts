@@ -1,11 +1,13 @@
 /**
  * Numeric form of the mixture's components for one simulation: acid and base dissociation constants, log K of
- * the neutral form in each organic solvent the work-up uses, Setschenow and cosolvency constants. Rebuilt on
- * every simulate call (Monte-Carlo draws change log P and pKa), over the compiled library's solvents, which are
- * only those the work-up uses.
+ * the neutral form in each organic solvent the work-up uses, Setschenow and cosolvency constants, over the
+ * compiled library's solvents (only those the work-up uses). Refilled in place from the work-up's parameters on
+ * every run: Monte-Carlo draws change log P, log K and pKa, and the arithmetic is a few dozen operations.
  */
-import { type CompiledLibrary } from "./library";
-import { cosolvencyPower, effectiveLogP, setschenowConstant, solventLogK } from "./partition";
+import { type SolventProps } from "./data/solvents";
+import { type CompiledLibrary, type Library } from "./library";
+import { emptyParameters, readComponentParameters, type WorkupParameters } from "./parameters";
+import { collanderLogK, cosolvencyPower, setschenowConstant } from "./partition";
 import { type Component } from "./schema";
 
 export interface CompiledComponents {
@@ -27,71 +29,108 @@ export interface CompiledComponents {
   lipophilicCounterIon: Uint8Array;
 }
 
-interface ComponentEntry {
-  acidKa: Float64Array;
-  baseKa: Float64Array;
-  setschenow: number;
-  logK: Float64Array;
-  sigma: Float64Array;
+/** Allocates the arrays for `n` components over the compiled library's solvents. */
+export function allocateComponents(n: number, lib: CompiledLibrary): CompiledComponents {
+  const ns = lib.solventKeys.length;
+  return {
+    count: n, keys: [], startMmol: new Float64Array(n), molarMass: new Float64Array(n), acidKa: [], baseKa: [],
+    fixedCharge: new Int8Array(n), logK: new Float64Array(n * ns), sigma: new Float64Array(n * ns),
+    setschenow: new Float64Array(n), ionOffset: new Float64Array(n), lipophilicCounterIon: new Uint8Array(n),
+  };
 }
 
-/** Per-component constants cached by component object and compiled library: Monte-Carlo draws rebuild only the
- * components they perturb, so the rest are compiled once. */
-const cache = new WeakMap<Component, WeakMap<CompiledLibrary, ComponentEntry>>();
-
-function componentEntry(c: Component, lib: CompiledLibrary): ComponentEntry {
-  let byLib = cache.get(c);
-  const hit = byLib?.get(lib);
-  if (hit) return hit;
-  const ns = lib.solventKeys.length;
-  const logP = effectiveLogP(c, lib.lib.solvents)?.value ?? 0;
-  const entry: ComponentEntry = {
-    acidKa: Float64Array.from(c.pKas.filter((p) => p.kind === "acid"), (p) => 10 ** -p.value),
-    baseKa: Float64Array.from(c.pKas.filter((p) => p.kind === "base"), (p) => 10 ** -p.value),
-    setschenow: c.setschenowK ?? setschenowConstant(logP),
-    logK: new Float64Array(ns).fill(Number.NaN),
-    sigma: new Float64Array(ns),
-  };
-  for (let i = 1; i < ns; i++) {
-    const s = lib.solvents[i];
-    if (!s) continue;
-    if (s.waterMiscible) entry.sigma[i] = cosolvencyPower(logP, s);
-    else entry.logK[i] = solventLogK(c, s, lib.lib.solvents)?.value ?? logP;
+/** The component's own log K for solvent `key` from the parameters, or NaN. */
+function ownLogK(c: Component, key: string, p: WorkupParameters, start: number): number {
+  let j = start;
+  for (const k in c.logK) {
+    if (!Object.hasOwn(c.logK, k)) continue;
+    if (k === key) return p.logK[j] as number;
+    j++;
   }
-  if (!byLib) { byLib = new WeakMap(); cache.set(c, byLib); }
-  byLib.set(lib, entry);
-  return entry;
+  return Number.NaN;
+}
+
+/**
+ * log P from the parameters, or one back-calculated from the first own log K whose solvent has a Collander line;
+ * NaN when neither exists. The same arithmetic as effectiveLogP (partition.ts), on the parameter values.
+ */
+function parameterLogP(c: Component, ci: number, p: WorkupParameters, solvents: Library["solvents"], donor: boolean): number {
+  const logP = p.logP[ci] as number;
+  if (c.logP) return logP;
+  let j = p.logKStart[ci] as number;
+  for (const k in c.logK) {
+    if (!Object.hasOwn(c.logK, k)) continue;
+    const line = solvents[k]?.partition;
+    if (line) {
+      const l = donor ? line.donor : line.acceptor;
+      return ((p.logK[j] as number) - l.b) / l.a;
+    }
+    j++;
+  }
+  return Number.NaN;
+}
+
+/**
+ * Fills every component's constants from its structure (`components`) and the numbers in `p`: acid and base
+ * dissociation constants, log K of the neutral form in each immiscible solvent (own value, else the Collander
+ * line from log P), cosolvency powers and Setschenow constants. No allocation once the arrays are sized.
+ */
+export function fillComponents(out: CompiledComponents, components: readonly Component[], p: WorkupParameters, lib: CompiledLibrary): void {
+  const ns = lib.solventKeys.length;
+  for (let ci = 0; ci < components.length; ci++) {
+    const c = components[ci] as Component;
+    if (out.keys[ci] !== c.key) out.keys[ci] = c.key;
+    out.startMmol[ci] = p.amountMmol[ci] as number;
+    out.molarMass[ci] = c.molarMass;
+    out.fixedCharge[ci] = c.fixedCharge;
+    out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
+    out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" ? 1 : 0;
+    const q0 = p.pKaStart[ci] as number;
+    let nAcid = 0;
+    for (const pk of c.pKas) if (pk.kind === "acid") nAcid++;
+    const acid = sizedKa(out.acidKa, ci, nAcid);
+    const base = sizedKa(out.baseKa, ci, c.pKas.length - nAcid);
+    let a = 0, b = 0;
+    for (let j = 0; j < c.pKas.length; j++) {
+      const ka = Math.exp(-(p.pKa[q0 + j] as number) * Math.LN10);
+      if ((c.pKas[j] as Component["pKas"][number]).kind === "acid") acid[a++] = ka; else base[b++] = ka;
+    }
+    const donor = nAcid > 0;
+    const effective = parameterLogP(c, ci, p, lib.lib.solvents, donor);
+    const logP = Number.isNaN(effective) ? 0 : effective;
+    out.setschenow[ci] = c.setschenowK ?? setschenowConstant(logP);
+    const k0 = p.logKStart[ci] as number;
+    const row = ci * ns;
+    out.logK[row] = Number.NaN;
+    out.sigma[row] = 0;
+    for (let i = 1; i < ns; i++) {
+      const s = lib.solvents[i] as SolventProps;
+      if (s.waterMiscible) {
+        out.sigma[row + i] = cosolvencyPower(logP, s);
+        out.logK[row + i] = Number.NaN;
+        continue;
+      }
+      out.sigma[row + i] = 0;
+      const own = ownLogK(c, s.key, p, k0);
+      out.logK[row + i] = !Number.isNaN(own) ? own
+        : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
+    }
+  }
+  out.keys.length = components.length;
+}
+
+function sizedKa(list: Float64Array[], i: number, n: number): Float64Array {
+  const hit = list[i];
+  if (hit && hit.length === n) return hit;
+  const fresh = new Float64Array(n);
+  list[i] = fresh;
+  return fresh;
 }
 
 export function compileComponents(components: readonly Component[], lib: CompiledLibrary): CompiledComponents {
-  const n = components.length;
-  const ns = lib.solventKeys.length;
-  const out: CompiledComponents = {
-    count: n,
-    keys: components.map((c) => c.key),
-    startMmol: new Float64Array(n),
-    molarMass: new Float64Array(n),
-    acidKa: [],
-    baseKa: [],
-    fixedCharge: new Int8Array(n),
-    logK: new Float64Array(n * ns),
-    sigma: new Float64Array(n * ns),
-    setschenow: new Float64Array(n),
-    ionOffset: new Float64Array(n),
-    lipophilicCounterIon: new Uint8Array(n),
-  };
-  components.forEach((c, ci) => {
-    const e = componentEntry(c, lib);
-    out.startMmol[ci] = c.amountMmol;
-    out.molarMass[ci] = c.molarMass;
-    out.acidKa.push(e.acidKa);
-    out.baseKa.push(e.baseKa);
-    out.fixedCharge[ci] = c.fixedCharge;
-    out.setschenow[ci] = e.setschenow;
-    out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
-    out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" ? 1 : 0;
-    out.logK.set(e.logK, ci * ns);
-    out.sigma.set(e.sigma, ci * ns);
-  });
+  const out = allocateComponents(components.length, lib);
+  const p = emptyParameters();
+  readComponentParameters(components, p);
+  fillComponents(out, components, p, lib);
   return out;
 }

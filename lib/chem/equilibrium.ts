@@ -4,18 +4,22 @@
  * values, an assumption), salting out and cosolvency (partition.ts), then the pH by charge balance with every
  * component distributing between the layers inside the residual (aqueous.ts). CO₂ above saturation leaves as
  * gas and the pH is solved again. Results stay in the instance (typed arrays reused between contacts).
+ * The charge balance is solved by safeguarded Newton steps on its analytic slope (aqueous.ts): from the pH of
+ * the previous contact, or of the same contact in the previous Monte-Carlo draw, it needs three to five
+ * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
  */
-import { co2Excess, KW, solvePh, systemMeanCharge, type ChargeBalance } from "./aqueous";
+import { co2Excess, KW, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
-import { CARBONATE, N_SYSTEMS, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
+import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
 import { PhaseSplit } from "./phases";
 import { DEFAULT_ION_LOGK_OFFSET } from "./speciation";
 import { copyInto, type Stream } from "./stream";
 
-const reusable = new WeakMap<CompiledLibrary, Equilibrator>();
+/** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
+const SYSTEM_Z2_WEIGHT = Float64Array.from(SYSTEM_Z0, (z0) => Math.max(1, z0 * z0));
 
-export class Equilibrator implements ChargeBalance {
+export class Equilibrator implements SlopedChargeBalance {
   readonly phases: PhaseSplit;
   kNeutral: Float64Array;
   kIon: Float64Array;
@@ -25,8 +29,12 @@ export class Equilibrator implements ChargeBalance {
   fractionAqueous: Float64Array;
   pH = NaN;
   co2Mmol = 0;
-  /** Last solved pH, the starting guess for the next contact. */
-  private lastSolved = NaN;
+  /** d(residual)/d(pH) at the last evaluated pH. */
+  slope = 0;
+  /** Last solved pH, the starting guess for the next contact unless the caller gives one. */
+  lastSolved = NaN;
+  /** pH of the last contact before CO₂ above saturation left (equal to pH when none did). */
+  phBeforeGas = NaN;
   private systemTotals = new Float64Array(N_SYSTEMS);
   /** Indices of the acid–base systems present in this contact, and how many. */
   private active = new Int32Array(N_SYSTEMS);
@@ -35,9 +43,15 @@ export class Equilibrator implements ChargeBalance {
   private va = 0;
   private vo = 0;
   private amounts: Float64Array;
-  private comps: CompiledComponents;
+  /** K_ion/K_neutral of components that state their own ion offset; the last solvent offset and its power. */
+  private ownIonFactor: Float64Array;
+  private lastOffset = Number.NaN;
+  private lastOffsetFactor = Number.NaN;
+  /** Components with an acidic or basic site, and how many. */
+  private charged: Int32Array;
+  private nCharged = 0;
 
-  private constructor(private readonly lib: CompiledLibrary, comps: CompiledComponents) {
+  constructor(private readonly lib: CompiledLibrary, private readonly comps: CompiledComponents) {
     this.phases = new PhaseSplit(lib);
     this.comps = comps;
     const n = comps.count;
@@ -47,36 +61,46 @@ export class Equilibrator implements ChargeBalance {
     this.fractionNeutral = new Float64Array(n);
     this.fractionAqueous = new Float64Array(n);
     this.amounts = new Float64Array(n);
+    this.charged = new Int32Array(n);
+    this.ownIonFactor = new Float64Array(n);
   }
 
-  /** An equilibrator for this library and these components; one instance is reused per compiled library
-   * (simulations run synchronously, one at a time) to save allocations on the Monte-Carlo path. */
-  static for(lib: CompiledLibrary, comps: CompiledComponents): Equilibrator {
-    const hit = reusable.get(lib);
-    if (hit && hit.amounts.length === comps.count) {
-      hit.comps = comps;
-      return hit;
+  /** 10^x, remembered for the last x: contacts mostly share the organic layer's ion offset. */
+  private tenTo(x: number): number {
+    if (x !== this.lastOffset) {
+      this.lastOffset = x;
+      this.lastOffsetFactor = Math.exp(x * Math.LN10);
     }
-    const eq = new Equilibrator(lib, comps);
-    reusable.set(lib, eq);
-    return eq;
+    return this.lastOffsetFactor;
   }
 
-  /** Equilibrates `mix` and writes the two layers into `org` and `aq`, which must be new (empty) streams. */
-  equilibrate(mix: Stream, org: Stream, aq: Stream): void {
+  /** Call after the components' constants change: lists the components that can carry a charge. */
+  componentsChanged(): void {
+    const { comps } = this;
+    this.nCharged = 0;
+    for (let c = 0; c < comps.count; c++) {
+      const own = comps.ionOffset[c] as number;
+      this.ownIonFactor[c] = Number.isNaN(own) ? Number.NaN : Math.exp(own * Math.LN10);
+      if ((comps.acidKa[c] as Float64Array).length + (comps.baseKa[c] as Float64Array).length > 0) this.charged[this.nCharged++] = c;
+    }
+  }
+
+  /**
+   * Equilibrates `mix` and writes the two layers into `org` and `aq`, which must be empty streams. `guess` is
+   * where the pH search starts (default: the last solved pH), `guessAfterGas` where the search after CO₂ loss
+   * starts (default: the pH before it).
+   */
+  equilibrate(mix: Stream, org: Stream, aq: Stream, guess = this.lastSolved, guessAfterGas = Number.NaN): void {
     const { phases, comps } = this;
     let sysZ2 = 0;
-    for (let s = 0; s < N_SYSTEMS; s++) {
-      const z0 = SYSTEM_Z0[s] as number;
-      sysZ2 += (mix.sys[s] as number) * Math.max(1, z0 * z0);
-    }
+    for (let s = 0; s < N_SYSTEMS; s++) sysZ2 += (mix.sys[s] as number) * (SYSTEM_Z2_WEIGHT[s] as number);
     phases.split(mix, sysZ2);
     copyInto(org.solv, phases.org);
     copyInto(aq.solv, phases.aq);
     this.va = phases.hasAqueous ? phases.aqueousVolume : 0;
     this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
     this.co2Mmol = 0;
-    this.amounts.set(mix.comp);
+    copyInto(this.amounts, mix.comp);
     if (!phases.hasAqueous) {
       copyInto(org.comp, mix.comp);
       this.pH = NaN;
@@ -86,21 +110,22 @@ export class Equilibrator implements ChargeBalance {
       return;
     }
     this.setPartition();
-    this.systemTotals.set(mix.sys);
+    copyInto(this.systemTotals, mix.sys);
     this.nActive = 0;
     for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) if ((mix.sys[sIdx] as number) > 0) this.active[this.nActive++] = sIdx;
     this.strongConc = mix.strongCharge / this.va;
-    this.pH = solvePh(this, this.lastSolved);
+    this.pH = solvePhWithSlope(this, guess);
+    this.phBeforeGas = this.pH;
     const carb = this.systemTotals[CARBONATE] as number;
     if (carb > 0) {
-      const excess = co2Excess(carb, this.va, 10 ** -this.pH);
+      const excess = co2Excess(carb, this.va, Math.exp(-this.pH * Math.LN10));
       if (excess > 1e-12) {
         this.co2Mmol = excess;
         this.systemTotals[CARBONATE] = carb - excess;
-        this.pH = solvePh(this, this.pH);
+        this.pH = solvePhWithSlope(this, Number.isFinite(guessAfterGas) ? guessAfterGas : this.pH);
       }
     }
-    this.residual(this.pH);
+    this.speciate(this.pH);
     this.lastSolved = this.pH;
     copyInto(aq.sys, this.systemTotals);
     aq.strongCharge = mix.strongCharge;
@@ -142,46 +167,94 @@ export class Equilibrator implements ChargeBalance {
         }
       }
       const own = comps.ionOffset[c] as number;
-      this.kNeutral[c] = Math.exp(logK * Math.LN10);
-      this.kIon[c] = Math.exp((logK + (Number.isNaN(own) ? offset : own)) * Math.LN10);
+      const kNeutral = Math.exp(logK * Math.LN10);
+      this.kNeutral[c] = kNeutral;
+      this.kIon[c] = kNeutral * (Number.isNaN(own) ? this.tenTo(offset) : (this.ownIonFactor[c] as number));
     }
   }
 
-  /** Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers. */
+  /**
+   * Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers;
+   * sets `slope` to its derivative in pH (a sum of negative terms: −ln10 times the buffer capacities).
+   */
   residual(pH: number): number {
     const h = Math.exp(-pH * Math.LN10);
     let f = this.strongConc + h - KW / h;
+    let df = h + KW / h;
     for (let k = 0; k < this.nActive; k++) {
       const s = this.active[k] as number;
-      f += ((this.systemTotals[s] as number) / this.va) * systemMeanCharge(s, h);
+      const ka = SYSTEM_KA[s] as Float64Array;
+      let term = 1, sum = 1, lost = 0, lost2 = 0;
+      for (let i = 0; i < ka.length; i++) {
+        term *= (ka[i] as number) / h;
+        sum += term;
+        lost += (i + 1) * term;
+        lost2 += (i + 1) * (i + 1) * term;
+      }
+      const conc = (this.systemTotals[s] as number) / this.va;
+      const mean = lost / sum;
+      f += conc * ((SYSTEM_Z0[s] as number) - mean);
+      df += conc * (lost2 / sum - mean * mean);
     }
+    const { comps, va, vo } = this;
+    for (let k = 0; k < this.nCharged; k++) {
+      const c = this.charged[k] as number;
+      const n = this.amounts[c] as number;
+      if (!(n > 0)) continue;
+      const acid = comps.acidKa[c] as Float64Array;
+      const base = comps.baseKa[c] as Float64Array;
+      // Per site: charged fraction x; d x/d pH = ±ln10·x(1 − x). f₀ = Π(1 − x) moves by ln10·f₀·z.
+      let f0 = 1, z = 0, dz = 0;
+      for (let i = 0; i < acid.length; i++) {
+        const ka = acid[i] as number;
+        const x = ka / (h + ka);
+        f0 *= 1 - x;
+        z -= x;
+        dz += x * (1 - x);
+      }
+      for (let i = 0; i < base.length; i++) {
+        const ka = base[i] as number;
+        const x = h / (h + ka);
+        f0 *= 1 - x;
+        z += x;
+        dz += x * (1 - x);
+      }
+      const fixed = comps.fixedCharge[c] !== 0;
+      if (fixed) f0 = 0;
+      const kN = this.kNeutral[c] as number, kI = this.kIon[c] as number;
+      const d = kN * f0 + kI * (1 - f0);
+      const fa = va / (va + d * vo);
+      if (z !== 0) f += (n * fa * z) / va;
+      // d fa/d pH = −fa²·(vo/va)·(kN − kI)·f₀·z·ln10; the ln10 is applied to the whole slope below.
+      const dfa = fixed ? 0 : -fa * fa * (vo / va) * (kN - kI) * f0 * z;
+      df += (n / va) * (fa * dz - dfa * z);
+    }
+    this.slope = -Math.LN10 * df;
+    return f;
+  }
+
+  /** Speciation and distribution of every component at the solved pH. */
+  private speciate(pH: number): void {
+    const h = Math.exp(-pH * Math.LN10);
     const { comps, va, vo } = this;
     for (let c = 0; c < comps.count; c++) {
       const acid = comps.acidKa[c] as Float64Array;
       const base = comps.baseKa[c] as Float64Array;
-      let f0 = 1, z = 0;
+      let f0 = 1;
       for (let i = 0; i < acid.length; i++) {
         const ka = acid[i] as number;
-        const charged = ka / (h + ka);
-        f0 *= 1 - charged;
-        z -= charged;
+        f0 *= 1 - ka / (h + ka);
       }
       for (let i = 0; i < base.length; i++) {
         const ka = base[i] as number;
-        const charged = h / (h + ka);
-        f0 *= 1 - charged;
-        z += charged;
+        f0 *= 1 - h / (h + ka);
       }
       if (comps.fixedCharge[c] !== 0) f0 = 0;
       const d = (this.kNeutral[c] as number) * f0 + (this.kIon[c] as number) * (1 - f0);
-      const fa = va / (va + d * vo);
       this.fractionNeutral[c] = f0;
       this.distribution[c] = d;
-      this.fractionAqueous[c] = fa;
-      const n = this.amounts[c] as number;
-      if (n > 0 && z !== 0) f += (n * fa * z) / va;
+      this.fractionAqueous[c] = va / (va + d * vo);
     }
-    return f;
   }
 
   /** Free H⁺ and OH⁻ in the aqueous layer after the contact, mmol. */

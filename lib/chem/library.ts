@@ -7,6 +7,7 @@ import { DRYING_AGENTS, type DryingAgentProps } from "./data/drying-agents";
 import { ACID_SYSTEMS, REAGENTS, STRONG_ION_CHARGE, type AcidSystem, type ReagentProps, type StrongIon } from "./data/reagents";
 import { SOLVENTS, WATER_KEY, type SolventProps } from "./data/solvents";
 import { cosolventLogK, setschenowConstant } from "./partition";
+import { type WorkupInput } from "./schema";
 
 export interface Library {
   solvents: Readonly<Record<string, SolventProps>>;
@@ -162,4 +163,27 @@ export function idealLibrary(lib: Library): Library {
   const out: Library = { ...lib, solvents };
   idealized.set(lib, out);
   return out;
+}
+
+/** The solvents a work-up names (mixture, charges, extractions, cosolvent removal, rinses), in order of first use. */
+export function workupSolvents(w: WorkupInput): string[] {
+  const used: string[] = [];
+  const add = (k: string) => { if (!used.includes(k)) used.push(k); };
+  for (const s of w.mixture.solvents) add(s.solvent);
+  for (const op of w.operations) {
+    if (op.type === "charge" || op.type === "extract" || op.type === "remove_cosolvent") add(op.solvent);
+    if ((op.type === "dry" || op.type === "filter") && op.rinse) add(op.rinse.solvent);
+  }
+  return used;
+}
+
+export interface EngineLibraryOptions extends LibraryOverrides {
+  /** Treat every solvent as insoluble in water and water as insoluble in it (textbook comparisons). */
+  idealPhases?: boolean;
+}
+
+/** The library a work-up runs against, and its compiled form over the work-up's solvents. */
+export function libraryForWorkup(w: WorkupInput, options: EngineLibraryOptions): { library: Library; lib: CompiledLibrary } {
+  const library = resolveLibrary(options);
+  return { library, lib: compileLibrary(options.idealPhases ? idealLibrary(library) : library, workupSolvents(w)) };
 }

@@ -2,6 +2,7 @@
  * The operations of workup-practice §1.2 acting on the simulator's streams. Wash, back-extraction and
  * extraction are one physics (§1.1): mix, equilibrate, split, keep one layer; they differ in what is added
  * (aqueous reagent or organic solvent) and in which layer carries on. Each portion is a fresh equilibration.
+ * Volumes, amounts, target pH and rinse volumes are read from the simulator's parameters (parameters.ts).
  */
 import { reagentPh } from "./aqueous";
 import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
@@ -10,8 +11,11 @@ import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
 import { addAt } from "./stream";
 
-type Details = Record<string, number | string | boolean>;
-type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => Details;
+export type StepDetails = Record<string, number | string | boolean>;
+type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => StepDetails;
+
+/** The perturbable numbers of step `step` (1-based) come from the simulator's parameters, not from `op`. */
+const volumeOf = (sim: Simulator, step: number): number => sim.params.volumeMl[step - 1] as number;
 
 function ctx(sim: Simulator, op: Operation, step: number, portion: number, keep: ContactContext["keep"],
   reagentKey: string | null, before: AcidBaseContent | null): ContactContext {
@@ -32,21 +36,25 @@ function settle(sim: Simulator, op: Operation, step: number, reagentKey: string 
 
 const charge: Handler<"charge"> = (sim, op, step) => {
   const before = sim.acidBase(sim.current);
-  addAt(sim.current.solv, sim.solventIndex(op.solvent), op.volumeMl);
+  const volumeMl = volumeOf(sim, step);
+  addAt(sim.current.solv, sim.solventIndex(op.solvent), volumeMl);
   sim.residue = false;
   if (op.solvent === "water") settle(sim, op, step, null, before);
-  return { volumeMl: op.volumeMl };
+  return { volumeMl };
 };
 
-function reagentVolume(sim: Simulator, key: string, volumeMl: number | undefined, amountMmol: number | undefined): number {
-  if (volumeMl !== undefined) return volumeMl;
+/** Reagent volume of step `step`: its volume, else its amount at the reagent's concentration, else 0. */
+function reagentVolume(sim: Simulator, key: string, step: number): number {
+  const volumeMl = volumeOf(sim, step);
+  if (!Number.isNaN(volumeMl)) return volumeMl;
   const r = sim.reagent(key);
-  return r.concentration > 0 ? (amountMmol ?? 0) / r.concentration : 0;
+  const amountMmol = sim.params.operationAmountMmol[step - 1] as number;
+  return r.concentration > 0 ? (Number.isNaN(amountMmol) ? 0 : amountMmol) / r.concentration : 0;
 }
 
 const quench: Handler<"quench"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
-  const v = reagentVolume(sim, op.reagent, op.volumeMl, op.amountMmol);
+  const v = reagentVolume(sim, op.reagent, step);
   const fresh = sim.freshReagent(r, v);
   const before = sim.acidBase(sim.current, fresh);
   sim.current.addFrom(fresh, 1);
@@ -59,10 +67,11 @@ const quench: Handler<"quench"> = (sim, op, step) => {
 /** n portions of an aqueous reagent against the current stream (wash: organic kept; back-extract: aqueous kept). */
 const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
+  const volumeMl = volumeOf(sim, step);
   const other = sim.newStream();
   let organic = sim.current;
   for (let p = 1; p <= op.portions; p++) {
-    const mix = sim.freshReagent(r, op.volumeMl);
+    const mix = sim.freshReagent(r, volumeMl);
     const before = sim.acidBase(organic, mix);
     mix.addFrom(organic, 1);
     const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before));
@@ -83,12 +92,13 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
 /** n portions of organic solvent against the current stream; the extracts are combined. */
 const extract: Handler<"extract"> = (sim, op, step) => {
   const si = sim.solventIndex(op.solvent);
+  const volumeMl = volumeOf(sim, step);
   const extracts = sim.newStream();
   let aqueous = sim.current;
   for (let p = 1; p <= op.portions; p++) {
     // The aqueous stream is consumed by this contact, so the solvent is added to it in place.
     const before = sim.acidBase(aqueous);
-    addAt(aqueous.solv, si, op.volumeMl);
+    addAt(aqueous.solv, si, volumeMl);
     const out = sim.contact(aqueous, ctx(sim, op, step, p, op.keep, null, before));
     aqueous = out.aq;
     extracts.addFrom(out.org, 1);
@@ -130,14 +140,17 @@ const combine: Handler<"combine"> = (sim, op, step) => {
 /** Adds reagent; with a target pH, finds the volume by bisection on log volume (pH is monotone in it). */
 const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
-  let v = reagentVolume(sim, op.reagent, op.volumeMl, op.amountMmol);
-  const details: Details = {};
-  if (op.targetPh !== undefined) {
-    const target = op.targetPh;
+  let v = reagentVolume(sim, op.reagent, step);
+  const details: StepDetails = {};
+  const target = sim.params.targetPh[step - 1] as number;
+  if (!Number.isNaN(target)) {
     const phWith = (vol: number) => {
-      const mix = sim.current.clone();
-      mix.addFrom(sim.freshReagent(r, vol), 1);
-      sim.eq.equilibrate(mix, sim.newStream(), sim.newStream());
+      const mix = sim.scratch(0);
+      mix.addFrom(sim.current, 1);
+      const fresh = sim.scratch(1);
+      fresh.addReagent(r, vol, sim.lib.density[WATER] as number);
+      mix.addFrom(fresh, 1);
+      sim.eq.equilibrate(mix, sim.scratch(2), sim.scratch(3));
       return sim.eq.pH;
     };
     const start = phWith(1e-9);
@@ -206,8 +219,9 @@ const dry: Handler<"dry"> = (sim, op, step) => {
   const holdUp = agent.holdUpMlPerG.value * massG;
   let retained = volume > 0 ? Math.min(1, holdUp / volume) : 0;
   if (op.rinse) {
-    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), op.rinse.volumeMl);
-    retained *= holdUp / (holdUp + op.rinse.volumeMl);
+    const rinseMl = sim.params.rinseMl[step - 1] as number;
+    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), rinseMl);
+    retained *= holdUp / (holdUp + rinseMl);
   }
   const held = sim.newStream();
   held.addFrom(cur, retained);
@@ -238,8 +252,9 @@ const filter: Handler<"filter"> = (sim, op, step) => {
   const holdUp = (op.cakeMassG ?? 0) * CAKE_HOLD_UP_ML_PER_G;
   let retained = volume > 0 ? Math.min(1, holdUp / volume) : 0;
   if (op.rinse) {
-    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), op.rinse.volumeMl);
-    if (holdUp > 0) retained *= holdUp / (holdUp + op.rinse.volumeMl);
+    const rinseMl = sim.params.rinseMl[step - 1] as number;
+    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), rinseMl);
+    if (holdUp > 0) retained *= holdUp / (holdUp + rinseMl);
   }
   const wet = sim.newStream();
   wet.addFrom(cur, retained);
@@ -281,7 +296,7 @@ const handlers: { [T in Operation["type"]]: Handler<T> } = {
   adjust_ph: adjustPh, add_salt: addSalt, remove_cosolvent: removeCosolvent, dry, filter, concentrate,
 };
 
-export function applyOperation(sim: Simulator, op: Operation, step: number): Details {
+export function applyOperation(sim: Simulator, op: Operation, step: number): StepDetails {
   const h = handlers[op.type] as Handler<typeof op.type>;
   return h(sim, op, step);
 }

@@ -72,8 +72,7 @@ export class PhaseSplit {
   split(s: Stream, systemZ2: number): void {
     const { lib, org, aq } = this;
     const n = org.length;
-    org.fill(0);
-    aq.fill(0);
+    for (let i = 0; i < n; i++) { org[i] = 0; aq[i] = 0; }
     const vw = s.solv[WATER] as number;
     const rhoW = lib.density[WATER] as number;
     let imm = 0;
@@ -93,7 +92,7 @@ export class PhaseSplit {
       const v = s.solv[i] as number;
       if (lib.miscible[i] || v <= 0) continue;
       const x = lib.solventInWater[i] as number;
-      const salting = 10 ** (-(lib.selfSetschenow[i] as number) * Math.min(this.saltM, 6));
+      const salting = Math.exp(-(lib.selfSetschenow[i] as number) * Math.min(this.saltM, 6) * Math.LN10);
       const vd = Math.min(v, (((v / imm) * x) / (1 - x) * massWater * salting) / (lib.density[i] as number));
       aq[i] = vd;
       org[i] = v - vd;

@@ -2,16 +2,15 @@
  * Public entry points. predictWorkup validates once (schema, then references to the library) and calls
  * simulateWorkup, the fast path that trusts its input: the Monte-Carlo engine calls it thousands of times.
  */
-import { type CompiledComponents, compileComponents } from "./components";
+import { type CompiledComponents } from "./components";
 import { evaluateCautions } from "./cautions";
 import { evaluateFlags, type FlagContext } from "./flags";
-import { compileLibrary, idealLibrary, resolveLibrary, WATER, type CompiledLibrary, type Library, type LibraryOverrides } from "./library";
-import { applyOperation } from "./operations";
+import { libraryForWorkup, resolveLibrary, type CompiledLibrary, type Library, type LibraryOverrides } from "./library";
 import { RETAINED_SOLVENT_BP_C } from "./operations";
+import { readParameters } from "./parameters";
 import { contactResult, sideStream, summarize } from "./report";
 import { workupInputSchema, type WorkupInput, type WorkupInputRaw } from "./schema";
-import { Simulator } from "./simulator";
-import { addAt, copyInto } from "./stream";
+import { acquireSimulator, releaseSimulator, type Simulator } from "./simulator";
 import { type ComponentOutcome, type ContactResult, type StepResult, type WorkupPrediction } from "./types";
 import { ENGINE_VERSION } from "./version";
 
@@ -93,52 +92,30 @@ export function predictWorkup(input: WorkupInputRaw, options: PredictOptions = {
   return simulateWorkup(v.data, options);
 }
 
-function usedSolvents(w: WorkupInput): string[] {
-  const used: string[] = [];
-  const add = (k: string) => { if (!used.includes(k)) used.push(k); };
-  for (const s of w.mixture.solvents) add(s.solvent);
-  for (const op of w.operations) {
-    if (op.type === "charge" || op.type === "extract" || op.type === "remove_cosolvent") add(op.solvent);
-    if ((op.type === "dry" || op.type === "filter") && op.rinse) add(op.rinse.solvent);
-  }
-  return used;
-}
-
 /** Fast path: no validation, no zod. `parsed` must come from workupInputSchema (or be a perturbed copy of one). */
 export function simulateWorkup(parsed: WorkupInput, options: PredictOptions = {}): WorkupPrediction {
-  const library = resolveLibrary(options);
-  const lib = compileLibrary(options.idealPhases ? idealLibrary(library) : library, usedSolvents(parsed));
-  const comps = compileComponents(parsed.components, lib);
+  const { library, lib } = libraryForWorkup(parsed, options);
   const detail = options.steps !== false;
   const withFlags = options.flags !== false;
-  const sim = new Simulator(parsed, lib, comps, withFlags);
-  const cur = sim.current;
-  for (const s of parsed.mixture.solvents) addAt(cur.solv, lib.solventIndex.get(s.solvent) ?? WATER, s.volumeMl);
-  for (const r of parsed.mixture.reagents) {
-    const rr = lib.reagents.get(r.reagent);
-    if (rr) cur.addReagent(rr, r.volumeMl, lib.density[WATER] as number);
-  }
-  copyInto(cur.comp, comps.startMmol);
-
-  const steps: StepResult[] = [];
-  let contacts: ContactResult[] = [];
-  if (detail) sim.onContact = (ctx, out) => contacts.push(contactResult(lib, comps, sim.eq, out, ctx.portion));
-  parsed.operations.forEach((op, i) => {
-    const index = i + 1;
-    const firstContact = sim.contacts.length;
-    const sideBefore = sim.side.length;
-    contacts = [];
-    const details = applyOperation(sim, op, index);
-    sim.stepTraces.push({ index, type: op.type, details, firstContact, contactCount: sim.contacts.length - firstContact });
-    if (detail) {
+  const sim = acquireSimulator(lib, parsed.components.length);
+  try {
+    sim.begin(parsed, readParameters(parsed, sim.params), withFlags);
+    const comps = sim.comps;
+    const steps: StepResult[] = [];
+    let contacts: ContactResult[] = [];
+    if (detail) sim.onContact = (ctx, out) => contacts.push(contactResult(lib, comps, sim.eq, out, ctx.portion));
+    sim.run(detail ? (index, op, details, sideBefore) => {
       steps.push({
         index, type: op.type, label: op.label ?? op.type, contacts, details,
         kept: summarize(lib, comps, sim.current, sim.residue),
         sideStreams: sim.side.slice(sideBefore).map((x) => sideStream(lib, comps, x)),
       });
-    }
-  });
-  return assemble(parsed, library, lib, comps, sim, steps, withFlags);
+      contacts = [];
+    } : undefined);
+    return assemble(parsed, library, lib, comps, sim, steps, withFlags);
+  } finally {
+    releaseSimulator(sim);
+  }
 }
 
 function assemble(w: WorkupInput, library: Library, lib: CompiledLibrary, comps: CompiledComponents, sim: Simulator,

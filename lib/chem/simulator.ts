@@ -2,14 +2,19 @@
  * State of one simulated work-up: the main-line stream, streams saved under a name, streams that left the main
  * line (waste, drying agent, filter cake, evaporated), and the contact/step traces. The per-operation logic is in
  * operations.ts; this file holds the shared mechanics (equilibrate, split, save or discard, heat and gas).
+ * A simulator is reused from run to run (begin → run): its streams come from a pool that each run takes again
+ * from the start, and the numbers it reads (log P, pKa, volumes, …) sit in a WorkupParameters, so a Monte-Carlo
+ * draw allocates almost nothing. Nothing a run returns may hold a pooled stream.
  */
 import { HEAT_OF_NEUTRALIZATION_KJ_PER_MOL, reagentPh, systemBoundProtons } from "./aqueous";
-import { type CompiledComponents } from "./components";
+import { allocateComponents, fillComponents, type CompiledComponents } from "./components";
 import { Equilibrator } from "./equilibrium";
 import { CARBONATE, WATER, type CompiledLibrary, type CompiledReagent } from "./library";
+import { applyOperation, type StepDetails } from "./operations";
+import { emptyParameters, type WorkupParameters } from "./parameters";
 import { layerOrder } from "./phases";
-import { type OperationType, type WorkupInput } from "./schema";
-import { Stream } from "./stream";
+import { type Operation, type OperationType, type WorkupInput } from "./schema";
+import { addAt, copyInto, Stream } from "./stream";
 import { type ContactTrace, type StepTrace } from "./trace";
 import { type SideStream } from "./types";
 
@@ -49,6 +54,9 @@ export interface ContactOutcome {
 }
 
 export class Simulator {
+  input!: WorkupInput;
+  params: WorkupParameters = emptyParameters();
+  readonly comps: CompiledComponents;
   current: Stream;
   residue = false;
   readonly saved = new Map<string, SideInternal>();
@@ -56,16 +64,89 @@ export class Simulator {
   readonly contacts: ContactTrace[] = [];
   readonly stepTraces: StepTrace[] = [];
   readonly eq: Equilibrator;
+  tracing = false;
   /** Called after each contact when the caller wants per-step phase detail. */
   onContact: ((ctx: ContactContext, out: ContactOutcome) => void) | null = null;
+  /** pH at each contact of the previous run (before and after CO₂ loss, in pairs), the starting guesses for the
+   * same contact in the next run (Monte Carlo); null for a run that must not depend on the runs before it. */
+  phMemory: number[] | null = null;
+  /** Set while a shared simulator is in use (see predict.ts). */
+  busy = false;
+  private readonly pool: Stream[] = [];
+  private pooled = 0;
+  private readonly scratchStreams: Stream[] = [];
+  private contactIndex = 0;
 
-  constructor(readonly input: WorkupInput, readonly lib: CompiledLibrary, readonly comps: CompiledComponents, readonly tracing: boolean) {
-    this.eq = Equilibrator.for(lib, comps);
+  constructor(readonly lib: CompiledLibrary, readonly componentCount: number) {
+    this.comps = allocateComponents(componentCount, lib);
+    this.eq = new Equilibrator(lib, this.comps);
     this.current = this.newStream();
   }
 
+  /** Starts a run of `input` with the numbers in `params` (read from it, or perturbed). */
+  begin(input: WorkupInput, params: WorkupParameters, tracing: boolean): void {
+    const { lib, comps } = this;
+    this.input = input;
+    this.params = params;
+    this.tracing = tracing;
+    this.onContact = null;
+    fillComponents(comps, input.components, params, lib);
+    this.eq.componentsChanged();
+    this.eq.lastSolved = NaN;
+    this.pooled = 0;
+    this.contactIndex = 0;
+    this.residue = false;
+    this.saved.clear();
+    this.side.length = 0;
+    this.contacts.length = 0;
+    this.stepTraces.length = 0;
+    const cur = this.newStream();
+    this.current = cur;
+    const { solvents, reagents } = input.mixture;
+    for (let i = 0; i < solvents.length; i++) {
+      addAt(cur.solv, lib.solventIndex.get((solvents[i] as { solvent: string }).solvent) ?? WATER, params.mixtureSolventMl[i] as number);
+    }
+    for (let i = 0; i < reagents.length; i++) {
+      const r = lib.reagents.get((reagents[i] as { reagent: string }).reagent);
+      if (r) cur.addReagent(r, params.mixtureReagentMl[i] as number, lib.density[WATER] as number);
+    }
+    copyInto(cur.comp, comps.startMmol);
+  }
+
+  /** Applies every operation in order; `afterStep` (detail mode) sees each step as it ends. */
+  run(afterStep?: (index: number, op: Operation, details: StepDetails, sideBefore: number) => void): void {
+    const ops = this.input.operations;
+    for (let i = 0; i < ops.length; i++) {
+      const op = ops[i] as Operation;
+      const index = i + 1;
+      const firstContact = this.contacts.length;
+      const sideBefore = this.side.length;
+      const details = applyOperation(this, op, index);
+      if (this.tracing) this.stepTraces.push({ index, type: op.type, details, firstContact, contactCount: this.contacts.length - firstContact });
+      afterStep?.(index, op, details, sideBefore);
+    }
+  }
+
+  /** An empty stream from the pool. */
   newStream(): Stream {
-    return new Stream(this.lib.solventKeys.length, this.comps.count);
+    const s = this.pool[this.pooled++];
+    if (s) {
+      s.clear();
+      return s;
+    }
+    const fresh = new Stream(this.lib.solventKeys.length, this.comps.count);
+    this.pool.push(fresh);
+    return fresh;
+  }
+
+  /** Empty stream number `k` of a small set for trial mixtures that never leave the operation using them. */
+  scratch(k: number): Stream {
+    let s = this.scratchStreams[k];
+    if (!s) {
+      s = new Stream(this.lib.solventKeys.length, this.comps.count);
+      this.scratchStreams[k] = s;
+    } else s.clear();
+    return s;
   }
 
   solventIndex(key: string): number {
@@ -93,7 +174,15 @@ export class Simulator {
     const org = this.newStream();
     const aq = this.newStream();
     const eq = this.eq;
-    eq.equilibrate(mix, org, aq);
+    const k = 2 * this.contactIndex++;
+    const memory = this.phMemory;
+    if (memory && k < memory.length) {
+      eq.equilibrate(mix, org, aq, Number.isFinite(memory[k]) ? memory[k] : eq.lastSolved, memory[k + 1]);
+    } else eq.equilibrate(mix, org, aq);
+    if (memory) {
+      memory[k] = eq.phBeforeGas;
+      memory[k + 1] = eq.pH;
+    }
     let trace: ContactTrace | null = null;
     if (this.tracing || this.onContact) trace = this.traceContact(mix, org, aq, ctx);
     const out = { org, aq, trace };
@@ -217,4 +306,26 @@ export function capacityExceeded(r: CompiledReagent, fresh: number, pH: number):
   if (purpose === "acid") return pH > fresh + 1;
   if (purpose === "buffer") return Math.abs(pH - fresh) > 1;
   return false;
+}
+
+const shared = new WeakMap<CompiledLibrary, Map<number, Simulator>>();
+
+/**
+ * A simulator for this library and component count, reused from call to call; a call made while another run
+ * is under way (from inside a rule, say) gets a new one. Hand it back with `releaseSimulator`.
+ */
+export function acquireSimulator(lib: CompiledLibrary, componentCount: number): Simulator {
+  let byCount = shared.get(lib);
+  if (!byCount) { byCount = new Map(); shared.set(lib, byCount); }
+  const hit = byCount.get(componentCount);
+  if (hit && !hit.busy) { hit.busy = true; return hit; }
+  const sim = new Simulator(lib, componentCount);
+  if (!hit) byCount.set(componentCount, sim);
+  sim.busy = true;
+  return sim;
+}
+
+export function releaseSimulator(sim: Simulator): void {
+  sim.busy = false;
+  sim.onContact = null;
 }

@@ -1,15 +1,15 @@
 /**
  * A stream: the contents of one vessel or layer. Solvent volumes (water included, index 0), the aqueous solutes
  * reduced to what the pH solver needs (net strong-ion charge, Σz²·n, Σn, acid–base system totals), the mass of
- * dissolved salts beyond water (for density), and every component's total amount. Plain number arrays: streams
- * are created at every contact, and small JS arrays allocate several times faster than typed arrays.
+ * dissolved salts beyond water (for density), and every component's total amount. Streams are taken from the
+ * simulator's pool and cleared rather than allocated at every contact.
  */
 import { N_SYSTEMS, type CompiledReagent } from "./library";
 
 export class Stream {
-  readonly solv: number[];
-  readonly sys: number[];
-  readonly comp: number[];
+  readonly solv: Float64Array;
+  readonly sys: Float64Array;
+  readonly comp: Float64Array;
   /** mmol of net strong-ion charge, Σz²·n and Σn. */
   strongCharge = 0;
   strongZ2 = 0;
@@ -22,9 +22,9 @@ export class Stream {
   solid = false;
 
   constructor(nSolvents: number, nComponents: number) {
-    this.solv = zeros(nSolvents);
-    this.sys = zeros(N_SYSTEMS);
-    this.comp = zeros(nComponents);
+    this.solv = new Float64Array(nSolvents);
+    this.sys = new Float64Array(N_SYSTEMS);
+    this.comp = new Float64Array(nComponents);
   }
 
   static like(s: Stream): Stream {
@@ -71,11 +71,13 @@ export class Stream {
   }
 
   clear(): void {
-    this.solv.fill(0);
-    this.sys.fill(0);
-    this.comp.fill(0);
+    // Element loops: fill() costs more than the few elements these arrays hold.
+    for (let i = 0; i < this.solv.length; i++) this.solv[i] = 0;
+    for (let i = 0; i < this.sys.length; i++) this.sys[i] = 0;
+    for (let i = 0; i < this.comp.length; i++) this.comp[i] = 0;
     this.strongCharge = this.strongZ2 = this.osmoles = this.extraMassG = 0;
     this.lastPh = NaN;
+    this.solid = false;
   }
 
   /** Moves the aqueous solutes (not solvents or components) of `o` into this stream. */
@@ -88,27 +90,12 @@ export class Stream {
   }
 }
 
-const templates: number[][] = [];
-
-/** A zero-filled array of doubles: slicing a cached template is the cheapest allocation V8 offers here. */
-function zeros(n: number): number[] {
-  let t = templates[n];
-  if (!t) {
-    // Pushed as a fraction first so V8 stores the template as packed doubles, then zeroed in place.
-    t = [];
-    for (let i = 0; i < n; i++) t.push(0.5);
-    for (let i = 0; i < n; i++) t[i] = 0;
-    templates[n] = t;
-  }
-  return t.slice();
-}
-
 /** Copies `src` into `dst` element by element. */
-export function copyInto(dst: number[], src: ArrayLike<number>): void {
+export function copyInto(dst: Float64Array, src: Float64Array): void {
   for (let i = 0; i < dst.length; i++) dst[i] = src[i] as number;
 }
 
 /** arr[i] += v under noUncheckedIndexedAccess. */
-export function addAt(arr: number[] | Float64Array, i: number, v: number): void {
+export function addAt(arr: Float64Array, i: number, v: number): void {
   arr[i] = (arr[i] as number) + v;
 }
