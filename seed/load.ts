@@ -70,7 +70,8 @@ async function registerCompounds(db: Db, groupId: string, createdById: string): 
         crippenLogP: d.crippenLogP,
         tpsa: d.tpsa,
         logP: seed.logP?.value ?? null,
-        logPSource: seed.logP?.source ?? null,
+        // "provenance: source", the registry's convention (lib/compounds/provenance.ts).
+        logPSource: seed.logP ? `literature: ${seed.logP.source}` : null,
         pKas: seed.pKas.map((p) => ({ value: p.value, kind: p.kind, provenance: "literature", source: p.source })),
         fingerprint: Buffer.from(d.morganFingerprint),
         createdById,
