@@ -8,7 +8,7 @@ import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from "
 import path from "node:path";
 
 const STAMP_FILE = ".next/layerwise-build-stamp";
-const SOURCES = ["app", "lib", "components", "public", "prisma/schema.prisma", "next.config.mjs", "package-lock.json", "postcss.config.mjs", "tsconfig.json"];
+const SOURCES = ["app", "lib", "components", "public", "instrumentation.ts", "middleware.ts", "proxy.ts", "prisma/schema.prisma", "next.config.mjs", "package-lock.json", "postcss.config.mjs", "tsconfig.json"];
 
 export function sourceStamp() {
   const hash = createHash("sha256");
