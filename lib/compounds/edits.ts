@@ -3,6 +3,7 @@
 // chemist never silently overwrites another's value. Old and new values go to the audit log.
 import { type Db, type DbTransaction as Tx } from "@/lib/db/client";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
+import { enqueueRevalidation } from "@/lib/jobs/revalidate";
 import { databaseNow, writeTransaction } from "./clock";
 import { formatLogPSource } from "./provenance";
 import { readStoredPKas, type LogPEdit, type PKaEdit, type StoredPKa } from "./schemas";
@@ -17,12 +18,17 @@ async function lockedRow(tx: Tx, actor: CompoundActor, id: string) {
   return row;
 }
 
-/** Writes only if nobody else wrote the row after we read it (compare-and-set on the DB-clock stamp). */
-async function writeIfUnchanged(tx: Tx, actor: CompoundActor, row: { id: string; updatedAt: Date }, data: object, audit: { action: string; details: object }) {
+/**
+ * Writes only if nobody else wrote the row after we read it (compare-and-set on the DB-clock stamp), and queues the
+ * re-prediction of the workups using the compound in the same transaction, so the edit and its job commit together.
+ */
+async function writeIfUnchanged(tx: Tx, actor: CompoundActor, row: { id: string; updatedAt: Date }, data: object, audit: { action: string; details: object; reason: string }) {
   const stamp = await databaseNow(tx);
   const { count } = await tx.compound.updateMany({ where: { id: row.id, groupId: actor.groupId, updatedAt: row.updatedAt }, data: { ...data, updatedAt: stamp } });
   if (count !== 1) throw new ConflictError("Someone else saved this compound at the same moment; nothing was saved. Reload and try again.");
-  await tx.auditEvent.create({ data: { groupId: actor.groupId, actorId: actor.userId, entity: "Compound", entityId: row.id, createdAt: stamp, ...audit } });
+  const { reason, ...event } = audit;
+  await tx.auditEvent.create({ data: { groupId: actor.groupId, actorId: actor.userId, entity: "Compound", entityId: row.id, createdAt: stamp, ...event } });
+  await enqueueRevalidation(tx, actor.groupId, { compoundIds: [row.id], reason });
 }
 
 const show = (v: number | null | undefined) => (v === null || v === undefined ? "no value" : String(v));
@@ -33,7 +39,7 @@ export async function setLogP(db: Db, actor: CompoundActor, edit: LogPEdit): Pro
     if (row.logP !== edit.expected) throw changed("log P", show(row.logP));
     const logPSource = formatLogPSource(edit.provenance, edit.source);
     await writeIfUnchanged(tx, actor, row, { logP: edit.value, logPSource }, {
-      action: "compound.logP.set", details: { old: { value: row.logP, source: row.logPSource }, new: { value: edit.value, source: logPSource } },
+      action: "compound.logP.set", reason: `log P set to ${edit.value} (${logPSource})`, details: { old: { value: row.logP, source: row.logPSource }, new: { value: edit.value, source: logPSource } },
     });
   }, writeTransaction);
 }
@@ -45,7 +51,7 @@ export async function clearLogP(db: Db, actor: CompoundActor, compoundId: string
     if (row.logP !== expected) throw changed("log P", show(row.logP));
     if (row.logP === null) return;
     await writeIfUnchanged(tx, actor, row, { logP: null, logPSource: null }, {
-      action: "compound.logP.clear", details: { old: { value: row.logP, source: row.logPSource }, new: null },
+      action: "compound.logP.clear", reason: "log P cleared; the structure estimate applies again", details: { old: { value: row.logP, source: row.logPSource }, new: null },
     });
   }, writeTransaction);
 }
@@ -65,7 +71,7 @@ export async function setPKa(db: Db, actor: CompoundActor, edit: PKaEdit): Promi
     };
     const updated = [...pKas];
     updated[edit.index] = next;
-    await writeIfUnchanged(tx, actor, row, { pKas: updated }, { action: "compound.pKa.set", details: { index: edit.index, old: current ?? null, new: next } });
+    await writeIfUnchanged(tx, actor, row, { pKas: updated }, { action: "compound.pKa.set", reason: `pKa of ${next.site} set to ${edit.value}`, details: { index: edit.index, old: current ?? null, new: next } });
   }, writeTransaction);
 }
 
@@ -84,7 +90,7 @@ export async function revertPKa(db: Db, actor: CompoundActor, compoundId: string
     } else {
       updated.splice(index, 1);
     }
-    await writeIfUnchanged(tx, actor, row, { pKas: updated }, { action: "compound.pKa.revert", details: { index, old: current, new: updated[index] ?? null } });
+    await writeIfUnchanged(tx, actor, row, { pKas: updated }, { action: "compound.pKa.revert", reason: `pKa of ${current.site} reverted`, details: { index, old: current, new: updated[index] ?? null } });
   }, writeTransaction);
 }
 
