@@ -9,8 +9,10 @@ import { UserMenu } from "@/components/shell/user-menu";
 export const NAV_ITEMS: NavItem[] = [
   { href: "/workups", label: "Workups" },
   { href: "/compounds", label: "Compounds" },
+  { href: "/search", label: "Search" },
   { href: "/review", label: "Review" },
   { href: "/partition", label: "Partition data" },
+  { href: "/library", label: "Library" },
   { href: "/members", label: "Members" },
 ];
 

@@ -8,7 +8,7 @@ test("a member signs in, sees the group's workups, opens one and signs out", asy
 
   await signIn(page, PEOPLE.memberA);
   await expect(page.getByTestId("group-name")).toHaveText(GROUP_A.name);
-  await expect(page.getByRole("navigation", { name: "Main" }).getByRole("link")).toHaveText(["Workups", "Compounds", "Review", "Partition data", "Members"]);
+  await expect(page.getByRole("navigation", { name: "Main" }).getByRole("link")).toHaveText(["Workups", "Compounds", "Search", "Review", "Partition data", "Library", "Members"]);
   await expect(page.getByRole("link", { name: WORKUP_A_TITLE })).toBeVisible();
   await expect(page.getByText(WORKUP_B_TITLE)).toHaveCount(0);
 
