@@ -18,6 +18,7 @@ import { OutcomeForm } from "@/components/workup/detail/outcome-form";
 import { OutcomeResult } from "@/components/workup/detail/outcome-result";
 import { PredictionOverview, combineSteps } from "@/components/workup/prediction/prediction-overview";
 import { MixtureView } from "@/components/workup/detail/mixture-view";
+import { PartitionProvenance } from "@/lib/partition/components/partition-provenance";
 
 export const metadata = { title: "Workup" };
 
@@ -37,6 +38,12 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
   const analysis = workup.outcome?.analysis ?? null;
   const writer = can(member, "data:write");
   const operations = Array.isArray(workup.spec.operations) ? workup.spec.operations : [];
+  // Predictions stored before partition sources were recorded have no `partition` field.
+  const partitionSources = Array.isArray(stored?.result.partition) ? stored.result.partition : null;
+  const partitionNames = Object.fromEntries([
+    ...workup.components.map((c) => [c.key, c.name] as const),
+    ...Object.entries(library.solvents).map(([key, s]) => [`solvent:${key}`, s.name] as const),
+  ]);
   const links = new Map(workup.components.flatMap((c) => (c.compound ? [[c.key, c.compound] as const] : [])));
   const header: [string, string][] = [
     ["Date", formatDate(workup.header.performedOn)],
@@ -118,6 +125,12 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
                   prediction={prediction} intervals={stored.result.uncertainty?.components ?? null} combinedAt={combineSteps(operations as { type?: unknown; streams?: unknown }[])}
                   intervalNote={stored.result.uncertainty ? `${stored.result.uncertainty.draws} draws` : "no interval stored"} reported={analysis?.reported?.recovery ?? null}
                 />
+                <div className="mt-4 border-t border-stone-200 pt-3">
+                  <h3 className="mb-2 text-sm font-semibold text-stone-800">Partition coefficients used</h3>
+                  {partitionSources && partitionSources.length > 0
+                    ? <PartitionProvenance sources={partitionSources} names={partitionNames} />
+                    : <p className="text-sm text-stone-500">{partitionSources ? "No water-immiscible organic solvent in this workup." : "Not recorded with this prediction (it predates source tracking)."}</p>}
+                </div>
               </>
             ) : (
               <p className="text-sm text-stone-600">No stored prediction for this record. It may predate the engine or not fit today&apos;s schema; {writer ? "open the editor, fix what it marks, and save." : "a member can fix it in the editor."}</p>
