@@ -9,10 +9,11 @@ export const ENTRY_BYTES = 256;
 export const CHUNK_ENTRIES = 64;
 export const CHUNK_BYTES = ENTRY_BYTES * CHUNK_ENTRIES;
 export const QUERY_ADDRESS = 0;
+/** Counter planes of the sliced kernel: up to 12 × 8 bytes (counts up to 4095). */
+export const PLANES_ADDRESS = 256;
+/** The query's set-bit positions as u16, up to 2048 of them. */
+export const QBITS_ADDRESS = 512;
 export const LIST_ADDRESS = 8192;
-/** Word offsets of the query's bits for super-chunks of 1, 2, 4, 8 and 16 blocks: 5 tables of up to 2048 u32. */
-export const QOFF_ADDRESS = 24_576;
-export const QOFF_TABLE_BYTES = 8192;
 /** Chunks (or 64-entry blocks) per kernel call: 2048 × 64 = 131 072 entries, 8 bytes of output each. */
 export const MAX_LIST_CHUNKS = 2048;
 export const OUT_ADDRESS = 65_536;

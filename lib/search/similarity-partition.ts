@@ -13,7 +13,7 @@
  */
 import { tanimotoFromCounts } from "@/lib/chem/structure/fingerprint";
 import { before, type IndexEntry } from "./entry";
-import { type FingerprintMemory, LIST_ADDRESS, OUT_ADDRESS, QOFF_ADDRESS, QOFF_TABLE_BYTES } from "./fingerprint-memory";
+import { type FingerprintMemory, LIST_ADDRESS, OUT_ADDRESS, PLANES_ADDRESS, QBITS_ADDRESS } from "./fingerprint-memory";
 import { TopK } from "./top-k";
 
 const BITS = 2048;
@@ -169,12 +169,11 @@ export class SimilarityPartition<Meta> {
     const frequency = this.frequency;
     const bits = setBits(query).sort((x, y) => (frequency[x] ?? 0) - (frequency[y] ?? 0) || x - y);
     const a = bits.length;
-    const words = this.memory.words;
-    // For a super-chunk of S blocks, bit k's word for block 0 is 8·S·k bytes in: one table per S.
-    for (let log = 0; log <= 4; log++) {
-      const table = (QOFF_ADDRESS + log * QOFF_TABLE_BYTES) / 4;
-      bits.forEach((bit, i) => (words[table + i] = bit << (3 + log)));
-    }
+    const bytes = this.memory.bytes;
+    bits.forEach((bit, i) => {
+      bytes[QBITS_ADDRESS + 2 * i] = bit & 0xff;
+      bytes[QBITS_ADDRESS + 2 * i + 1] = bit >> 8;
+    });
     const order = [...this.buckets.keys()].map((b) => ({ b, bound: tanimotoFromCounts(Math.min(a, b), a, b) })).sort((x, y) => y.bound - x.bound);
     const top = Number.isFinite(k) ? new TopK<IndexEntry<Meta>>(k) : undefined;
     const all: ScoredEntry<Meta>[] = [];
@@ -204,10 +203,10 @@ export class SimilarityPartition<Meta> {
       const words = this.memory.words;
       const at = LIST_ADDRESS / 4;
       words[at] = sup.address;
-      words[at + 1] = QOFF_ADDRESS + Math.log2(sup.size) * QOFF_TABLE_BYTES;
+      words[at + 1] = 3 + Math.log2(sup.size);
       words[at + 2] = sup.used;
       words[at + 3] = s === bucket.supers.length - 1 ? lastLanes : LANES;
-      const found = this.memory.kernel.sliced(0, nbits, LIST_ADDRESS, 1, OUT_ADDRESS, cmin, 0, 0);
+      const found = this.memory.kernel.sliced(QBITS_ADDRESS, nbits, LIST_ADDRESS, 1, OUT_ADDRESS, cmin, PLANES_ADDRESS, 12);
       const out = this.memory.words;
       const base = firstBlock * LANES;
       for (let r = 0; r < found; r++) {

@@ -1,6 +1,6 @@
 /**
  * Two scan kernels, assembled here byte by byte (no toolchain). Readable WebAssembly text of what is emitted
- * (the sliced kernel's $qbits, $planes and $np parameters are kept for a stable signature and not used):
+ * (the sliced kernel's $planes and $np parameters are kept for a stable signature and not used):
  *
  *   (module (import "env" "memory" (memory 1))
  *
@@ -10,13 +10,12 @@
  *   ;; (ripple carry: a plane is one bit of every lane's count), the planes are compared with $cmin bit by bit,
  *   ;; and every lane at or above it is written as [block·64 + lane, count]. Returns the number written.
  *   (func (export "sliced") (param $qbits $nbits $list $nsuper $out $cmin $planes $np i32) (result i32)
- *     c1 = nbits/2;  c2 = nbits − nbits/4                     ;; checkpoints
- *     for i < nsuper:  e = list + 16i;  base, qoff, used, lanes = e[0], e[4], e[8], e[12]
- *       for t < used  (base += 8 per block):                  ;; qoff[k] = 8·S·(k-th query bit), per super-chunk size
+ *     for i < nsuper:  e = list + 16i;  base, shift, used, lanes = e[0], e[4], e[8], e[12]   ;; shift = 3 + log2 S
+ *       for t < used  (base += 8 per block):
  *         P0 … P11 = 0                                   ;; 12 i64 locals, one bit of every lane's count each
- *         for k < nbits:  w = i64.load(base + qoff[k])
+ *         for k < nbits:  w = i64.load(base + (qbits[k] ≪ shift))
  *           if w ≠ 0: block (unrolled p = 0 … 11)  c = Pp ∧ w;  Pp = Pp ⊕ w;  w = c;  br_if 0 (w = 0)  end
- *           if k+1 ∈ {c1, c2}:  need = cmin − (nbits − k − 1)
+ *           if k+1 = nbits/2 or k+1 = nbits − nbits/4:  need = cmin − (nbits − k − 1)
  *             if need > 0 and no lane has count ≥ need (atLeast below): skip this block
  *         atLeast(cmin): gt = 0; eq = −1;  for p = 11 … 0 (unrolled): if cmin bit p: eq ∧= Pp  else: gt ∨= eq ∧ Pp
  *         mask = gt ∨ eq;  if t = used−1 ∧ lanes < 64: mask ∧= 2^lanes − 1
@@ -77,12 +76,11 @@ const ifThen = (cond: number[], then: number[], otherwise?: number[]) => [...con
 const PLANE_COUNT = 12;
 
 function slicedBody(): { locals: number[]; code: number[] } {
-  // Parameters 0–7 ($qbits, $planes, $np kept for the ABI, unused), i32 locals 8–25, i64 locals 26–30, planes 31–42.
-  const [NBITS, LIST, NSUPER, OUT, CMIN] = [1, 2, 3, 4, 5];
-  const [I, E, BASE, QOFF, USED, LANES, T, K, N, G, J, CNT, ADDR, PTR, SKIP, C1, C2, NEED1] = [8, 9, 10, 11, 12, 13, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 25];
-  const [W, TMP, GT, EQ, MASK] = [26, 27, 28, 29, 30];
-  const NEED2 = CNT; // reused: CNT is only live while emitting
-  const plane = (p: number) => 31 + p;
+  // Parameters 0–7 (planes/np kept for the ABI, unused), i32 locals 8–22, i64 locals 23–27, planes 28–39.
+  const [QBITS, NBITS, LIST, NSUPER, OUT, CMIN] = [0, 1, 2, 3, 4, 5];
+  const [I, E, BASE, SHIFT, USED, LANES, T, K, N, G, J, CNT, ADDR, NEED, SKIP] = [8, 9, 10, 11, 12, 13, 14, 15, 16, 17, 18, 19, 20, 21, 22];
+  const [W, TMP, GT, EQ, MASK] = [23, 24, 25, 26, 27];
+  const plane = (p: number) => 28 + p;
   const range = (n: number) => Array.from({ length: n }, (_, p) => p);
   const zeroPlanes = range(PLANE_COUNT).flatMap((p) => [...i64(0), ...set(plane(p))]);
   // Ripple-carry add of w into the planes, leaving as soon as the carry is zero.
@@ -103,20 +101,27 @@ function slicedBody(): { locals: number[]; code: number[] } {
       [...get(GT), ...get(EQ), ...get(plane(p)), OP.i64And, OP.i64Or, ...set(GT)])),
     ...get(GT), ...get(EQ), OP.i64Or, ...set(MASK),
   ];
-  // At checkpoint c (after c bits), lanes below need = cmin − (nbits − c) can no longer reach cmin; if that is
-  // every lane, the block is skipped. Depth of the bits block from the inner if: if (0), checkpoint if (1), loop (2), block (3).
-  const checkpoint = (at: number, need: number) => ifThen([...get(K), ...get(at), OP.i32Eq, ...get(need), ...i32(0), OP.i32GtS, OP.i32And], [
-    ...atLeast(need),
-    ...get(MASK), OP.i64Eqz, OP.if, OP.void, ...i32(1), ...set(SKIP), OP.br, 3, OP.end,
-  ]);
+  // After half and after three quarters of the bits: if no lane can still reach cmin with the bits left, stop.
+  const checkpoint = ifThen(
+    [...get(K), ...get(NBITS), ...i32(1), OP.i32ShrU, OP.i32Eq, ...get(K), ...get(NBITS), ...get(NBITS), ...i32(2), OP.i32ShrU, OP.i32Sub, OP.i32Eq, OP.i32Or],
+    [
+      ...get(CMIN), ...get(NBITS), ...get(K), OP.i32Sub, OP.i32Sub, OP.localTee, NEED, ...i32(0), OP.i32GtS,
+      OP.if, OP.void,
+      ...atLeast(NEED),
+      // Depth: this if (0), the checkpoint if (1), the loop (2), the bits block (3).
+      ...get(MASK), OP.i64Eqz, OP.if, OP.void, ...i32(1), ...set(SKIP), OP.br, 4, OP.end,
+      OP.end,
+    ],
+  );
   const addBits = [
-    ...i32(0), ...set(K), ...i32(0), ...set(SKIP), ...get(QOFF), ...set(PTR),
+    ...i32(0), ...set(K), ...i32(0), ...set(SKIP),
     ...loop([...get(K), ...get(NBITS), OP.i32GeU], [
-      ...get(BASE), ...get(PTR), OP.i32Load, 2, 0, OP.i32Add, OP.i64Load, 3, 0, OP.localTee, W,
+      // w = word(base + (qbits[k] << shift)), base already offset to block t
+      ...get(BASE), ...get(QBITS), ...get(K), ...i32(1), OP.i32Shl, OP.i32Add, OP.i32Load16U, 1, 0, ...get(SHIFT), OP.i32Shl, OP.i32Add,
+      OP.i64Load, 3, 0, OP.localTee, W,
       OP.i64Eqz, OP.i32Eqz, OP.if, OP.void, ...carryChain, OP.end,
-      ...inc(K), ...inc(PTR, 4),
-      ...checkpoint(C1, NEED1),
-      ...checkpoint(C2, NEED2),
+      ...inc(K),
+      ...checkpoint,
     ]),
   ];
   const lanesMask = ifThen([...get(T), ...get(USED), ...i32(1), OP.i32Sub, OP.i32Eq, ...get(LANES), ...i32(64), OP.i32LtU, OP.i32And],
@@ -133,22 +138,15 @@ function slicedBody(): { locals: number[]; code: number[] } {
     ...inc(N),
     ...get(MASK), ...get(MASK), ...i64(1), OP.i64Sub, OP.i64And, ...set(MASK),
   ]);
-  const needAt = (at: number) => [...get(CMIN), ...get(NBITS), ...get(at), OP.i32Sub, OP.i32Sub];
   const perBlock = [
-    ...zeroPlanes,
-    ...needAt(C2), ...set(NEED2),
-    ...addBits,
+    ...zeroPlanes, ...addBits,
     ...ifThen([...get(SKIP), OP.i32Eqz], [...atLeast(CMIN), ...lanesMask, ...emit]),
     ...inc(BASE, 8), ...inc(G), ...inc(T),
   ];
   const code = [
-    // Checkpoints after half and after three quarters of the query's bits.
-    ...get(NBITS), ...i32(1), OP.i32ShrU, ...set(C1),
-    ...get(NBITS), ...get(NBITS), ...i32(2), OP.i32ShrU, OP.i32Sub, ...set(C2),
-    ...needAt(C1), ...set(NEED1),
     ...loop([...get(I), ...get(NSUPER), OP.i32GeU], [
       ...get(LIST), ...get(I), ...i32(4), OP.i32Shl, OP.i32Add, OP.localTee, E, OP.i32Load, 2, 0, ...set(BASE),
-      ...get(E), OP.i32Load, 2, 4, ...set(QOFF),
+      ...get(E), OP.i32Load, 2, 4, ...set(SHIFT),
       ...get(E), OP.i32Load, 2, 8, ...set(USED),
       ...get(E), OP.i32Load, 2, 12, ...set(LANES),
       ...i32(0), ...set(T),
@@ -157,7 +155,7 @@ function slicedBody(): { locals: number[]; code: number[] } {
     ]),
     ...get(N),
   ];
-  return { locals: [2, 18, I32, 5 + PLANE_COUNT, I64], code };
+  return { locals: [2, 15, I32, 5 + PLANE_COUNT, I64], code };
 }
 
 function screenBody(): { locals: number[]; code: number[] } {

@@ -1,7 +1,7 @@
 /** The hand-assembled WebAssembly kernels against plain JavaScript on random data. */
 import { describe, expect, it } from "vitest";
 import { intersectionCount } from "@/lib/chem/structure/fingerprint";
-import { FingerprintMemory, LIST_ADDRESS, OUT_ADDRESS, QOFF_ADDRESS, QOFF_TABLE_BYTES } from "@/lib/search/fingerprint-memory";
+import { FingerprintMemory, LIST_ADDRESS, OUT_ADDRESS, QBITS_ADDRESS } from "@/lib/search/fingerprint-memory";
 import { kernelBytes } from "@/lib/search/wasm-kernel";
 import { randomFingerprint, seeded } from "./random-fingerprints";
 
@@ -51,17 +51,19 @@ describe("scan kernels", () => {
       const query = randomFingerprint(random, 20 + q * 7, 500);
       const bits: number[] = [];
       for (let k = 0; k < 2048; k++) if ((query[k >> 3] ?? 0) & (1 << (k & 7))) bits.push(k);
-      // Word offsets of the query bits for super-chunks of 4 blocks (table 2) and 2 blocks (table 1).
-      for (const log of [1, 2]) bits.forEach((bit, i) => (memory.words[(QOFF_ADDRESS + log * QOFF_TABLE_BYTES) / 4 + i] = bit << (3 + log)));
+      bits.forEach((bit, i) => {
+        memory.bytes[QBITS_ADDRESS + 2 * i] = bit & 0xff;
+        memory.bytes[QBITS_ADDRESS + 2 * i + 1] = bit >> 8;
+      });
       const cmin = q % 4 === 0 ? 0 : Math.floor(bits.length * 0.15 * (q % 4));
       supers.forEach((sup, s) => {
         const at = LIST_ADDRESS / 4 + s * 4;
         memory.words[at] = memory.address(sup.chunk);
-        memory.words[at + 1] = QOFF_ADDRESS + Math.log2(sup.size) * QOFF_TABLE_BYTES;
+        memory.words[at + 1] = 3 + Math.log2(sup.size);
         memory.words[at + 2] = sup.blocks;
         memory.words[at + 3] = s === 1 ? 350 - 256 - 64 : 64;
       });
-      const found = memory.kernel.sliced(0, bits.length, LIST_ADDRESS, 2, OUT_ADDRESS, cmin, 0, 0);
+      const found = memory.kernel.sliced(QBITS_ADDRESS, bits.length, LIST_ADDRESS, 2, OUT_ADDRESS, cmin, 0, 12);
       const got = new Map<number, number>();
       for (let r = 0; r < found; r++) got.set(memory.words[OUT_ADDRESS / 4 + 2 * r] ?? -1, memory.words[OUT_ADDRESS / 4 + 2 * r + 1] ?? -1);
       const expected = new Map(entries.flatMap((fp, i) => {
