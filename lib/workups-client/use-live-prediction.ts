@@ -8,6 +8,7 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { simulateWorkup } from "@/lib/chem/predict";
 import { type LibraryOverrides } from "@/lib/chem/library";
 import { type WorkupPrediction } from "@/lib/chem/types";
+import { applyGroupValues, type GroupValues } from "@/lib/partition/overlay";
 import { computeInterval, PREVIEW_DRAWS, type IntervalReply, type IntervalRequest, type PreviewInterval } from "./interval";
 import { checkSpec, type Issue } from "./validate";
 
@@ -93,12 +94,17 @@ function useIntervalRunner(onReply: (reply: IntervalReply) => void) {
   }, []);
 }
 
-export function useLivePrediction(rawSpec: unknown, library: LibraryOverrides, options: { draws?: number; delayMs?: number } = {}): LivePrediction {
+/**
+ * `options.groupValues`: the group's values for the linked compounds (use-group-values.ts), laid over the spec as a
+ * save does, so the preview matches the stored prediction. Keep the object stable between renders.
+ */
+export function useLivePrediction(rawSpec: unknown, library: LibraryOverrides, options: { draws?: number; delayMs?: number; groupValues?: GroupValues } = {}): LivePrediction {
   const [live, setLive] = useState<LivePrediction>(INITIAL);
   const latest = useRef(0);
   const specJson = JSON.stringify(rawSpec);
   const draws = options.draws ?? PREVIEW_DRAWS;
   const delay = options.delayMs ?? DEBOUNCE_MS;
+  const groupValues = options.groupValues;
   const runInterval = useIntervalRunner((reply) => {
     if (reply.id !== latest.current) return;
     setLive((l) => (reply.ok ? { ...l, interval: reply.interval, intervalStatus: "ready" } : { ...l, intervalStatus: "failed" }));
@@ -114,19 +120,20 @@ export function useLivePrediction(rawSpec: unknown, library: LibraryOverrides, o
       }
       const started = performance.now();
       try {
-        const prediction = simulateWorkup(check.spec, library);
+        const spec = applyGroupValues(check.spec, groupValues);
+        const prediction = simulateWorkup(spec, library);
         const elapsedMs = performance.now() - started;
         setLive((l) => ({
           status: "ready", prediction, stale: false, issues: [], failure: null, interval: l.interval,
           intervalStatus: draws > 0 ? "computing" : "idle", revision: l.revision + 1, elapsedMs,
         }));
-        if (draws > 0) runInterval({ id, spec: check.spec, library, draws });
+        if (draws > 0) runInterval({ id, spec, library, draws });
       } catch (error) {
         setLive((l) => ({ ...l, status: "failed", stale: l.prediction !== null, failure: error instanceof Error ? error.message : "the engine could not run this workup" }));
       }
     }, delay);
     return () => clearTimeout(timer);
-  }, [specJson, library, draws, delay, runInterval]);
+  }, [specJson, library, draws, delay, runInterval, groupValues]);
 
   return live;
 }

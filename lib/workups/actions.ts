@@ -7,12 +7,12 @@ import { revalidatePath } from "next/cache";
 import { memberAction } from "@/lib/authz/action";
 import { getDb } from "@/lib/db/client";
 import { type ActionResult } from "@/lib/errors";
+import { type GroupValues } from "@/lib/partition/overlay";
 import { actorOf } from "./context";
 import { type VersionDiff } from "./diff";
 import { diffVersions, listVersions, type VersionEntry } from "./history";
 import { reportOutcome, type OutcomeReport } from "./outcome";
-import { computePrediction, seedFromId } from "./prediction";
-import { groupLibrary } from "./library";
+import { previewGroupValues, previewPrediction, type PreviewLinks } from "./preview";
 import { getWorkupDetail, listWorkups, type WorkupDetail, type WorkupListPage } from "./queries";
 import { type CreateWorkupInput, type OutcomeInputRaw, type UpdateWorkupInput, type WorkupListFilterInput } from "./schemas";
 import { createWorkup, deleteWorkup, updateWorkup, type PredictionSummary, type SavedWorkup } from "./service";
@@ -73,14 +73,14 @@ export async function diffVersionsAction(workupId: string, from: number, to: num
 
 /**
  * The server's prediction with its interval, without saving (the editor predicts in the browser while typing; this
- * is the same computation a save stores, for a "check on the server" button). The seed follows the workup id when
- * one is given, so the interval matches what saving would store.
+ * is the same computation a save stores, for a "check on the server" button): the group's values for `links` (or,
+ * without them, the saved workup's links) are laid over the spec, and the seed follows the workup id, as on save.
  */
-export async function predictAction(spec: unknown, workupId?: string): Promise<ActionResult<PredictionSummary>> {
-  return memberAction("data:read", async (member) => {
-    const library = await groupLibrary(await getDb(), member.group.id);
-    const p = computePrediction(spec, { library, seed: seedFromId(workupId ?? member.group.id) });
-    const { flags, cautions } = p.result.prediction;
-    return { engineVersion: p.engineVersion, productKey: p.productKey, productRecovery: p.productRecovery, recoveryLow: p.recoveryLow, recoveryHigh: p.recoveryHigh, flags, cautions };
-  });
+export async function predictAction(spec: unknown, workupId?: string, links?: PreviewLinks): Promise<ActionResult<PredictionSummary>> {
+  return memberAction("data:read", async (member) => previewPrediction(await getDb(), member.group.id, spec, { workupId, links }));
+}
+
+/** The group's pooled partition values and registry properties for the editor's linked components, by component key. */
+export async function groupValuesAction(links: PreviewLinks): Promise<ActionResult<GroupValues>> {
+  return memberAction("data:read", async (member) => previewGroupValues(await getDb(), member.group.id, links));
 }

@@ -16,6 +16,7 @@ import { editorStateOf } from "@/lib/workups-client/from-spec";
 import { mergeSnapshots } from "@/lib/workups-client/merge";
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { saveInput } from "@/lib/workups-client/to-spec";
+import { useGroupValues } from "@/lib/workups-client/use-group-values";
 import { useLivePrediction } from "@/lib/workups-client/use-live-prediction";
 import { EditorContext, type EditorApi } from "./editor-context";
 import { HeaderFields, type MemberChoice } from "./header-fields";
@@ -55,7 +56,8 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   const editor = useEditorState(initial, library, workupId !== null);
   const { state, input } = editor;
   const resolved = useMemo(() => resolveLibrary(library), [library]);
-  const live = useLivePrediction(input.spec, library);
+  const groupValues = useGroupValues(input.links ?? []);
+  const live = useLivePrediction(input.spec, library, { groupValues });
   const [version, setVersion] = useState(baseVersion);
   const [opened, setOpened] = useState(base);
   const [baseline, setBaseline] = useState(() => JSON.stringify(input));
