@@ -58,6 +58,9 @@ export default async function CompoundPage({ params }: { params: Promise<{ id: s
         </Card>
         <Card title={`The group's partition data (${observations.length})`}>
           <PartitionTable observations={observations} />
+          <Link href={`/partition/${compound.id}`} className="mt-3 inline-block text-sm text-teal-800 underline">
+            Pooled values and all measurements
+          </Link>
         </Card>
       </div>
     </>
