@@ -1,0 +1,2 @@
+-- CreateIndex
+CREATE INDEX "Compound_groupId_updatedAt_idx" ON "Compound"("groupId", "updatedAt");
