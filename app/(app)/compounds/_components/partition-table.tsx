@@ -1,19 +1,12 @@
 import { Badge } from "@/components/ui/badge";
 import { formatDate, formatNumber } from "@/components/ui/format";
+import type { ObservationRow } from "@/lib/partition/queries";
 
-export interface PartitionRow {
-  id: string;
-  solventKey: string;
-  aqueousPh: number | null;
-  temperatureC: number;
-  logK: number;
-  logKSe: number | null;
-  kind: "measured" | "inferred";
-  bound: "value" | "lower" | "upper";
-  method: string;
-  excluded: boolean;
-  createdAt: Date;
-}
+/** The columns of a partition observation this table shows (the partition feature owns the full row). */
+export type PartitionRow = Pick<
+  ObservationRow,
+  "id" | "solventKey" | "aqueousPh" | "temperatureC" | "logK" | "logKSe" | "kind" | "bound" | "method" | "excluded" | "createdAt"
+>;
 
 const BOUND: Record<PartitionRow["bound"], string> = { value: "", lower: "≥ ", upper: "≤ " };
 
