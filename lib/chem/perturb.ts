@@ -10,6 +10,7 @@
  *  - every volume ±5 % (issue 3), reagent amounts ±5 % (same figure, by analogy), and a pH set with paper or a
  *    meter ±0.3 (from memory: the resolution of wide-range pH paper).
  */
+import { type WorkupParameters } from "./parameters";
 import { LOGP_SE_BY_PROVENANCE } from "./partition";
 import type { Component, Operation, Provenance, WorkupInput } from "./schema";
 
@@ -51,10 +52,19 @@ interface OperationPlan {
   rinse: number;
 }
 
+type ParameterField = "logP" | "logK" | "pKa" | "mixtureSolventMl" | "mixtureReagentMl" | "volumeMl" | "operationAmountMmol" | "targetPh" | "rinseMl";
+
 export interface PerturbationPlan {
   sites: UncertainInput[];
   /** Builds one perturbed input; `z(i)` is the standard normal for site i. */
   draw(z: Float64Array): WorkupInput;
+  /**
+   * A function that writes the perturbation for `z` into `out` (laid out as readParameters(input) lays it out)
+   * from the input's own values in `nominal`: the numbers draw(z) would put in its copy, without building one.
+   * Only the uncertain numbers are written; `out` must hold the nominal values elsewhere, and neither may be
+   * re-read into (the arrays are bound once).
+   */
+  parameterDrawer(nominal: WorkupParameters, out: WorkupParameters): (z: Float64Array) => void;
 }
 
 function componentPlan(c: Component, d: UncertaintyDefaults, extraLogSd: number): ComponentPlan {
@@ -83,20 +93,29 @@ function operationPlan(op: Operation, d: UncertaintyDefaults): OperationPlan {
  */
 export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaults = DEFAULT_UNCERTAINTY, extraLogSd = 0): PerturbationPlan {
   const sites: UncertainInput[] = [];
+  // Where each site's number sits in a WorkupParameters (readParameters' layout), in the order of the sites.
+  const slotField: ParameterField[] = [];
+  const slotIndex: number[] = [];
+  const site = (path: string, sd: number, scale: UncertainInput["scale"], field: ParameterField, index: number) => {
+    sites.push({ path, sd, scale });
+    slotField.push(field);
+    slotIndex.push(index);
+  };
   const comps = input.components.map((c) => componentPlan(c, defaults, extraLogSd));
+  let logKAt = 0, pKaAt = 0;
   comps.forEach((p, i) => {
-    if (p.logP > 0) sites.push({ path: `components.${i}.logP`, sd: p.logP, scale: "log" });
-    for (const [solvent, sd] of p.logK) sites.push({ path: `components.${i}.logK.${solvent}`, sd, scale: "log" });
-    p.pKa.forEach((sd, j) => sites.push({ path: `components.${i}.pKas.${j}`, sd, scale: "pKa" }));
+    if (p.logP > 0) site(`components.${i}.logP`, p.logP, "log", "logP", i);
+    for (const [solvent, sd] of p.logK) site(`components.${i}.logK.${solvent}`, sd, "log", "logK", logKAt++);
+    p.pKa.forEach((sd, j) => site(`components.${i}.pKas.${j}`, sd, "pKa", "pKa", pKaAt++));
   });
-  input.mixture.solvents.forEach((_, i) => sites.push({ path: `mixture.solvents.${i}.volumeMl`, sd: defaults.volumeRelative, scale: "relative" }));
-  input.mixture.reagents.forEach((_, i) => sites.push({ path: `mixture.reagents.${i}.volumeMl`, sd: defaults.volumeRelative, scale: "relative" }));
+  input.mixture.solvents.forEach((_, i) => site(`mixture.solvents.${i}.volumeMl`, defaults.volumeRelative, "relative", "mixtureSolventMl", i));
+  input.mixture.reagents.forEach((_, i) => site(`mixture.reagents.${i}.volumeMl`, defaults.volumeRelative, "relative", "mixtureReagentMl", i));
   const ops = input.operations.map((op) => operationPlan(op, defaults));
   ops.forEach((p, i) => {
-    if (p.volume > 0) sites.push({ path: `operations.${i}.volumeMl`, sd: p.volume, scale: "relative" });
-    if (p.amount > 0) sites.push({ path: `operations.${i}.amountMmol`, sd: p.amount, scale: "relative" });
-    if (p.targetPh > 0) sites.push({ path: `operations.${i}.targetPh`, sd: p.targetPh, scale: "pH" });
-    if (p.rinse > 0) sites.push({ path: `operations.${i}.rinse.volumeMl`, sd: p.rinse, scale: "relative" });
+    if (p.volume > 0) site(`operations.${i}.volumeMl`, p.volume, "relative", "volumeMl", i);
+    if (p.amount > 0) site(`operations.${i}.amountMmol`, p.amount, "relative", "operationAmountMmol", i);
+    if (p.targetPh > 0) site(`operations.${i}.targetPh`, p.targetPh, "pH", "targetPh", i);
+    if (p.rinse > 0) site(`operations.${i}.rinse.volumeMl`, p.rinse, "relative", "rinseMl", i);
   });
 
   // Volumes and amounts are scaled by exp(sd·z) ≈ 1 + sd·z: positive for any draw, median unchanged.
@@ -140,6 +159,21 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
         return copy as Operation;
       });
       return { ...input, components, mixture, operations };
+    },
+    parameterDrawer(nominal: WorkupParameters, out: WorkupParameters): (z: Float64Array) => void {
+      const from = slotField.map((f) => nominal[f]);
+      const to = slotField.map((f) => out[f]);
+      const relative = sites.map((x) => x.scale === "relative");
+      const sd = Float64Array.from(sites, (x) => x.sd);
+      const index = Int32Array.from(slotIndex);
+      return (z) => {
+        for (let k = 0; k < index.length; k++) {
+          const i = index[k] as number;
+          const value = (from[k] as Float64Array)[i] as number;
+          const zi = z[k] ?? 0;
+          (to[k] as Float64Array)[i] = relative[k] ? scale(value, sd[k] as number, zi) : value + (sd[k] as number) * zi;
+        }
+      };
     },
   };
 }

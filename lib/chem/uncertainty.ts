@@ -4,7 +4,8 @@
  * The same seed gives the same draws, so a stored interval can be reproduced; deviation flags compare an
  * observed recovery with the interval (§2.11 step 5).
  */
-import { sortedPercentile } from "./distributions";
+import { compileWorkup, engineOptionsOf } from "./compiled";
+import { percentiles } from "./percentiles";
 import { DEFAULT_UNCERTAINTY, planPerturbation, type UncertainInput, type UncertaintyDefaults } from "./perturb";
 import { createRng } from "./random";
 import { SOLVENTS } from "./data/solvents";
@@ -62,20 +63,17 @@ export interface WorkupUncertainty {
 
 const FAST = { steps: false, flags: false } as const;
 
+const INTERVAL_PERCENTILES = [0.025, 0.5, 0.975] as const;
+
 function summarize(values: Float64Array, count: number): Interval {
-  const sorted = values.slice(0, count).sort();
+  const work = values.slice(0, count);
   let sum = 0;
-  for (const v of sorted) sum += v;
+  for (let i = 0; i < count; i++) sum += work[i] as number;
   const mean = sum / count;
   let ss = 0;
-  for (const v of sorted) ss += (v - mean) ** 2;
-  return {
-    p025: sortedPercentile(sorted, 0.025),
-    p50: sortedPercentile(sorted, 0.5),
-    p975: sortedPercentile(sorted, 0.975),
-    mean,
-    sd: count > 1 ? Math.sqrt(ss / (count - 1)) : 0,
-  };
+  for (let i = 0; i < count; i++) ss += ((work[i] as number) - mean) ** 2;
+  const [p025, p50, p975] = percentiles(work, INTERVAL_PERCENTILES) as [number, number, number];
+  return { p025, p50, p975, mean, sd: count > 1 ? Math.sqrt(ss / (count - 1)) : 0 };
 }
 
 function squaredCorrelation(x: Float64Array, y: Float64Array, count: number): number {
@@ -124,22 +122,41 @@ export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulat
   const zBySite = plan.sites.map(() => new Float64Array(draws));
   const z = new Float64Array(plan.sites.length);
 
+  // The engine's own simulator runs compiled: each draw rewrites the numbers in place (same values as plan.draw).
+  const engine = engineOptionsOf(simulate);
+  const compiled = engine ? compileWorkup(input, engine, { rememberPh: true }) : null;
+  const drawInto = compiled ? plan.parameterDrawer(compiled.nominal, compiled.params) : null;
   let ok = 0;
   let failed = 0;
   for (let d = 0; d < draws; d++) {
     for (let s = 0; s < z.length; s++) z[s] = rng.normal();
-    let result: WorkupPrediction;
-    try {
-      result = simulate(plan.draw(z), FAST);
-    } catch {
-      failed++;
-      continue;
+    if (compiled && drawInto) {
+      try {
+        drawInto(z);
+        compiled.run();
+      } catch {
+        failed++;
+        continue;
+      }
+      for (let i = 0; i < keys.length; i++) {
+        (recovery[i] as Float64Array)[ok] = compiled.recovery[i] as number;
+        (purity[i] as Float64Array)[ok] = compiled.purityPct[i] as number;
+      }
+      crude[ok] = compiled.crudeMassMg;
+    } else {
+      let result: WorkupPrediction;
+      try {
+        result = simulate(plan.draw(z), FAST);
+      } catch {
+        failed++;
+        continue;
+      }
+      keys.forEach((key, i) => {
+        (recovery[i] as Float64Array)[ok] = result.recovery[key] ?? 0;
+        (purity[i] as Float64Array)[ok] = result.purityPct[key] ?? 0;
+      });
+      crude[ok] = result.crudeMassMg;
     }
-    keys.forEach((key, i) => {
-      (recovery[i] as Float64Array)[ok] = result.recovery[key] ?? 0;
-      (purity[i] as Float64Array)[ok] = result.purityPct[key] ?? 0;
-    });
-    crude[ok] = result.crudeMassMg;
     for (let s = 0; s < z.length; s++) (zBySite[s] as Float64Array)[ok] = z[s] ?? 0;
     ok++;
   }
