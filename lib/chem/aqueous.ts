@@ -74,13 +74,36 @@ export function solvePh(balance: ChargeBalance, guess = NaN, tolerance = 1e-9): 
   return brent(balance, a, b, fa, fb, tolerance);
 }
 
-export interface SlopedChargeBalance extends ChargeBalance {
-  /** d(residual)/d(pH) at the pH last passed to residual(); negative. */
+export interface SlopedChargeBalance {
+  /** Net positive charge (mol/L) at this pH, with h = 10^−pH given; sets `slope`. */
+  residualAt(pH: number, h: number): number;
+  /** d(residual)/d(pH) at the pH last passed to residualAt(); negative. */
   readonly slope: number;
+  /** Set by the solver: 10^−pH at the pH it returns. */
+  rootH: number;
 }
 
-/** Newton steps shorter than this (pH units) end the search; the step taken leaves an error of order its square. */
-const NEWTON_STEP_TOLERANCE = 1e-7;
+const tenToMinus = (pH: number): number => Math.exp(-pH * Math.LN10);
+
+/** e^u for |u| ≤ 0.025 by its Taylor series to u⁶ (relative error below 2e-15), cheaper than Math.exp. */
+function expSmall(u: number): number {
+  return 1 + u * (1 + (u / 2) * (1 + (u / 3) * (1 + (u / 4) * (1 + (u / 5) * (1 + u / 6)))));
+}
+
+function rootAt(balance: SlopedChargeBalance, pH: number, h: number): number {
+  balance.rootH = h;
+  return pH;
+}
+
+/** 10^−(x + step) from h = 10^−x. */
+function shiftH(h: number, x: number, step: number): number {
+  const u = -step * Math.LN10;
+  return Math.abs(u) <= 0.025 ? h * expSmall(u) : tenToMinus(x + step);
+}
+
+/** Newton steps shorter than this (pH units) end the search; the step taken leaves an error of order its square
+ * (about 1e-10, below solvePh's tolerance of 1e-9). */
+const NEWTON_STEP_TOLERANCE = 1e-5;
 
 /**
  * pH where the residual crosses zero, by Newton steps on the analytic slope kept inside a shrinking bracket,
@@ -92,27 +115,39 @@ export function solvePhWithSlope(balance: SlopedChargeBalance, guess = NaN): num
   let lo = PH_MIN, hi = PH_MAX;
   let loChecked = false, hiChecked = false;
   let x = Number.isFinite(guess) && guess > PH_MIN && guess < PH_MAX ? guess : 7;
+  let h = tenToMinus(x);
   let stepBefore = PH_MAX - PH_MIN, lastStep = stepBefore;
   for (let iter = 0; iter < 200; iter++) {
-    const f = balance.residual(x);
-    if (f === 0) return x;
+    const f = balance.residualAt(x, h);
+    if (f === 0) return rootAt(balance, x, h);
     if (f > 0) { lo = x; loChecked = true; } else { hi = x; hiChecked = true; }
     const slope = balance.slope;
     const step = slope < 0 ? -f / slope : NaN;
-    if (Math.abs(step) < NEWTON_STEP_TOLERANCE) return Math.min(PH_MAX, Math.max(PH_MIN, x + step));
+    if (Math.abs(step) < NEWTON_STEP_TOLERANCE) {
+      const root = x + step;
+      if (root > PH_MIN && root < PH_MAX) return rootAt(balance, root, shiftH(h, x, step));
+      const clamped = root <= PH_MIN ? PH_MIN : PH_MAX;
+      return rootAt(balance, clamped, tenToMinus(clamped));
+    }
     let next = x + step;
     if (!(next > lo && next < hi && Math.abs(step) <= 0.5 * Math.abs(stepBefore))) {
       // A root beyond an end never evaluated: test that end once (solvePh's clamp), else bisect.
-      if (next <= lo && !loChecked) { loChecked = true; if (balance.residual(PH_MIN) <= 0) return PH_MIN; }
-      else if (next >= hi && !hiChecked) { hiChecked = true; if (balance.residual(PH_MAX) >= 0) return PH_MAX; }
+      if (next <= lo && !loChecked) {
+        loChecked = true;
+        if (balance.residualAt(PH_MIN, tenToMinus(PH_MIN)) <= 0) return rootAt(balance, PH_MIN, tenToMinus(PH_MIN));
+      } else if (next >= hi && !hiChecked) {
+        hiChecked = true;
+        if (balance.residualAt(PH_MAX, tenToMinus(PH_MAX)) >= 0) return rootAt(balance, PH_MAX, tenToMinus(PH_MAX));
+      }
       next = 0.5 * (lo + hi);
-      if (hi - lo < NEWTON_STEP_TOLERANCE * 1e-3) return next;
+      if (hi - lo < 1e-10) return rootAt(balance, next, tenToMinus(next));
     }
     stepBefore = lastStep;
     lastStep = next - x;
+    h = shiftH(h, x, next - x);
     x = next;
   }
-  return x;
+  return rootAt(balance, x, tenToMinus(x));
 }
 
 function brent(balance: ChargeBalance, a: number, b: number, fa: number, fb: number, tolerance: number): number {

@@ -29,8 +29,9 @@ export class Equilibrator implements SlopedChargeBalance {
   fractionAqueous: Float64Array;
   pH = NaN;
   co2Mmol = 0;
-  /** d(residual)/d(pH) at the last evaluated pH. */
+  /** d(residual)/d(pH) at the last evaluated pH, and 10^−pH at the pH last solved for. */
   slope = 0;
+  rootH = Number.NaN;
   /** Last solved pH, the starting guess for the next contact unless the caller gives one. */
   lastSolved = NaN;
   /** pH of the last contact before CO₂ above saturation left (equal to pH when none did). */
@@ -40,6 +41,10 @@ export class Equilibrator implements SlopedChargeBalance {
   private active = new Int32Array(N_SYSTEMS);
   private nActive = 0;
   private strongConc = 0;
+  /** Per contact: each system's total and each component's amount over the aqueous volume, and V_org/V_aq. */
+  private systemConc = new Float64Array(N_SYSTEMS);
+  private amountConc: Float64Array;
+  private voOverVa = 0;
   private va = 0;
   private vo = 0;
   private amounts: Float64Array;
@@ -63,6 +68,7 @@ export class Equilibrator implements SlopedChargeBalance {
     this.amounts = new Float64Array(n);
     this.charged = new Int32Array(n);
     this.ownIonFactor = new Float64Array(n);
+    this.amountConc = new Float64Array(n);
   }
 
   /** 10^x, remembered for the last x: contacts mostly share the organic layer's ion offset. */
@@ -112,20 +118,32 @@ export class Equilibrator implements SlopedChargeBalance {
     this.setPartition();
     copyInto(this.systemTotals, mix.sys);
     this.nActive = 0;
-    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) if ((mix.sys[sIdx] as number) > 0) this.active[this.nActive++] = sIdx;
+    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) {
+      const total = mix.sys[sIdx] as number;
+      if (total > 0) {
+        this.active[this.nActive++] = sIdx;
+        this.systemConc[sIdx] = total / this.va;
+      }
+    }
     this.strongConc = mix.strongCharge / this.va;
+    for (let k = 0; k < this.nCharged; k++) {
+      const c = this.charged[k] as number;
+      this.amountConc[c] = (this.amounts[c] as number) / this.va;
+    }
+    this.voOverVa = this.vo / this.va;
     this.pH = solvePhWithSlope(this, guess);
     this.phBeforeGas = this.pH;
     const carb = this.systemTotals[CARBONATE] as number;
     if (carb > 0) {
-      const excess = co2Excess(carb, this.va, Math.exp(-this.pH * Math.LN10));
+      const excess = co2Excess(carb, this.va, this.rootH);
       if (excess > 1e-12) {
         this.co2Mmol = excess;
         this.systemTotals[CARBONATE] = carb - excess;
+        this.systemConc[CARBONATE] = (carb - excess) / this.va;
         this.pH = solvePhWithSlope(this, Number.isFinite(guessAfterGas) ? guessAfterGas : this.pH);
       }
     }
-    this.speciate(this.pH);
+    this.speciate(this.rootH);
     this.lastSolved = this.pH;
     copyInto(aq.sys, this.systemTotals);
     aq.strongCharge = mix.strongCharge;
@@ -177,30 +195,31 @@ export class Equilibrator implements SlopedChargeBalance {
    * Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers;
    * sets `slope` to its derivative in pH (a sum of negative terms: −ln10 times the buffer capacities).
    */
-  residual(pH: number): number {
-    const h = Math.exp(-pH * Math.LN10);
-    let f = this.strongConc + h - KW / h;
-    let df = h + KW / h;
+  residualAt(_pH: number, h: number): number {
+    const hInv = 1 / h;
+    const oh = KW * hInv;
+    let f = this.strongConc + h - oh;
+    let df = h + oh;
     for (let k = 0; k < this.nActive; k++) {
       const s = this.active[k] as number;
       const ka = SYSTEM_KA[s] as Float64Array;
       let term = 1, sum = 1, lost = 0, lost2 = 0;
       for (let i = 0; i < ka.length; i++) {
-        term *= (ka[i] as number) / h;
+        term *= (ka[i] as number) * hInv;
         sum += term;
         lost += (i + 1) * term;
         lost2 += (i + 1) * (i + 1) * term;
       }
-      const conc = (this.systemTotals[s] as number) / this.va;
+      const conc = this.systemConc[s] as number;
       const mean = lost / sum;
       f += conc * ((SYSTEM_Z0[s] as number) - mean);
       df += conc * (lost2 / sum - mean * mean);
     }
-    const { comps, va, vo } = this;
+    const { comps, voOverVa } = this;
     for (let k = 0; k < this.nCharged; k++) {
       const c = this.charged[k] as number;
-      const n = this.amounts[c] as number;
-      if (!(n > 0)) continue;
+      const nc = this.amountConc[c] as number;
+      if (!(nc > 0)) continue;
       const acid = comps.acidKa[c] as Float64Array;
       const base = comps.baseKa[c] as Float64Array;
       // Per site: charged fraction x; d x/d pH = ±ln10·x(1 − x). f₀ = Π(1 − x) moves by ln10·f₀·z.
@@ -222,20 +241,18 @@ export class Equilibrator implements SlopedChargeBalance {
       const fixed = comps.fixedCharge[c] !== 0;
       if (fixed) f0 = 0;
       const kN = this.kNeutral[c] as number, kI = this.kIon[c] as number;
-      const d = kN * f0 + kI * (1 - f0);
-      const fa = va / (va + d * vo);
-      if (z !== 0) f += (n * fa * z) / va;
+      const fa = 1 / (1 + (kN * f0 + kI * (1 - f0)) * voOverVa);
+      f += nc * fa * z;
       // d fa/d pH = −fa²·(vo/va)·(kN − kI)·f₀·z·ln10; the ln10 is applied to the whole slope below.
-      const dfa = fixed ? 0 : -fa * fa * (vo / va) * (kN - kI) * f0 * z;
-      df += (n / va) * (fa * dz - dfa * z);
+      const dfa = fixed ? 0 : -fa * fa * voOverVa * (kN - kI) * f0 * z;
+      df += nc * (fa * dz - dfa * z);
     }
     this.slope = -Math.LN10 * df;
     return f;
   }
 
-  /** Speciation and distribution of every component at the solved pH. */
-  private speciate(pH: number): void {
-    const h = Math.exp(-pH * Math.LN10);
+  /** Speciation and distribution of every component at the solved pH ([H⁺] = h). */
+  private speciate(h: number): void {
     const { comps, va, vo } = this;
     for (let c = 0; c < comps.count; c++) {
       const acid = comps.acidKa[c] as Float64Array;

@@ -17,8 +17,14 @@ type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>,
 /** The perturbable numbers of step `step` (1-based) come from the simulator's parameters, not from `op`. */
 const volumeOf = (sim: Simulator, step: number): number => sim.params.volumeMl[step - 1] as number;
 
+/** Stands in for the context of a contact nobody traces (the Monte-Carlo path builds none). */
+const UNTRACED: ContactContext = Object.freeze({
+  step: 0, opType: "charge", portion: 0, keep: null, reagentKey: null, reagent: null, before: null, temperatureC: Number.NaN,
+});
+
 function ctx(sim: Simulator, op: Operation, step: number, portion: number, keep: ContactContext["keep"],
   reagentKey: string | null, before: AcidBaseContent | null): ContactContext {
+  if (!sim.tracing && !sim.onContact) return UNTRACED;
   return {
     step, opType: op.type, portion, keep, reagentKey, reagent: reagentKey ? sim.reagent(reagentKey) : null, before,
     temperatureC: op.temperatureC ?? sim.input.temperatureC,
@@ -291,12 +297,20 @@ const concentrate: Handler<"concentrate"> = (sim, op, step) => {
   return { method: op.method, bathC: op.bathC, waterMl, volumeMl };
 };
 
-const handlers: { [T in Operation["type"]]: Handler<T> } = {
-  charge, quench, wash: (s, o, i) => aqueousPortions(s, o, i), back_extract: (s, o, i) => aqueousPortions(s, o, i), extract, separate, combine,
-  adjust_ph: adjustPh, add_salt: addSalt, remove_cosolvent: removeCosolvent, dry, filter, concentrate,
-};
-
+/** Dispatch by a switch: a keyed lookup in a table of handlers goes megamorphic across ten operation shapes. */
 export function applyOperation(sim: Simulator, op: Operation, step: number): StepDetails {
-  const h = handlers[op.type] as Handler<typeof op.type>;
-  return h(sim, op, step);
+  switch (op.type) {
+    case "charge": return charge(sim, op, step);
+    case "quench": return quench(sim, op, step);
+    case "wash": case "back_extract": return aqueousPortions(sim, op, step);
+    case "extract": return extract(sim, op, step);
+    case "separate": return separate(sim, op, step);
+    case "combine": return combine(sim, op, step);
+    case "adjust_ph": return adjustPh(sim, op, step);
+    case "add_salt": return addSalt(sim, op, step);
+    case "remove_cosolvent": return removeCosolvent(sim, op, step);
+    case "dry": return dry(sim, op, step);
+    case "filter": return filter(sim, op, step);
+    case "concentrate": return concentrate(sim, op, step);
+  }
 }

@@ -60,9 +60,9 @@ export class Simulator {
   current: Stream;
   residue = false;
   readonly saved = new Map<string, SideInternal>();
-  readonly side: SideInternal[] = [];
-  readonly contacts: ContactTrace[] = [];
-  readonly stepTraces: StepTrace[] = [];
+  side: SideInternal[] = [];
+  contacts: ContactTrace[] = [];
+  stepTraces: StepTrace[] = [];
   readonly eq: Equilibrator;
   tracing = false;
   /** Called after each contact when the caller wants per-step phase detail. */
@@ -96,10 +96,11 @@ export class Simulator {
     this.pooled = 0;
     this.contactIndex = 0;
     this.residue = false;
-    this.saved.clear();
-    this.side.length = 0;
-    this.contacts.length = 0;
-    this.stepTraces.length = 0;
+    // New arrays rather than length = 0, which V8 runs as a slower runtime call.
+    if (this.saved.size > 0) this.saved.clear();
+    this.side = [];
+    if (this.contacts.length > 0) this.contacts = [];
+    if (this.stepTraces.length > 0) this.stepTraces = [];
     const cur = this.newStream();
     this.current = cur;
     const { solvents, reagents } = input.mixture;
@@ -178,7 +179,7 @@ export class Simulator {
     const memory = this.phMemory;
     if (memory && k < memory.length) {
       eq.equilibrate(mix, org, aq, Number.isFinite(memory[k]) ? memory[k] : eq.lastSolved, memory[k + 1]);
-    } else eq.equilibrate(mix, org, aq);
+    } else eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved);
     if (memory) {
       memory[k] = eq.phBeforeGas;
       memory[k + 1] = eq.pH;
