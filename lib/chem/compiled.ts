@@ -3,8 +3,8 @@
  * changed numbers (WorkupParameters: log P, log K, pKa, volumes, amounts, target pH) and read back as the
  * recoveries, purities and crude mass only. The Monte-Carlo engine and bulk re-prediction use it; one run gives
  * exactly what simulateWorkup(input, { steps: false, flags: false }) gives for the same numbers, except that
- * with `rememberPh` each contact's pH search starts from that contact's pH in the previous run (a difference
- * of order 1e-12 in pH, and three to five charge-balance evaluations per contact instead of about seven).
+ * with `rememberPh` each contact's pH search starts from that contact's pH in the first run (a difference of
+ * order 1e-10 in pH, and about three charge-balance evaluations per contact instead of about seven).
  */
 import { libraryForWorkup, type CompiledLibrary, type EngineLibraryOptions } from "./library";
 import { RETAINED_SOLVENT_BP_C } from "./operations";
@@ -17,7 +17,7 @@ import { type WorkupSimulator } from "./uncertainty";
 export type { EngineLibraryOptions } from "./library";
 
 export interface CompileOptions {
-  /** Start each contact's pH search from its pH in the previous run (default false: runs independent). */
+  /** Start each contact's pH search from its pH in the first run (default false: every run starts afresh). */
   rememberPh?: boolean;
 }
 
@@ -50,6 +50,7 @@ export class CompiledWorkup {
     const lib = libraryForWorkup(input, this.options).lib;
     const n = input.components.length;
     if (lib !== this.sim.lib || n !== this.sim.componentCount) this.sim = this.simulatorFor(lib, n);
+    else if (this.sim.phMemory && !sameSteps(input, this.input)) this.sim.phMemory = [];
     if (this.recovery.length !== n) {
       this.recovery = new Float64Array(n);
       this.purityPct = new Float64Array(n);
@@ -95,6 +96,15 @@ export class CompiledWorkup {
     sim.phMemory = this.compile.rememberPh ? [] : null;
     return sim;
   }
+}
+
+/** Same operation types in the same order and the same numbers of portions: the contacts line up. */
+function sameSteps(a: WorkupInput, b: WorkupInput): boolean {
+  if (a.operations.length !== b.operations.length) return false;
+  return a.operations.every((op, i) => {
+    const other = b.operations[i];
+    return other !== undefined && other.type === op.type && ("portions" in op ? op.portions : 1) === ("portions" in other ? other.portions : 1);
+  });
 }
 
 export function compileWorkup(input: WorkupInput, options: EngineLibraryOptions = {}, compile: CompileOptions = {}): CompiledWorkup {

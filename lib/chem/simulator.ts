@@ -8,7 +8,7 @@
  */
 import { HEAT_OF_NEUTRALIZATION_KJ_PER_MOL, reagentPh, systemBoundProtons } from "./aqueous";
 import { allocateComponents, fillComponents, type CompiledComponents } from "./components";
-import { Equilibrator } from "./equilibrium";
+import { Equilibrator, type PhMemo } from "./equilibrium";
 import { CARBONATE, WATER, type CompiledLibrary, type CompiledReagent } from "./library";
 import { applyOperation, type StepDetails } from "./operations";
 import { emptyParameters, type WorkupParameters } from "./parameters";
@@ -67,9 +67,9 @@ export class Simulator {
   tracing = false;
   /** Called after each contact when the caller wants per-step phase detail. */
   onContact: ((ctx: ContactContext, out: ContactOutcome) => void) | null = null;
-  /** pH at each contact of the previous run (before and after CO₂ loss, in pairs), the starting guesses for the
-   * same contact in the next run (Monte Carlo); null for a run that must not depend on the runs before it. */
-  phMemory: number[] | null = null;
+  /** pH at each contact of the first run since the memory was emptied, where the same contact's pH search starts
+   * in later runs (Monte Carlo); null for a run that must not depend on the runs before it. */
+  phMemory: PhMemo[] | null = null;
   /** Set while a shared simulator is in use (see predict.ts). */
   busy = false;
   private readonly pool: Stream[] = [];
@@ -175,15 +175,17 @@ export class Simulator {
     const org = this.newStream();
     const aq = this.newStream();
     const eq = this.eq;
-    const k = 2 * this.contactIndex++;
+    const k = this.contactIndex++;
     const memory = this.phMemory;
-    if (memory && k < memory.length) {
-      eq.equilibrate(mix, org, aq, Number.isFinite(memory[k]) ? memory[k] : eq.lastSolved, memory[k + 1]);
-    } else eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved);
+    let memo: PhMemo | null = null;
     if (memory) {
-      memory[k] = eq.phBeforeGas;
-      memory[k + 1] = eq.pH;
+      memo = memory[k] ?? null;
+      if (!memo) {
+        memo = { pH: Number.NaN, h: Number.NaN, pHAfterGas: Number.NaN, hAfterGas: Number.NaN };
+        memory.push(memo);
+      }
     }
+    eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved, memo);
     let trace: ContactTrace | null = null;
     if (this.tracing || this.onContact) trace = this.traceContact(mix, org, aq, ctx);
     const out = { org, aq, trace };

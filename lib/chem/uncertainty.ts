@@ -126,6 +126,12 @@ export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulat
   const engine = engineOptionsOf(simulate);
   const compiled = engine ? compileWorkup(input, engine, { rememberPh: true }) : null;
   const drawInto = compiled ? plan.parameterDrawer(compiled.nominal, compiled.params) : null;
+  // One run on the input's own numbers: every draw's pH searches start from its contacts' pH.
+  try {
+    compiled?.run();
+  } catch {
+    // A failing nominal run leaves the memory empty; the draws fill it and report their own failures.
+  }
   let ok = 0;
   let failed = 0;
   for (let d = 0; d < draws; d++) {
