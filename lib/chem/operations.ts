@@ -143,7 +143,35 @@ const combine: Handler<"combine"> = (sim, op, step) => {
   return { streams: op.streams.join(", ") };
 };
 
-/** Adds reagent; with a target pH, finds the volume by bisection on log volume (pH is monotone in it). */
+/**
+ * The smallest volume (within a factor 1 + 1e-6) at which `shortfall`, decreasing in volume, is no longer
+ * positive: regula falsi on ln V with the Illinois modification (Dowell & Jarratt, BIT 11 (1971) 168), which
+ * keeps a bracket like bisection but needs about a third of its pH solves. `lo`/`hi` bracket the answer.
+ */
+function volumeToTarget(shortfall: (v: number) => number, lo: number, sLo: number, hi: number, sHi: number): number {
+  let a = Math.log(lo), fa = sLo, b = Math.log(hi), fb = sHi, vb = hi, side = 0;
+  for (let i = 0; i < 200 && b - a >= 1e-6; i++) {
+    let c = fb === fa ? Number.NaN : (a * fb - b * fa) / (fb - fa);
+    if (!(c > a && c < b)) c = 0.5 * (a + b);
+    const vc = Math.exp(c);
+    const fc = shortfall(vc);
+    if (fc > 0) {
+      a = c;
+      fa = fc;
+      if (side === -1) fb /= 2;
+      side = -1;
+    } else {
+      b = c;
+      fb = fc;
+      vb = vc;
+      if (side === 1) fa /= 2;
+      side = 1;
+    }
+  }
+  return vb;
+}
+
+/** Adds reagent; with a target pH, finds the volume that reaches it (pH is monotone in the volume). */
 const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
   let v = reagentVolume(sim, op.reagent, step);
@@ -159,20 +187,19 @@ const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
       sim.eq.equilibrate(mix, sim.scratch(2), sim.scratch(3));
       return sim.eq.pH;
     };
-    const start = phWith(1e-9);
+    const least = 1e-9;
+    const start = phWith(least);
     const raising = reagentPh(r) > start;
-    const needs = (pH: number) => (raising ? pH < target : pH > target);
-    let lo = 1e-6, hi = Math.max(1, sim.current.totalVolume()) * 10;
-    if (!needs(start)) { v = 0; details.alreadyAtTarget = true; } else if (needs(phWith(hi))) {
-      v = hi;
+    // pH units still to go at volume `vol`: positive until the target is reached.
+    const shortfall = (vol: number) => (raising ? target - phWith(vol) : phWith(vol) - target);
+    const sStart = raising ? target - start : start - target;
+    const most = Math.max(1, sim.current.totalVolume()) * 10;
+    const sMost = sStart > 0 ? shortfall(most) : 0;
+    if (!(sStart > 0)) { v = 0; details.alreadyAtTarget = true; } else if (sMost > 0) {
+      v = most;
       details.targetReached = false;
     } else {
-      for (let i = 0; i < 60; i++) {
-        const mid = Math.sqrt(lo * hi);
-        if (needs(phWith(mid))) lo = mid; else hi = mid;
-        if (hi / lo < 1 + 1e-6) break;
-      }
-      v = hi;
+      v = volumeToTarget(shortfall, least, sStart, most, sMost);
       details.targetReached = true;
     }
   }
