@@ -105,6 +105,9 @@ function shiftH(h: number, x: number, step: number): number {
   return Math.abs(u) <= 0.35 ? h * expSmall(u) : tenToMinus(x + step);
 }
 
+/** Longest step taken before the root is bracketed, pH units. */
+const MAX_OPEN_STEP = 3;
+
 /** Newton steps shorter than this (pH units) end the search; the step taken leaves an error of order its square
  * (about 1e-10, below solvePh's tolerance of 1e-9). */
 const NEWTON_STEP_TOLERANCE = 1e-5;
@@ -136,7 +139,15 @@ export function solvePhWithSlope(balance: SlopedChargeBalance, guess = NaN, gues
       return rootAt(balance, clamped, tenToMinus(clamped));
     }
     let next = x + step;
-    if (!(next > lo && next < hi && Math.abs(step) <= 0.5 * Math.abs(stepBefore))) {
+    if (!(loChecked && hiChecked)) {
+      // Not yet bracketed: Newton crawls down the exponential tails of the balance (steps of about 0.43 pH
+      // shrinking by a steady ratio r), so such a step is stretched by 1/(1 − r), the rest of the series, and
+      // no step goes beyond MAX_OPEN_STEP; an end of the range is tested only when a step would pass it.
+      const r = step / lastStep;
+      const stretched = r > 0.5 && r < 1 ? step * Math.min(4, 1 / (1 - r)) : step;
+      next = x + Math.max(-MAX_OPEN_STEP, Math.min(MAX_OPEN_STEP, stretched));
+    }
+    if (!(next > lo && next < hi && (!(loChecked && hiChecked) || Math.abs(step) <= 0.5 * Math.abs(stepBefore)))) {
       // A root beyond an end never evaluated: test that end once (solvePh's clamp), else bisect.
       if (next <= lo && !loChecked) {
         loChecked = true;
