@@ -88,10 +88,10 @@ export async function seedDemo(db: Db): Promise<SeedSummary> {
   const main = await createGroup(db, demoGroup, passwordHash);
   const lead = main.users.get(demoGroup.people[0].email)!;
   const compounds = await registerCompounds(db, main.groupId, lead);
-  const workups = await seedWorkups(db, main.groupId, main.users, compounds);
-  // The group's own measurements, then the re-validation and inference they queue, so the first start already shows
-  // predictions that use group values and the log K learned from the reported outcomes.
+  // The group's own measurements come first (the group made them over the months), so each workup is saved and its
+  // outcome judged against a prediction that already uses them; then the inference from the reported outcomes runs.
   await seedPartition(db, main.groupId, lead, compounds);
+  const workups = await seedWorkups(db, main.groupId, main.users, compounds);
   await drainQueue(db, { schedule: true });
 
   const other = await createGroup(db, otherGroup, passwordHash);

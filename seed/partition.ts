@@ -1,9 +1,9 @@
 /**
  * The demo group's own partition measurements, entered through the same service as the partition page (conversion to
  * the neutral log K, audit, re-validation job). The figures are INVENTED for the demo: plausible layer amounts for
- * the scenario's molecules, not literature data. Call after the workups are seeded, then run the queue
- * (lib/jobs/worker.ts drainQueue) so the first start shows predictions that already use them, and the values the
- * engine learns from the reported outcomes.
+ * the scenario's molecules, not literature data. Called before the workups are saved, so their predictions use the
+ * group values from the start; seed/load.ts then drains the queue (lib/jobs/worker.ts drainQueue) so the first
+ * start also shows what the engine learns from the reported outcomes.
  */
 import type { Db } from "@/lib/db/client";
 import { addMeasurement } from "@/lib/partition/service";
