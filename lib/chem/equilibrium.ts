@@ -108,16 +108,11 @@ export class Equilibrator implements SlopedChargeBalance {
    */
   equilibrate(mix: Stream, org: Stream, aq: Stream, guess = this.lastSolved, memo: PhMemo | null = null): void {
     const { phases, comps } = this;
-    let sysZ2 = 0;
-    for (let s = 0; s < N_SYSTEMS; s++) sysZ2 += (mix.sys[s] as number) * (SYSTEM_Z2_WEIGHT[s] as number);
-    phases.split(mix, sysZ2);
+    const aqueous = this.prepare(mix);
     copyInto(org.solv, phases.org);
     copyInto(aq.solv, phases.aq);
-    this.va = phases.hasAqueous ? phases.aqueousVolume : 0;
-    this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
     this.co2Mmol = 0;
-    copyInto(this.amounts, mix.comp);
-    if (!phases.hasAqueous) {
+    if (!aqueous) {
       copyInto(org.comp, mix.comp);
       this.pH = NaN;
       this.fractionAqueous.fill(0);
@@ -125,22 +120,6 @@ export class Equilibrator implements SlopedChargeBalance {
       this.distribution.fill(Infinity);
       return;
     }
-    this.setPartition();
-    copyInto(this.systemTotals, mix.sys);
-    this.nActive = 0;
-    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) {
-      const total = mix.sys[sIdx] as number;
-      if (total > 0) {
-        this.active[this.nActive++] = sIdx;
-        this.systemConc[sIdx] = total / this.va;
-      }
-    }
-    this.strongConc = mix.strongCharge / this.va;
-    for (let k = 0; k < this.nCharged; k++) {
-      const c = this.charged[k] as number;
-      this.amountConc[c] = (this.amounts[c] as number) / this.va;
-    }
-    this.voOverVa = this.vo / this.va;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.pH = remembered ? solvePhWithSlope(this, memo.pH, memo.h) : solvePhWithSlope(this, guess);
     if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; }
@@ -170,6 +149,45 @@ export class Equilibrator implements SlopedChargeBalance {
       aq.comp[c] = a;
       org.comp[c] = n - a;
     }
+  }
+
+  /**
+   * Net positive charge (mmol) of the aqueous layer of `mix` held at `pH`, no CO₂ leaving: positive when the
+   * mixture's own pH lies above `pH`, negative below (the balance falls with pH). NaN without an aqueous layer.
+   * Nearly linear in an added volume of acid or base, unlike the pH.
+   */
+  chargeAt(mix: Stream, pH: number): number {
+    if (!this.prepare(mix)) return Number.NaN;
+    return this.residualAt(pH, Math.exp(-pH * Math.LN10)) * this.va;
+  }
+
+  /** Phase split, partition constants and the concentrations the charge balance reads; false without water. */
+  private prepare(mix: Stream): boolean {
+    const { phases } = this;
+    let sysZ2 = 0;
+    for (let s = 0; s < N_SYSTEMS; s++) sysZ2 += (mix.sys[s] as number) * (SYSTEM_Z2_WEIGHT[s] as number);
+    phases.split(mix, sysZ2);
+    this.va = phases.hasAqueous ? phases.aqueousVolume : 0;
+    this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
+    copyInto(this.amounts, mix.comp);
+    if (!phases.hasAqueous) return false;
+    this.setPartition();
+    copyInto(this.systemTotals, mix.sys);
+    this.nActive = 0;
+    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) {
+      const total = mix.sys[sIdx] as number;
+      if (total > 0) {
+        this.active[this.nActive++] = sIdx;
+        this.systemConc[sIdx] = total / this.va;
+      }
+    }
+    this.strongConc = mix.strongCharge / this.va;
+    for (let k = 0; k < this.nCharged; k++) {
+      const c = this.charged[k] as number;
+      this.amountConc[c] = (this.amounts[c] as number) / this.va;
+    }
+    this.voOverVa = this.vo / this.va;
+    return true;
   }
 
   private setPartition(): void {
