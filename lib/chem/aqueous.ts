@@ -227,16 +227,11 @@ export function aqueousPh(composition: AqueousComposition): number {
   return solvePh(new PlainBalance(composition));
 }
 
-const freshPh = new WeakMap<CompiledReagent, number>();
-
-/** pH of a fresh reagent solution (cached); NaN for solids. */
+/** pH of a fresh reagent solution (kept on the compiled reagent); NaN for solids. */
 export function reagentPh(r: CompiledReagent): number {
   if (r.solid) return NaN;
-  const hit = freshPh.get(r);
-  if (hit !== undefined) return hit;
-  const pH = aqueousPh({ strongCharge: r.strongCharge, systems: r.systems });
-  freshPh.set(r, pH);
-  return pH;
+  if (Number.isNaN(r.freshPh)) r.freshPh = aqueousPh({ strongCharge: r.strongCharge, systems: r.systems });
+  return r.freshPh;
 }
 
 /** CO₂ above saturation in an aqueous phase, mmol, that leaves as gas (carbonate total in mmol, volume in mL). */

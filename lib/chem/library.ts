@@ -59,6 +59,8 @@ export interface CompiledReagent {
   strongZ2: number;
   osmoles: number;
   systems: Float64Array;
+  /** pH of the fresh solution, filled in by reagentPh (aqueous.ts) on first use; NaN until then. */
+  freshPh: number;
 }
 
 export interface CompiledLibrary {
@@ -96,7 +98,7 @@ function compileReagent(r: ReagentProps): CompiledReagent {
   const solid = r.kind === "solid";
   return {
     props: r, solid, density: r.density?.value ?? 1, molarMass: solid ? r.basis.value : 0,
-    concentration: solid ? 0 : r.basis.value, strongCharge, strongZ2, osmoles, systems,
+    concentration: solid ? 0 : r.basis.value, strongCharge, strongZ2, osmoles, systems, freshPh: Number.NaN,
   };
 }
 
