@@ -7,6 +7,7 @@
  * The charge balance is solved by safeguarded Newton steps on its analytic slope (aqueous.ts): from the pH of
  * the previous contact, or of the same contact in the previous Monte-Carlo draw, it needs three to five
  * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
+ * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
 import { co2Excess, KW, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";

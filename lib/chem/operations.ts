@@ -6,7 +6,8 @@
  */
 import { reagentPh } from "./aqueous";
 import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
-import { CARBONATE, WATER } from "./library";
+import { WATER } from "./library";
+import { volumeForTargetPh } from "./target-ph";
 import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
 import { addAt } from "./stream";
@@ -143,37 +144,6 @@ const combine: Handler<"combine"> = (sim, op, step) => {
   return { streams: op.streams.join(", ") };
 };
 
-/**
- * The smallest volume (within a factor 1 + 1e-6) at which `shortfall`, decreasing in volume, is no longer
- * positive, `lo`/`hi` bracketing it: regula falsi with the Illinois modification (Dowell & Jarratt, BIT 11
- * (1971) 168), which keeps a bracket as bisection does but converges superlinearly. On ln V for a shortfall in
- * pH units; on V itself for a shortfall in charge, which is nearly linear in it.
- */
-function volumeToTarget(shortfall: (v: number) => number, lo: number, sLo: number, hi: number, sHi: number, logScale: boolean): number {
-  let a = logScale ? Math.log(lo) : lo, fa = sLo, b = logScale ? Math.log(hi) : hi, fb = sHi;
-  let vLo = lo, vHi = hi, side = 0;
-  for (let i = 0; i < 200 && vHi > vLo * (1 + 1e-6); i++) {
-    let c = fb === fa ? Number.NaN : (a * fb - b * fa) / (fb - fa);
-    if (!(c > a && c < b)) c = 0.5 * (a + b);
-    const vc = logScale ? Math.exp(c) : c;
-    const fc = shortfall(vc);
-    if (fc > 0) {
-      a = c;
-      fa = fc;
-      vLo = vc;
-      if (side === -1) fb /= 2;
-      side = -1;
-    } else {
-      b = c;
-      fb = fc;
-      vHi = vc;
-      if (side === 1) fa /= 2;
-      side = 1;
-    }
-  }
-  return vHi;
-}
-
 /** Adds reagent; with a target pH, finds the volume that reaches it (pH is monotone in the volume). */
 const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
@@ -181,38 +151,10 @@ const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
   const details: StepDetails = {};
   const target = sim.params.targetPh[step - 1] as number;
   if (!Number.isNaN(target)) {
-    const mixWith = (vol: number) => {
-      const mix = sim.scratch(0);
-      mix.addFrom(sim.current, 1);
-      const fresh = sim.scratch(1);
-      fresh.addReagent(r, vol, sim.lib.density[WATER] as number);
-      mix.addFrom(fresh, 1);
-      return mix;
-    };
-    const phWith = (vol: number) => {
-      sim.eq.equilibrate(mixWith(vol), sim.scratch(2), sim.scratch(3));
-      return sim.eq.pH;
-    };
-    const least = 1e-9;
-    const start = phWith(least);
-    const raising = reagentPh(r) > start;
-    // Still short of the target at volume `vol` when positive. Without carbonate, whose CO₂ leaves after a first
-    // pH solve, the sign of the charge balance held at the target pH says so without solving for the pH.
-    const byCharge = (sim.current.sys[CARBONATE] as number) === 0 && (r.systems[CARBONATE] as number) === 0;
-    const shortfall = byCharge
-      ? (vol: number) => (raising ? -1 : 1) * sim.eq.chargeAt(mixWith(vol), target)
-      : (vol: number) => (raising ? target - phWith(vol) : phWith(vol) - target);
-    const most = Math.max(1, sim.current.totalVolume()) * 10;
-    if (!((raising ? target - start : start - target) > 0)) { v = 0; details.alreadyAtTarget = true; } else {
-      const sMost = shortfall(most);
-      if (sMost > 0) {
-        v = most;
-        details.targetReached = false;
-      } else {
-        v = volumeToTarget(shortfall, least, shortfall(least), most, sMost, !byCharge);
-        details.targetReached = true;
-      }
-    }
+    const found = volumeForTargetPh(sim, r, target);
+    v = found.volumeMl;
+    if (found.outcome === "already") details.alreadyAtTarget = true;
+    else details.targetReached = found.outcome === "reached";
   }
   const fresh = sim.freshReagent(r, v);
   const before = sim.acidBase(sim.current, fresh);
