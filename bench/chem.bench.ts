@@ -6,7 +6,7 @@
  *  2. the same with a 1,000-draw uncertainty interval (target ≤ 10 ms);
  *  3. re-predicting 100,000 work-ups on two worker threads (target ≤ 5 s on 2 cores): recoveries only on a
  *     compiled work-up per worker (each new work-up loaded into it), and with every step, flag and caution.
- * The machine is shared: `uptime` beside the figures says how loaded it was.
+ * The machine is shared: the load average (1, 5, 15 min) is printed before and after the figures.
  * Each figure is the median of several runs; the last line printed is one JSON object with every number.
  */
 import { availableParallelism, loadavg } from "node:os";
@@ -92,7 +92,7 @@ if (!isMainThread) {
       for (const input of inputs) checksum += simulateWorkup(input, options).recovery.amide ?? 0;
     } else {
       // Fastest path: one compiled work-up per worker, each stored work-up loaded into it and re-run, with each
-      // contact's pH search starting from the previous work-up's (they share their steps).
+      // contact's pH search starting from the first work-up's pH there (they share their steps).
       const compiled = compileWorkup(inputs[0] as WorkupInput, {}, { rememberPh: true });
       for (const input of inputs) {
         compiled.load(input);
@@ -122,7 +122,10 @@ async function bulkRun(total: number, workers: number, detail: boolean): Promise
   return { seconds: (t2 - t1) / 1000, secondsWithStartup: (t2 - t0) / 1000, checksum: sums.reduce((a, b) => a + b, 0) };
 }
 
+const loadLine = () => `load average ${loadavg().map((x) => x.toFixed(2)).join(", ")}`;
+
 async function main(): Promise<void> {
+  console.log(loadLine());
   const raw = benchWorkup();
   const parsed = workupInputSchema.parse(raw);
   const runs = 7;
@@ -151,6 +154,7 @@ async function main(): Promise<void> {
   const bulkFull = await bulk(true);
   console.log(`re-predicting 100,000 work-ups (every step, flags and cautions) on ${workers} workers: ${bulkFull.seconds.toFixed(2)} s, ${bulkFull.withStartup.toFixed(2)} s with start-up (median of 3)`);
 
+  console.log(loadLine());
   console.log(JSON.stringify({
     bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
     predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
