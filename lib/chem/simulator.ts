@@ -1,7 +1,8 @@
 /**
  * State of one simulated work-up: the main-line stream, streams saved under a name, streams that left the main
  * line (waste, drying agent, filter cake, evaporated), and the contact/step traces. The per-operation logic is in
- * operations.ts; this file holds the shared mechanics (equilibrate, split, save or discard, heat and gas).
+ * operations.ts, what a contact records for the flags in contact-trace.ts; this file holds the shared mechanics
+ * (equilibrate, split, save or discard).
  * A simulator is reused from run to run (begin → run): its streams come from a pool that each run takes again
  * from the start, and the numbers it reads (log P, pKa, volumes, …) sit in a WorkupParameters, so a Monte-Carlo
  * draw allocates almost nothing. Nothing a run returns may hold a pooled stream.
