@@ -89,8 +89,14 @@ const tenToMinus = (pH: number): number => Math.exp(-pH * Math.LN10);
 const INV_FACTORIAL = Array.from({ length: 13 }, (_, k) => 1 / Array.from({ length: k }, (_, i) => i + 1).reduce((a, b) => a * b, 1));
 const [, , C2 = 0, C3 = 0, C4 = 0, C5 = 0, C6 = 0, C7 = 0, C8 = 0, C9 = 0, C10 = 0, C11 = 0, C12 = 0] = INV_FACTORIAL;
 
-/** e^u for |u| ≤ 0.35 by its Taylor series to u¹² (relative error below 3e-16): inlined, unlike Math.exp. */
+/**
+ * e^u for |u| ≤ 0.35 by its Taylor series, inlined unlike Math.exp, cut where the next term falls below 1e-17:
+ * the last Newton steps are tiny and need only a few terms.
+ */
 function expSmall(u: number): number {
+  const a = Math.abs(u);
+  if (a <= 0.005) return 1 + u * (1 + u * (C2 + u * (C3 + u * (C4 + u * C5))));
+  if (a <= 0.05) return 1 + u * (1 + u * (C2 + u * (C3 + u * (C4 + u * (C5 + u * (C6 + u * (C7 + u * C8)))))));
   return 1 + u * (1 + u * (C2 + u * (C3 + u * (C4 + u * (C5 + u * (C6 + u * (C7 + u * (C8 + u * (C9 + u * (C10 + u * (C11 + u * C12)))))))))));
 }
 
