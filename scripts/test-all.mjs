@@ -14,7 +14,7 @@ const stages = [
   { name: "lint", cmd: ["npx", "eslint", "--max-warnings=0", "."] },
   { name: "unit", cmd: ["npx", "vitest", "run", "--project", "unit", "--reporter=default", "--reporter=json", "--outputFile.json=.tmp/vitest-unit.json"], report: ".tmp/vitest-unit.json" },
   { name: "integration", cmd: ["npx", "vitest", "run", "--project", "integration", "--reporter=default", "--reporter=json", "--outputFile.json=.tmp/vitest-integration.json"], report: ".tmp/vitest-integration.json" },
-  { name: "browser", cmd: ["npx", "playwright", "test"], report: ".tmp/playwright.json", env: { PLAYWRIGHT_JSON_OUTPUT_NAME: ".tmp/playwright.json" } },
+  { name: "browser", cmd: ["npx", "playwright", "test", "--reporter=list,json"], report: ".tmp/playwright.json", env: { PLAYWRIGHT_JSON_OUTPUT_NAME: ".tmp/playwright.json" } },
 ].filter((s) => only.length === 0 || only.includes(s.name));
 
 let passed = 0, failed = 0, skipped = 0;
