@@ -15,6 +15,15 @@ async function lockGroup(tx: Tx, groupId: string): Promise<void> {
   await tx.$queryRaw`SELECT "id" FROM "Group" WHERE "id" = ${groupId} FOR UPDATE`;
 }
 
+/** The group's membership `membershipId`, read after taking the group's lock (404 when it is not in this group). */
+async function lockedMembership(tx: Tx, groupId: string, membershipId: string) {
+  await lockGroup(tx, groupId);
+  return found(
+    await tx.membership.findFirst({ where: { id: membershipId, groupId }, select: { id: true, role: true, userId: true } }),
+    "member",
+  );
+}
+
 async function assertAnotherLead(tx: Tx, groupId: string, membershipId: string): Promise<void> {
   const otherLeads = await tx.membership.count({ where: { groupId, role: "lead", id: { not: membershipId } } });
   if (otherLeads === 0) throw new ConflictError(LAST_LEAD_MESSAGE);
@@ -51,11 +60,7 @@ export async function changeRole(member: MemberContext, membershipId: string, ro
   assertRoleCan(member.role, "members:manage");
   const db = await getDb();
   await db.$transaction(async (tx) => {
-    await lockGroup(tx, member.group.id);
-    const target = found(
-      await tx.membership.findFirst({ where: { id: membershipId, groupId: member.group.id }, select: { id: true, role: true, userId: true } }),
-      "member",
-    );
+    const target = await lockedMembership(tx, member.group.id, membershipId);
     if (target.role === role) return;
     if (target.role === "lead") await assertAnotherLead(tx, member.group.id, target.id);
     await tx.membership.update({ where: { id: target.id }, data: { role }, select: { id: true } });
@@ -76,11 +81,7 @@ export async function removeMember(member: MemberContext, membershipId: string):
   assertRoleCan(member.role, "members:manage");
   const db = await getDb();
   await db.$transaction(async (tx) => {
-    await lockGroup(tx, member.group.id);
-    const target = found(
-      await tx.membership.findFirst({ where: { id: membershipId, groupId: member.group.id }, select: { id: true, role: true, userId: true } }),
-      "member",
-    );
+    const target = await lockedMembership(tx, member.group.id, membershipId);
     if (target.role === "lead") await assertAnotherLead(tx, member.group.id, target.id);
     await tx.membership.delete({ where: { id: target.id }, select: { id: true } });
     // The guard already refuses tokens of non-members; revoking them too keeps the tokens page truthful.
