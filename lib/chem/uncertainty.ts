@@ -76,20 +76,31 @@ function summarize(values: Float64Array, count: number): Interval {
   return { p025, p50, p975, mean, sd: count > 1 ? Math.sqrt(ss / (count - 1)) : 0 };
 }
 
-function squaredCorrelation(x: Float64Array, y: Float64Array, count: number): number {
-  let mx = 0, my = 0;
-  for (let i = 0; i < count; i++) { mx += x[i] ?? 0; my += y[i] ?? 0; }
-  mx /= count;
-  my /= count;
-  let sxy = 0, sxx = 0, syy = 0;
+interface Centred {
+  values: Float64Array;
+  mean: number;
+  /** Sum of squared deviations from the mean. */
+  ss: number;
+}
+
+function centred(values: Float64Array, count: number): Centred {
+  let mean = 0;
+  for (let i = 0; i < count; i++) mean += values[i] ?? 0;
+  mean /= count;
+  let ss = 0;
   for (let i = 0; i < count; i++) {
-    const dx = (x[i] ?? 0) - mx;
-    const dy = (y[i] ?? 0) - my;
-    sxy += dx * dy;
-    sxx += dx * dx;
-    syy += dy * dy;
+    const d = (values[i] ?? 0) - mean;
+    ss += d * d;
   }
-  return sxx > 0 && syy > 0 ? (sxy * sxy) / (sxx * syy) : 0;
+  return { values, mean, ss };
+}
+
+/** Squared correlation of two samples, each centred once rather than once per pair. */
+function squaredCorrelation(x: Centred, y: Centred, count: number): number {
+  if (!(x.ss > 0 && y.ss > 0)) return 0;
+  let sxy = 0;
+  for (let i = 0; i < count; i++) sxy += ((x.values[i] ?? 0) - x.mean) * ((y.values[i] ?? 0) - y.mean);
+  return (sxy * sxy) / (x.ss * y.ss);
 }
 
 /** Largest Collander-line standard error among the solvents named in the work-up (0 if none has a line). */
@@ -169,10 +180,12 @@ export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulat
   if (ok < 2) throw new Error(`the simulator refused ${failed} of ${draws} perturbed inputs`);
 
   const components: Record<string, ComponentUncertainty> = {};
+  const sites = zBySite.map((zs) => centred(zs, ok));
   keys.forEach((key, i) => {
     const r = recovery[i] as Float64Array;
+    const recoveryCentred = centred(r, ok);
     const shares = plan.sites
-      .map((site, s) => ({ path: site.path, share: squaredCorrelation(zBySite[s] as Float64Array, r, ok) }))
+      .map((site, s) => ({ path: site.path, share: squaredCorrelation(sites[s] as Centred, recoveryCentred, ok) }))
       .filter((x) => x.share >= 0.05)
       .sort((a, b) => b.share - a.share)
       .slice(0, 3);
