@@ -5,6 +5,7 @@
 import { simulateWorkup, validateWorkup, type PredictOptions } from "@/lib/chem/predict";
 import { type WorkupInput } from "@/lib/chem/schema";
 import { type WorkupPrediction } from "@/lib/chem/types";
+import { engineSimulator } from "@/lib/chem/compiled";
 import { propagateUncertainty, type Interval } from "@/lib/chem/uncertainty";
 import { ENGINE_VERSION } from "@/lib/chem/version";
 import { ValidationError, type FieldErrors } from "@/lib/errors";
@@ -93,7 +94,7 @@ export function computePrediction(spec: unknown, options: PredictionOptions): Co
 }
 
 function intervalOf(parsed: WorkupInput, engine: PredictOptions, draws: number, seed: number): StoredPredictionResult["uncertainty"] {
-  const fast: PredictOptions = { ...engine, steps: false, flags: false };
-  const u = propagateUncertainty(parsed, (input) => simulateWorkup(input, fast), { draws, seed });
+  // engineSimulator lets the uncertainty run on a compiled workup (numbers rewritten in place per draw).
+  const u = propagateUncertainty(parsed, engineSimulator(engine), { draws, seed });
   return { draws: u.draws, seed: u.seed, failedDraws: u.failedDraws, components: u.components };
 }
