@@ -5,6 +5,7 @@ import { revalidatePath } from "next/cache";
 import { requireUser } from "@/lib/authz";
 import { memberAction } from "@/lib/authz/action";
 import { actionFailure, formFields, parseInput, type ActionResult } from "@/lib/errors";
+import { actionArg, inviteTokenArg } from "@/lib/api/action-args";
 import { acceptInvite, createInvite, revokeInvite } from "@/lib/groups/invites";
 import { invitePath } from "@/lib/groups/invite-token";
 import { changeRole, removeMember } from "@/lib/groups/members";
@@ -63,7 +64,7 @@ export interface JoinedGroup {
 export async function joinWithAccountAction(token: string): Promise<ActionResult<JoinedGroup>> {
   try {
     const user = await requireUser();
-    const joined = await acceptInvite(token, { kind: "existing", userId: user.id });
+    const joined = await acceptInvite(actionArg("token", inviteTokenArg, token), { kind: "existing", userId: user.id });
     return { ok: true, data: { groupId: joined.groupId, groupName: joined.groupName, newAccount: false } };
   } catch (error) {
     return actionFailure(error, "accept invite (signed in)");
@@ -73,8 +74,9 @@ export async function joinWithAccountAction(token: string): Promise<ActionResult
 /** Accepting by creating an account; nobody is signed in, the invite link itself is the authority. */
 export async function joinWithNewAccountAction(token: string, _prev: ActionResult<JoinedGroup> | null, form: FormData): Promise<ActionResult<JoinedGroup>> {
   try {
+    const invite = actionArg("token", inviteTokenArg, token);
     const account = parseInput(newAccountSchema, formFields(form));
-    const joined = await acceptInvite(token, { kind: "new", account });
+    const joined = await acceptInvite(invite, { kind: "new", account });
     return { ok: true, data: { groupId: joined.groupId, groupName: joined.groupName, newAccount: true } };
   } catch (error) {
     return actionFailure(error, "accept invite (new account)");

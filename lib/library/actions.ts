@@ -5,14 +5,14 @@ import { z } from "zod";
 import { memberAction } from "@/lib/authz/action";
 import { getDb } from "@/lib/db/client";
 import { parseInput, type ActionResult } from "@/lib/errors";
-import { libraryKeySchema, type ReagentPropsInput, type SolventPropsInput } from "./schemas";
+import { libraryKeySchema, reagentPropsSchema, solventPropsSchema, type ReagentPropsInput, type SolventPropsInput } from "./schemas";
 import { removeEntry, saveReagent, saveSolvent } from "./service";
 
 const actor = (m: { group: { id: string }; user: { id: string } }) => ({ groupId: m.group.id, userId: m.user.id });
 
 export async function saveSolventAction(input: SolventPropsInput): Promise<ActionResult<{ key: string }>> {
   return memberAction("library:manage", async (member) => {
-    const saved = await saveSolvent(await getDb(), actor(member), input);
+    const saved = await saveSolvent(await getDb(), actor(member), parseInput(solventPropsSchema, input));
     revalidatePath("/library");
     return { key: saved.key };
   });
@@ -20,7 +20,7 @@ export async function saveSolventAction(input: SolventPropsInput): Promise<Actio
 
 export async function saveReagentAction(input: ReagentPropsInput): Promise<ActionResult<{ key: string }>> {
   return memberAction("library:manage", async (member) => {
-    const saved = await saveReagent(await getDb(), actor(member), input);
+    const saved = await saveReagent(await getDb(), actor(member), parseInput(reagentPropsSchema, input));
     revalidatePath("/library");
     return { key: saved.key };
   });

@@ -4,6 +4,7 @@
 // { ok: true, data } or { ok: false, status, message, fieldErrors } (422 field messages keyed like "header.title",
 // "spec.operations.2.volume.value"; 409 with the stale-version message; 404 for another group's workup).
 import { revalidatePath } from "next/cache";
+import { actionArg, listArg, objectArg, recordIdArg, versionArg } from "@/lib/api/action-args";
 import { memberAction } from "@/lib/authz/action";
 import { getDb } from "@/lib/db/client";
 import { type ActionResult } from "@/lib/errors";
@@ -24,7 +25,7 @@ function revalidate(id?: string): void {
 
 export async function createWorkupAction(input: CreateWorkupInput): Promise<ActionResult<SavedWorkup>> {
   return memberAction("data:write", async (member) => {
-    const saved = await createWorkup(await getDb(), actorOf(member), input);
+    const saved = await createWorkup(await getDb(), actorOf(member), actionArg("input", objectArg("input"), input));
     revalidate(saved.id);
     return saved;
   });
@@ -33,42 +34,48 @@ export async function createWorkupAction(input: CreateWorkupInput): Promise<Acti
 /** `input.baseVersion` is the version the editor opened (WorkupDetail.version). */
 export async function updateWorkupAction(id: string, input: UpdateWorkupInput): Promise<ActionResult<SavedWorkup>> {
   return memberAction("data:write", async (member) => {
-    const saved = await updateWorkup(await getDb(), actorOf(member), id, input);
-    revalidate(id);
+    const workupId = actionArg("id", recordIdArg("id"), id);
+    const saved = await updateWorkup(await getDb(), actorOf(member), workupId, actionArg("input", objectArg("input"), input));
+    revalidate(workupId);
     return saved;
   });
 }
 
 export async function deleteWorkupAction(id: string): Promise<ActionResult<{ id: string }>> {
   return memberAction("data:write", async (member) => {
-    await deleteWorkup(await getDb(), actorOf(member), id);
+    const workupId = actionArg("id", recordIdArg("id"), id);
+    await deleteWorkup(await getDb(), actorOf(member), workupId);
     revalidate();
-    return { id };
+    return { id: workupId };
   });
 }
 
 export async function reportOutcomeAction(workupId: string, input: OutcomeInputRaw): Promise<ActionResult<OutcomeReport>> {
   return memberAction("data:write", async (member) => {
-    const report = await reportOutcome(await getDb(), actorOf(member), workupId, input);
-    revalidate(workupId);
+    const id = actionArg("workupId", recordIdArg("workupId"), workupId);
+    const report = await reportOutcome(await getDb(), actorOf(member), id, actionArg("input", objectArg("input"), input));
+    revalidate(id);
     return report;
   });
 }
 
 export async function getWorkupAction(id: string): Promise<ActionResult<WorkupDetail>> {
-  return memberAction("data:read", async (member) => getWorkupDetail(await getDb(), member.group.id, id));
+  return memberAction("data:read", async (member) => getWorkupDetail(await getDb(), member.group.id, actionArg("id", recordIdArg("id"), id)));
 }
 
 export async function listWorkupsAction(filter: WorkupListFilterInput): Promise<ActionResult<WorkupListPage>> {
-  return memberAction("data:read", async (member) => listWorkups(await getDb(), member.group.id, filter));
+  return memberAction("data:read", async (member) => listWorkups(await getDb(), member.group.id, actionArg("filter", objectArg("filter"), filter)));
 }
 
 export async function listVersionsAction(workupId: string): Promise<ActionResult<VersionEntry[]>> {
-  return memberAction("data:read", async (member) => listVersions(await getDb(), member.group.id, workupId));
+  return memberAction("data:read", async (member) => listVersions(await getDb(), member.group.id, actionArg("workupId", recordIdArg("workupId"), workupId)));
 }
 
 export async function diffVersionsAction(workupId: string, from: number, to: number): Promise<ActionResult<VersionDiff>> {
-  return memberAction("data:read", async (member) => diffVersions(await getDb(), member.group.id, workupId, from, to));
+  return memberAction("data:read", async (member) => diffVersions(
+    await getDb(), member.group.id, actionArg("workupId", recordIdArg("workupId"), workupId),
+    actionArg("from", versionArg("from"), from), actionArg("to", versionArg("to"), to),
+  ));
 }
 
 /**
@@ -77,10 +84,13 @@ export async function diffVersionsAction(workupId: string, from: number, to: num
  * without them, the saved workup's links) are laid over the spec, and the seed follows the workup id, as on save.
  */
 export async function predictAction(spec: unknown, workupId?: string, links?: PreviewLinks): Promise<ActionResult<PredictionSummary>> {
-  return memberAction("data:read", async (member) => previewPrediction(await getDb(), member.group.id, spec, { workupId, links }));
+  return memberAction("data:read", async (member) => previewPrediction(await getDb(), member.group.id, actionArg("spec", objectArg("spec"), spec), {
+    workupId: actionArg("workupId", recordIdArg("workupId").optional(), workupId),
+    links: actionArg("links", listArg("links", 50).optional(), links),
+  }));
 }
 
 /** The group's pooled partition values and registry properties for the editor's linked components, by component key. */
 export async function groupValuesAction(links: PreviewLinks): Promise<ActionResult<GroupValues>> {
-  return memberAction("data:read", async (member) => previewGroupValues(await getDb(), member.group.id, links));
+  return memberAction("data:read", async (member) => previewGroupValues(await getDb(), member.group.id, actionArg("links", listArg("links", 50), links)));
 }
