@@ -59,6 +59,11 @@ export class BadRequestError extends AppError {
   readonly code = "bad_request";
 }
 
+export class UnsupportedMediaTypeError extends AppError {
+  readonly status = 415;
+  readonly code = "unsupported_media_type";
+}
+
 export class ValidationError extends AppError {
   readonly status = 422;
   readonly code = "validation";

@@ -9,6 +9,8 @@ import { randomBytes } from "node:crypto";
 import { workAsyncStorage } from "next/dist/server/app-render/work-async-storage.external";
 import { workUnitAsyncStorage } from "next/dist/server/app-render/work-unit-async-storage.external";
 import { HeadersAdapter } from "next/dist/server/web/spec-extension/adapters/headers";
+import { RequestCookiesAdapter } from "next/dist/server/web/spec-extension/adapters/request-cookies";
+import { RequestCookies } from "next/dist/server/web/spec-extension/cookies";
 import { newApiToken } from "@/lib/authz/api-token-format";
 import { type Db } from "@/lib/db/client";
 
@@ -38,7 +40,9 @@ export async function callRoute(handler: Handler, method: string, path: string, 
   }
   const request = new Request(url, { method, headers, body });
   const workStore = { route: url.pathname, page: url.pathname, forceStatic: false, dynamicShouldError: false, isStaticGeneration: false };
-  const requestStore = { type: "request", phase: "action", headers: HeadersAdapter.seal(new Headers(headers)), url: { pathname: url.pathname, search: url.search } };
+  // The Cookie header as cookies() reads it; in the "action" phase Next reads the userspace mutable copy.
+  const cookies = RequestCookiesAdapter.seal(new RequestCookies(headers));
+  const requestStore = { type: "request", phase: "action", headers: HeadersAdapter.seal(new Headers(headers)), url: { pathname: url.pathname, search: url.search }, cookies, mutableCookies: cookies, userspaceMutableCookies: cookies };
   type WorkStore = Parameters<typeof workAsyncStorage.run>[0];
   type UnitStore = Parameters<typeof workUnitAsyncStorage.run>[0];
   return workAsyncStorage.run(workStore as unknown as WorkStore, () =>

@@ -29,4 +29,4 @@ export const POST = memberRoute("data:write", async (request, { member }) => {
     );
   }
   return Response.json(result, { status: 201 });
-});
+}, { bodyTypes: ["text/csv"] });
