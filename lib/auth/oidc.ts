@@ -37,8 +37,13 @@ export function oidcProvider(settings: OidcSettings): OAuthConfig<OidcProfile> {
   };
 }
 
-/** An issuer that says an email is unverified is not trusted to name a Layerwise account. */
+/**
+ * The email an issuer vouches for, or null. Only `email_verified: true` counts (OpenID Connect Core 1.0 §5.1: the
+ * claim says whether the provider took affirmative steps to verify the address); an absent claim, or a string such as
+ * "true", is not a promise. An unverified email could otherwise claim someone else's Layerwise account.
+ */
 export function oidcEmail(profile: OidcProfile | undefined): string | null {
-  if (!profile || typeof profile.email !== "string" || profile.email_verified === false) return null;
-  return profile.email.trim().toLowerCase();
+  if (!profile || typeof profile.email !== "string" || profile.email_verified !== true) return null;
+  const email = profile.email.trim().toLowerCase();
+  return email === "" ? null : email;
 }

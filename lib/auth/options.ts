@@ -15,10 +15,8 @@ function requestedGroupId(update: unknown): string | null {
 }
 
 async function singleSignOnUser(profile: unknown, displayName: string | null | undefined) {
-  const email = oidcEmail(profile as OidcProfile | undefined);
-  // The signIn callback has already refused profiles without a verified email; this only keeps the types honest.
-  if (email === null) throw new Error("The identity provider did not confirm an email address.");
-  return userForSingleSignOn(email, displayName ?? null);
+  // The signIn callback has already refused profiles without a verified email; userForSingleSignOn checks again.
+  return userForSingleSignOn(profile as OidcProfile | undefined, displayName ?? null);
 }
 
 function buildAuthOptions(): NextAuthOptions {

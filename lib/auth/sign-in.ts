@@ -4,6 +4,8 @@ import { z } from "zod";
 import { getDb } from "@/lib/db/client";
 import { verifyPassword } from "@/lib/auth/password";
 import { normaliseEmail } from "@/lib/auth/password-rules";
+import { oidcEmail, type OidcProfile } from "@/lib/auth/oidc";
+import { ForbiddenError } from "@/lib/errors";
 import { assertSignInAllowed, recordSignInAttempt } from "@/lib/auth/rate-limit";
 
 export interface SignedInUser {
@@ -41,7 +43,11 @@ export async function signInWithPassword(input: unknown, clientAddress: string):
  * The Layerwise account for an email the institution's identity provider vouched for, created without a password
  * on first sign-in. It belongs to no group until its owner opens an invite link, so it can see nothing yet.
  */
-export async function userForSingleSignOn(email: string, displayName: string | null): Promise<SignedInUser> {
+export async function userForSingleSignOn(profile: OidcProfile | undefined, displayName: string | null): Promise<SignedInUser> {
+  // Checked here as well as in next-auth's signIn callback: nothing reaches (or merges into) an account by email
+  // unless the issuer said the email is verified.
+  const email = oidcEmail(profile);
+  if (email === null) throw new ForbiddenError("Your institution's sign-on did not confirm your email address.");
   const db = await getDb();
   return db.user.upsert({
     where: { email },
