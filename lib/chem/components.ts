@@ -4,7 +4,9 @@
  * compiled library's solvents (only those the work-up uses). Refilled in place from the work-up's parameters on
  * every run: Monte-Carlo draws change log P, log K and pKa, and the arithmetic is a few dozen operations.
  */
+import { COUNTER_IONS } from "./data/counter-ions";
 import { type SolventProps } from "./data/solvents";
+import { pairingFactor, pairingSign } from "./ion-pair";
 import { type CompiledLibrary, type Library } from "./library";
 import { emptyParameters, readComponentParameters, type WorkupParameters } from "./parameters";
 import { collanderLogK, cosolvencyPower, setschenowConstant } from "./partition";
@@ -24,9 +26,18 @@ export interface CompiledComponents {
   /** Cosolvency power σ of component c in water-miscible solvent j at [c * nSolvents + j]. */
   sigma: Float64Array;
   setschenow: Float64Array;
-  /** log K_ion − log K_neutral given by the component, or NaN for the solvent default. */
+  /** log K_ion − log K_neutral given by the component (used at any counter-ion concentration), or NaN for the
+   * ion-pair model. */
   ionOffset: Float64Array;
+  /** Flagged "lipophilic" without a named salt: the solvent's fixed ion-pair offset (class value). */
   lipophilicCounterIon: Uint8Array;
+  /** 1 when the charged forms are anions (paired with the water's cations), 0 when cations. */
+  pairsAsAnion: Uint8Array;
+  /** Counter-ions of a weighed salt per mmol of the component that enter the strong-ion pool (signed), and
+   * how much more the salt's own counter-ion extracts than the reference ion per mmol (see equilibrium.ts). */
+  saltCharge: Float64Array;
+  saltIons: Float64Array;
+  ownPairing: Float64Array;
 }
 
 /** Allocates the arrays for `n` components over the compiled library's solvents. */
@@ -36,6 +47,7 @@ export function allocateComponents(n: number, lib: CompiledLibrary): CompiledCom
     count: n, keys: [], startMmol: new Float64Array(n), molarMass: new Float64Array(n), acidKa: [], baseKa: [],
     fixedCharge: new Int8Array(n), logK: new Float64Array(n * ns), sigma: new Float64Array(n * ns),
     setschenow: new Float64Array(n), ionOffset: new Float64Array(n), lipophilicCounterIon: new Uint8Array(n),
+    pairsAsAnion: new Uint8Array(n), saltCharge: new Float64Array(n), saltIons: new Float64Array(n), ownPairing: new Float64Array(n),
   };
 }
 
@@ -84,7 +96,9 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
     out.molarMass[ci] = c.molarMass;
     out.fixedCharge[ci] = c.fixedCharge;
     out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
-    out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" ? 1 : 0;
+    out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" && !c.salt ? 1 : 0;
+    out.pairsAsAnion[ci] = pairingSign(c) === "anion" ? 1 : 0;
+    fillSalt(out, ci, c);
     const q0 = p.pKaStart[ci] as number;
     let nAcid = 0;
     for (const pk of c.pKas) if (pk.kind === "acid") nAcid++;
@@ -117,6 +131,27 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
     }
   }
   out.keys.length = components.length;
+}
+
+/**
+ * A weighed salt's counter-ions: those of an acid or base join the strong ions of the stream (an amine
+ * hydrochloride is the amine plus Cl⁻, as 1 M HCl is Cl⁻ alone in the charge balance); those of a permanently
+ * charged parent balance it and stay out of the charge balance, as the parent does. Either way the salt's own
+ * ion pairs with the component beyond what the reference ion of its sign would (pairing factor).
+ */
+function fillSalt(out: CompiledComponents, ci: number, c: Component): void {
+  if (!c.salt) {
+    out.saltCharge[ci] = 0;
+    out.saltIons[ci] = 0;
+    out.ownPairing[ci] = 0;
+    return;
+  }
+  const n = c.salt.perParent;
+  const fixed = c.fixedCharge !== 0;
+  out.saltCharge[ci] = fixed ? 0 : COUNTER_IONS[c.salt.counterIon].charge * n;
+  out.saltIons[ci] = fixed ? 0 : n;
+  const factor = pairingFactor(c.salt.counterIon);
+  out.ownPairing[ci] = n * (fixed ? factor : factor - 1);
 }
 
 function sizedKa(list: Float64Array[], i: number, n: number): Float64Array {

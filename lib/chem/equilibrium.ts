@@ -2,7 +2,8 @@
  * One equilibration of a mixed stream into an organic and an aqueous layer: phase volumes (phases.ts), the
  * log K of every component corrected for the organic layer's composition (log-linear mixing of the solvents'
  * values, an assumption), salting out and cosolvency (partition.ts), then the pH by charge balance with every
- * component distributing between the layers inside the residual (aqueous.ts). CO₂ above saturation leaves as
+ * component distributing between the layers inside the residual (aqueous.ts). Ions enter the organic layer as
+ * ion pairs with the water's counter-ions (ion-pair.ts). CO₂ above saturation leaves as
  * gas and the pH is solved again. Results stay in the instance (typed arrays reused between contacts).
  * The charge balance is solved by safeguarded Newton steps on its analytic slope (aqueous.ts): from the pH of
  * the previous contact, or of the same contact in the previous Monte-Carlo draw, it needs three to five
@@ -14,7 +15,7 @@ import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
 import { PhaseSplit } from "./phases";
-import { DEFAULT_ION_LOGK_OFFSET } from "./speciation";
+import { ionPairOffset } from "./ion-pair";
 import { copyInto, type Stream } from "./stream";
 
 /** The pH (and 10^−pH) a contact reached in an earlier run, before and after CO₂ left: where later runs'
@@ -61,6 +62,12 @@ export class Equilibrator implements SlopedChargeBalance {
   private ownIonFactor: Float64Array;
   private lastOffset = Number.NaN;
   private lastOffsetFactor = Number.NaN;
+  /** Ion-pair δ of each solvent for organic anions and cations (ion-pair.ts), and per contact the strong cations
+   * and anions of the aqueous layer, mol/L. */
+  private readonly pairAnion: Float64Array;
+  private readonly pairCation: Float64Array;
+  private cationM = 0;
+  private anionM = 0;
   /** Components with an acidic or basic site, and how many. */
   private charged: Int32Array;
   private nCharged = 0;
@@ -78,6 +85,8 @@ export class Equilibrator implements SlopedChargeBalance {
     this.charged = new Int32Array(n);
     this.ownIonFactor = new Float64Array(n);
     this.amountConc = new Float64Array(n);
+    this.pairAnion = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).anion);
+    this.pairCation = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).cation);
   }
 
   /** 10^x, remembered for the last x: contacts mostly share the organic layer's ion offset. */
@@ -172,6 +181,9 @@ export class Equilibrator implements SlopedChargeBalance {
     this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
     copyInto(this.amounts, mix.comp);
     if (!phases.hasAqueous) return false;
+    // Strong ions are monovalent but for thiosulfate: n± = (Σz²n ± Σzn)/2.
+    this.cationM = Math.max(0, 0.5 * (mix.strongZ2 + mix.strongCharge)) / this.va;
+    this.anionM = Math.max(0, 0.5 * (mix.strongZ2 - mix.strongCharge)) / this.va;
     this.setPartition();
     copyInto(this.systemTotals, mix.sys);
     this.nActive = 0;
@@ -191,24 +203,41 @@ export class Equilibrator implements SlopedChargeBalance {
     return true;
   }
 
+  /**
+   * log K of every component's neutral form in the organic layer, and K_ion = K_ex·[counter-ion]: the solvents'
+   * ion-pair δ (weighted as the log K are) times the strong counter-ions of the water, plus a weighed salt's
+   * own counter-ion where it pairs better than the reference ion. A component's own ion offset, or the legacy
+   * "lipophilic" flag, gives a fixed K_ion/K_N instead.
+   */
   private setPartition(): void {
     const { phases, lib, comps } = this;
     const ns = lib.solventKeys.length;
     const imm = phases.immiscibleVolume;
     const fc = phases.cosolventFraction;
+    let dAnion = 0, dCation = 0, dLegacy = 0;
+    for (let i = 1; i < ns && imm > 0; i++) {
+      const v = phases.org[i] as number;
+      if (v <= 0 || lib.miscible[i]) continue;
+      const w = v / imm;
+      dAnion += w * (this.pairAnion[i] as number);
+      dCation += w * (this.pairCation[i] as number);
+      dLegacy += w * (lib.solvents[i]?.ionPairCapable ? (lib.ionPairLogKOffset[i] as number) : (lib.ionLogKOffset[i] as number));
+    }
+    // K_ex at the reference counter-ion, per mol/L; `unpaired` marks a layer with no immiscible solvent.
+    const unpaired = !(imm > 0);
+    const exAnion = unpaired ? 0 : Math.exp(dAnion * Math.LN10);
+    const exCation = unpaired ? 0 : Math.exp(dCation * Math.LN10);
+    const perOwnIon = 1 / this.va;
     for (let c = 0; c < comps.count; c++) {
-      let logK = 0, offset = 0;
-      const lipophilic = comps.lipophilicCounterIon[c] === 1;
+      let logK = 0;
       if (imm > 0) {
         for (let i = 1; i < ns; i++) {
           const v = phases.org[i] as number;
           if (v <= 0 || lib.miscible[i]) continue;
-          const w = v / imm;
           const k = comps.logK[c * ns + i] as number;
-          logK += w * (Number.isNaN(k) ? 0 : k);
-          offset += w * (lipophilic && lib.solvents[i]?.ionPairCapable ? (lib.ionPairLogKOffset[i] as number) : (lib.ionLogKOffset[i] as number));
+          logK += (v / imm) * (Number.isNaN(k) ? 0 : k);
         }
-      } else offset = DEFAULT_ION_LOGK_OFFSET;
+      }
       logK += saltingOutShift(comps.setschenow[c] as number, phases.saltM);
       if (fc > 0) {
         for (let j = 1; j < ns; j++) {
@@ -219,7 +248,15 @@ export class Equilibrator implements SlopedChargeBalance {
       const own = comps.ionOffset[c] as number;
       const kNeutral = Math.exp(logK * Math.LN10);
       this.kNeutral[c] = kNeutral;
-      this.kIon[c] = kNeutral * (Number.isNaN(own) ? this.tenTo(offset) : (this.ownIonFactor[c] as number));
+      let ionFactor: number;
+      if (!Number.isNaN(own)) ionFactor = this.ownIonFactor[c] as number;
+      else if (comps.lipophilicCounterIon[c] === 1) ionFactor = this.tenTo(dLegacy);
+      else {
+        const anion = comps.pairsAsAnion[c] === 1;
+        const ownM = (comps.ownPairing[c] as number) * (this.amounts[c] as number) * perOwnIon;
+        ionFactor = anion ? exAnion * (this.cationM + ownM) : exCation * (this.anionM + ownM);
+      }
+      this.kIon[c] = kNeutral * ionFactor;
     }
   }
 

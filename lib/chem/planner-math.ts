@@ -4,6 +4,7 @@
  */
 import { type SolventProps } from "./data/solvents";
 import { SOLVENTS } from "./data/solvents";
+import { ionLogKShift, pairingSign } from "./ion-pair";
 import { solventLogK } from "./partition";
 import { type Component } from "./schema";
 import { distributionRatio, fractionSiteCharged, type IonizableSite } from "./speciation";
@@ -42,11 +43,15 @@ export function sitesOf(c: Pick<Component, "pKas">): IonizableSite[] {
   return c.pKas.map((p) => ({ pKa: p.value, kind: p.kind }));
 }
 
+/** Counter-ion concentration the planner assumes for ion pairs, mol/L (a 1 M wash). */
+const PLANNING_COUNTER_ION_M = 1;
+
 /** D(pH) of a component between `solvent` and water; null when neither log P nor a log K is known. */
 export function distributionFunction(c: Component, solvent: SolventProps): ((pH: number) => number) | null {
   const k = solventLogK(c, solvent, SOLVENTS);
   if (!k) return null;
-  const offset = c.ionLogKOffset ?? (c.counterIon === "lipophilic" ? solvent.ionPairLogKOffset : solvent.ionLogKOffset);
+  // Ion pairs at 1 M counter-ion, the strength of a typical acid or base wash (ion-pair.ts).
+  const offset = c.ionLogKOffset ?? (c.counterIon === "lipophilic" && !c.salt ? solvent.ionPairLogKOffset : ionLogKShift(solvent, pairingSign(c), PLANNING_COUNTER_ION_M));
   const sites = sitesOf(c);
   return (pH: number) => distributionRatio(pH, sites, k.value, k.value + offset, c.fixedCharge);
 }

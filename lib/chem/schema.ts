@@ -6,6 +6,7 @@
 import { z } from "zod";
 import { componentAmountSchema, finiteNumber, pHSchema, massSchema, temperatureSchema, volumeSchema } from "./schema-quantities";
 import { operationSchema } from "./schema-operations";
+import { COUNTER_ION_KEYS, saltMolarMass } from "./data/counter-ions";
 import { toMmol } from "./units";
 
 export const PROVENANCES = ["measured", "literature", "estimated", "group"] as const;
@@ -52,8 +53,17 @@ export const componentSchema = z.object({
   fixedCharge: z.number().int().min(-4).max(4).default(0),
   /** Counter-ion of the charged form: lipophilic ions (TFA, OTf, OTs, BF₄, PF₆, I⁻) pair into chlorinated solvents. */
   counterIon: z.enum(["hydrophilic", "lipophilic"]).optional(),
-  /** log K_ion − log K_neutral when known; default −3.5 (common practice). */
+  /** log K_ion − log K_neutral when known, used as is at every counter-ion concentration; default: the
+   * ion-pair model (ion-pair.ts). */
   ionLogKOffset: z.number().min(-12).max(2).optional(),
+  /** Weighed as a salt: `molarMass` is then the parent's (neutral molecule as drawn, or the cation of a
+   * quaternary ammonium) and a mass amount converts through the salt's molar mass; the counter-ion enters the
+   * aqueous charge balance and the ion-pair extraction (e.g. { counterIon: "chloride" } for an amine
+   * hydrochloride, { counterIon: "sodium" } for a sodium carboxylate, perParent 2 for a dihydrochloride). */
+  salt: z.object({
+    counterIon: z.enum(COUNTER_ION_KEYS, { error: () => `counterIon must be one of ${COUNTER_ION_KEYS.join(", ")}` }),
+    perParent: z.number().positive({ error: "perParent must be > 0" }).max(4, { error: "perParent must be ≤ 4" }).default(1),
+  }).optional(),
   /** Setschenow constant in NaCl, L/mol; default from log P. */
   setschenowK: z.number().min(-0.5).max(1).optional(),
   bpC: z.number().min(-200).max(800).optional(),
@@ -65,7 +75,10 @@ export const componentSchema = z.object({
   tags: z.array(z.enum(COMPONENT_TAGS)).default([]),
   waterSoluble: z.boolean().optional(),
   notes: z.string().max(5000).optional(),
-}).transform(({ amount, ...c }) => ({ ...c, amountMmol: toMmol(amount.value, amount.unit, c.molarMass) }));
+}).transform(({ amount, ...c }) => ({
+  ...c,
+  amountMmol: toMmol(amount.value, amount.unit, c.salt ? saltMolarMass(c.molarMass, c.salt.counterIon, c.salt.perParent, c.fixedCharge) : c.molarMass),
+}));
 
 const mixtureSchema = z.object({
   /** Reaction solvents (and water) present at the start of the work-up. */

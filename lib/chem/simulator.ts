@@ -109,6 +109,14 @@ export class Simulator {
       if (r) cur.addReagent(r, params.mixtureReagentMl[i] as number, lib.density[WATER] as number);
     }
     copyInto(cur.comp, comps.startMmol);
+    for (let c = 0; c < comps.count; c++) {
+      const ions = comps.saltIons[c] as number;
+      if (ions === 0) continue;
+      const n = comps.startMmol[c] as number;
+      cur.strongCharge += (comps.saltCharge[c] as number) * n;
+      cur.strongZ2 += ions * n;
+      cur.osmoles += ions * n;
+    }
   }
 
   /** Applies every operation in order; `afterStep` (detail mode) sees each step as it ends. */

@@ -14,7 +14,8 @@ export interface IonizableSite {
   kind: "acid" | "base";
 }
 
-/** log K_ion − log K_neutral when nothing better is known (common practice: ions 3–4 log units below, §2.2). */
+/** log K_ion − log K_neutral for callers with no counter-ion or solvent at hand (common practice: ions 3–4 log
+ * units below). The simulator and planner use the ion-pair model of ion-pair.ts instead. */
 export const DEFAULT_ION_LOGK_OFFSET = -3.5;
 
 export interface Speciation {
