@@ -89,6 +89,13 @@ export async function commitProgress(tx: Client, job: Pick<ClaimedJob, "id" | "l
   if (count !== 1) throw new LeaseLostError(job.id);
 }
 
+/** Renews the lease between batches (a timer while the job runs); false when this worker no longer holds the job. */
+export async function renewLease(db: Client, job: Pick<ClaimedJob, "id" | "lockedBy">): Promise<boolean> {
+  const count = await db.$executeRaw`
+    UPDATE "Job" SET "lockedAt" = now() WHERE id = ${job.id} AND "lockedBy" = ${job.lockedBy} AND status = 'running'`;
+  return count === 1;
+}
+
 /** Marks a job done (or failed) if this worker still holds it. */
 export async function finishJob(tx: Client, job: Pick<ClaimedJob, "id" | "lockedBy">, outcome: { status: "done" | "failed"; error?: string; payload?: Record<string, unknown> }): Promise<boolean> {
   const payload = outcome.payload ? JSON.stringify(outcome.payload) : null;

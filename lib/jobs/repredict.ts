@@ -2,8 +2,11 @@
  * Re-predicting stored workups with the group's current values, and bringing their comparison with the outcome,
  * their status, deviation and review flag up to date. The engine runs outside any transaction (it takes a few tenths
  * of a second per workup and yields to the event loop between workups, so the server keeps answering requests); the
- * writes of a batch then go in one transaction with the job's progress. A workup saved again meanwhile is left alone:
- * its own save already predicted it with the same values.
+ * writes of a batch then go in one transaction with the job's progress. Every write is compare-and-set on the stamps
+ * read with the plan: the workup's version and its row stamp (updatedAt, which a reported outcome moves) and the
+ * outcome's own updatedAt. A workup saved again meanwhile is left alone (its own save already predicted it with the
+ * same values); one whose outcome was reported meanwhile comes back as `stale`, for the caller to plan again from
+ * the new outcome, so a background pass never overwrites what a person recorded after it read the row.
  */
 import { type Prisma } from "@/generated/prisma/client";
 import { type Db, type DbTransaction } from "@/lib/db/client";
@@ -12,6 +15,7 @@ import { analyzeOutcome, type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { isFlagged, type DeviationStatus } from "@/lib/workups/deviation";
 import { groupLibrary } from "@/lib/workups/library";
 import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "@/lib/workups/prediction";
+import { jobFailureMessage } from "./messages";
 
 export interface Reprediction {
   workupId: string;
@@ -21,8 +25,10 @@ export interface Reprediction {
   analysis: OutcomeAnalysis | null;
   state: { flagged: boolean; status: DeviationStatus; deviationPct: number | null };
   wasFlagged: boolean;
-  /** Kept as it was: "last changed" on a workup means a person's edit, not a re-validation. */
+  /** Kept as it was: "last changed" on a workup means a person's edit, not a re-validation. Also the row's stamp. */
   updatedAt: Date;
+  /** The outcome's updatedAt when planned (null: no outcome then). */
+  outcomeStamp: Date | null;
 }
 
 export interface RepredictionPlan {
@@ -40,7 +46,7 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
     select: {
       id: true, version: true, spec: true, flagged: true, updatedAt: true, assayedProductMmol: true, expectedProductMmol: true,
       components: { where: { groupId }, select: { key: true, compoundId: true } },
-      outcome: { select: { id: true, isolatedMassMg: true, purityPct: true } },
+      outcome: { select: { id: true, isolatedMassMg: true, purityPct: true, updatedAt: true } },
     },
   });
   const values = await groupValuesForWorkups(db, groupId, workups.map((w) => ({ id: w.id, links: w.components })));
@@ -56,9 +62,12 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
       const state = analysis
         ? { flagged: analysis.flagged, status: analysis.deviation.status, deviationPct: analysis.deviation.deviationPct }
         : { flagged: isFlagged("unknown", flags), status: "unknown" as const, deviationPct: null };
-      out.plans.push({ workupId: w.id, version: w.version, computed, outcomeId: w.outcome?.id ?? null, analysis, state, wasFlagged: w.flagged, updatedAt: w.updatedAt });
+      out.plans.push({
+        workupId: w.id, version: w.version, computed, outcomeId: w.outcome?.id ?? null, analysis, state, wasFlagged: w.flagged, updatedAt: w.updatedAt,
+        outcomeStamp: w.outcome?.updatedAt ?? null,
+      });
     } catch (error) {
-      out.failures.push({ workupId: w.id, message: error instanceof Error ? error.message.slice(0, 300) : "prediction failed" });
+      out.failures.push({ workupId: w.id, message: jobFailureMessage(error, `re-predicting workup ${w.id}`) });
     }
   }
   return out;
@@ -68,13 +77,38 @@ function asJson(value: unknown): Prisma.InputJsonValue {
   return value as Prisma.InputJsonValue; // engine results and analyses are plain JSON
 }
 
-/** Writes the plans; returns how many were applied and how many changed their review flag. */
-export async function applyRepredictions(tx: DbTransaction, groupId: string, plans: readonly Reprediction[]): Promise<{ applied: number; flagChanges: number }> {
+export interface AppliedRepredictions {
+  applied: number;
+  flagChanges: number;
+  /** Workups whose outcome was reported (or changed) after the plan read them, at the same version: plan again. */
+  stale: string[];
+}
+
+/**
+ * Writes the plans, each only if the rows are as the plan read them. The workup UPDATE is conditional on the version
+ * and the row stamp and takes the row lock, so an outcome report (which writes the workup row first in its own
+ * transaction) either committed before, and the stamps differ, or waits until this transaction ends.
+ */
+export async function applyRepredictions(tx: DbTransaction, groupId: string, plans: readonly Reprediction[]): Promise<AppliedRepredictions> {
   let applied = 0;
   let flagChanges = 0;
+  const stale: string[] = [];
   for (const p of plans) {
-    const { count } = await tx.workup.updateMany({ where: { id: p.workupId, groupId, version: p.version }, data: { ...p.state, updatedAt: p.updatedAt } });
-    if (count === 0) continue;
+    // An outcome written without touching the workup row would slip past the row stamp: compare it too.
+    const outcomeNow = await tx.outcome.findFirst({ where: { workupId: p.workupId, groupId }, select: { updatedAt: true } });
+    if ((outcomeNow?.updatedAt.getTime() ?? null) !== (p.outcomeStamp?.getTime() ?? null)) {
+      stale.push(p.workupId);
+      continue;
+    }
+    const { count } = await tx.workup.updateMany({
+      where: { id: p.workupId, groupId, version: p.version, updatedAt: p.updatedAt },
+      data: { ...p.state, updatedAt: p.updatedAt },
+    });
+    if (count === 0) {
+      const now = await tx.workup.findFirst({ where: { id: p.workupId, groupId }, select: { version: true } });
+      if (now?.version === p.version) stale.push(p.workupId);
+      continue;
+    }
     applied++;
     if (p.state.flagged !== p.wasFlagged) flagChanges++;
     await tx.prediction.create({
@@ -86,10 +120,11 @@ export async function applyRepredictions(tx: DbTransaction, groupId: string, pla
     });
     if (p.outcomeId && p.analysis) {
       await tx.outcome.updateMany({
-        where: { id: p.outcomeId, groupId },
+        where: { id: p.outcomeId, groupId, updatedAt: p.outcomeStamp ?? undefined },
         data: { analysis: asJson(p.analysis), recoveryPct: p.analysis.reported ? p.analysis.reported.recovery * 100 : null },
       });
     }
   }
-  return { applied, flagChanges };
+  return { applied, flagChanges, stale };
 }
+

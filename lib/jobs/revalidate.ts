@@ -23,6 +23,8 @@ export interface RevalidationPayload {
 /** Workups re-predicted per committed batch: a few seconds of engine time, far inside the lease. */
 export const REVALIDATION_BATCH = 5;
 const MAX_REASONS = 10;
+/** Re-plans of a workup whose outcome keeps changing under the batch; after that it is left to its own report. */
+const STALE_REPLANS = 2;
 
 export function readRevalidationPayload(payload: Record<string, unknown>): RevalidationPayload {
   const strings = (v: unknown) => (Array.isArray(v) ? v.filter((x): x is string => typeof x === "string") : []);
@@ -110,11 +112,22 @@ export async function runRevalidationBatch(db: Db, job: ClaimedJob, options: Bat
     ...(failures[0] ? { lastFailure: `${failures[0].workupId}: ${failures[0].message}` } : {}),
   };
   const done = job.done + batch.length;
-  await db.$transaction(async (tx) => {
-    const { flagChanges } = await applyRepredictions(tx, job.groupId, plans);
-    next.flagChanges += flagChanges;
+  let stale = await db.$transaction(async (tx) => {
+    const applied = await applyRepredictions(tx, job.groupId, plans);
+    next.flagChanges += applied.flagChanges;
     await commitProgress(tx, job, { done, total: Math.max(total, done), payload: { ...job.payload, ...next } });
+    return applied.stale;
   });
+  // An outcome reported while the batch was being predicted: predict those workups again against the new outcome.
+  for (let attempt = 0; stale.length > 0 && attempt < STALE_REPLANS; attempt++) {
+    const again = await planRepredictions(db, job.groupId, stale, { draws: options.draws });
+    stale = await db.$transaction(async (tx) => {
+      const applied = await applyRepredictions(tx, job.groupId, again.plans);
+      next.flagChanges += applied.flagChanges;
+      await commitProgress(tx, job, { done, total: Math.max(total, done), payload: { ...job.payload, ...next } });
+      return applied.stale;
+    });
+  }
   job.done = done;
   job.total = Math.max(total, done);
   job.payload = { ...job.payload, ...next };

@@ -8,7 +8,8 @@ import { randomBytes } from "node:crypto";
 import { hostname } from "node:os";
 import { type Db } from "@/lib/db/client";
 import { runInferenceBatch, scheduleInference } from "./infer";
-import { claimJob, finishJob, LeaseLostError, releaseJob, type ClaimedJob, type JobKind } from "./queue";
+import { jobFailureMessage } from "./messages";
+import { claimJob, finishJob, LEASE_SECONDS, LeaseLostError, releaseJob, renewLease, type ClaimedJob, type JobKind } from "./queue";
 import { runRevalidationBatch, type BatchOptions } from "./revalidate";
 
 /** Failures of one job tolerated (each retried from its last committed batch) before it is marked failed. */
@@ -23,21 +24,55 @@ export interface WorkerOptions extends BatchOptions {
   leaseSeconds?: number;
   kinds?: readonly JobKind[];
   log?: (message: string) => void;
+  /** Base of the retry backoff. Default 1 s. */
+  retryBaseMs?: number;
+  /** Called after each idle wait (tests count them). */
+  onIdle?: () => void;
+  onJob?: () => void;
 }
 
 export function newWorkerId(): string {
   return `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
 }
 
-const BATCH: Record<JobKind, (db: Db, job: ClaimedJob, options: BatchOptions) => Promise<boolean>> = {
+const BATCH: Record<JobKind, BatchRunner> = {
   revalidate: runRevalidationBatch,
   infer: (db, job) => runInferenceBatch(db, job),
 };
 
 export type JobRunResult = "done" | "released" | "lost" | "failed";
 
+/** Failed attempts at one batch (database errors, a crash of the engine) before the job is marked failed. */
+export const MAX_BATCH_ATTEMPTS = 4;
+/** Wait before the n-th retry: 1 s, 2 s, 4 s … (doubling, capped at 30 s). */
+export const retryDelayMs = (attempt: number, baseMs = 1_000) => Math.min(30_000, baseMs * 2 ** (attempt - 1));
+
+export interface RunOptions extends BatchOptions {
+  signal?: AbortSignal;
+  log?: (m: string) => void;
+  leaseSeconds?: number;
+  /** Base of the retry backoff (tests shorten it). Default 1 s. */
+  retryBaseMs?: number;
+  /** Runs one batch in place of the job kind's own (tests put a failing or slow batch here). */
+  batch?: BatchRunner;
+}
+
+export type BatchRunner = (db: Db, job: ClaimedJob, options: BatchOptions) => Promise<boolean>;
+
+/**
+ * Renews the job's lease every third of its length while the job runs, so a long batch (or a slow retry) never lets
+ * it lapse; stops when the job ends. The timer does not keep the process alive.
+ */
+export function keepLease(db: Db, job: Pick<ClaimedJob, "id" | "lockedBy">, leaseSeconds: number, onLost: () => void): () => void {
+  const timer = setInterval(() => {
+    renewLease(db, job).then((held) => { if (!held) onLost(); }, () => { /* the next tick or the batch's own commit will tell */ });
+  }, Math.max(100, (leaseSeconds * 1000) / 3));
+  timer.unref();
+  return () => clearInterval(timer);
+}
+
 /** Runs a claimed job to the end, or until `signal` aborts (the job goes back to the queue with its progress). */
-export async function runJob(db: Db, job: ClaimedJob, options: BatchOptions & { signal?: AbortSignal; log?: (m: string) => void } = {}): Promise<JobRunResult> {
+export async function runJob(db: Db, job: ClaimedJob, options: RunOptions = {}): Promise<JobRunResult> {
   const takeovers = (typeof job.payload["takeovers"] === "number" ? job.payload["takeovers"] : 0) + (job.takenOver ? 1 : 0);
   if (job.takenOver) {
     job.payload = { ...job.payload, takeovers };
@@ -47,27 +82,47 @@ export async function runJob(db: Db, job: ClaimedJob, options: BatchOptions & { 
     await finishJob(db, job, { status: "failed", error: `stopped ${takeovers} times before finishing; see the server log` });
     return "failed";
   }
+  let lost = false;
+  const stopLease = keepLease(db, job, options.leaseSeconds ?? LEASE_SECONDS, () => { lost = true; });
+  let attempt = 0;
   try {
     for (;;) {
+      if (lost) return "lost";
       if (options.signal?.aborted) {
         await releaseJob(db, job);
         return "released";
       }
-      if (await BATCH[job.kind](db, job, options)) return "done";
+      try {
+        if (await (options.batch ?? BATCH[job.kind])(db, job, options)) return "done";
+        attempt = 0;
+      } catch (error) {
+        if (error instanceof LeaseLostError) return "lost";
+        attempt++;
+        const message = jobFailureMessage(error, `${job.kind} job ${job.id}, attempt ${attempt}`);
+        if (attempt >= MAX_BATCH_ATTEMPTS) {
+          options.log?.(`job ${job.id} failed after ${attempt} attempts: ${message}`);
+          await finishJob(db, job, { status: "failed", error: `Stopped after ${attempt} failed attempts: ${message}` });
+          return "failed";
+        }
+        options.log?.(`job ${job.id}: attempt ${attempt} failed (${message}); retrying from its last committed batch`);
+        if (options.signal) await sleep(retryDelayMs(attempt, options.retryBaseMs), options.signal);
+        else await new Promise((resolve) => setTimeout(resolve, retryDelayMs(attempt, options.retryBaseMs)));
+      }
     }
-  } catch (error) {
-    if (error instanceof LeaseLostError) return "lost";
-    options.log?.(`job ${job.id} failed: ${error instanceof Error ? error.message : String(error)}`);
-    await finishJob(db, job, { status: "failed", error: error instanceof Error ? error.message.slice(0, 500) : "unexpected error" });
-    return "failed";
+  } finally {
+    stopLease();
   }
 }
 
-const sleep = (ms: number, signal: AbortSignal) =>
-  new Promise<void>((resolve) => {
-    const timer = setTimeout(resolve, ms);
-    signal.addEventListener("abort", () => { clearTimeout(timer); resolve(); }, { once: true });
+/** Waits `ms`, or less if `signal` aborts; leaves no listener on the signal either way (an idle worker waits often). */
+export function sleep(ms: number, signal: AbortSignal): Promise<void> {
+  return new Promise<void>((resolve) => {
+    if (signal.aborted) return resolve();
+    const onAbort = () => { clearTimeout(timer); resolve(); };
+    const timer = setTimeout(() => { signal.removeEventListener("abort", onAbort); resolve(); }, ms);
+    signal.addEventListener("abort", onAbort, { once: true });
   });
+}
 
 export interface RunningWorker {
   id: string;
@@ -90,12 +145,14 @@ export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {
         const job = await claimJob(db, id, { kinds: options.kinds, leaseSeconds: options.leaseSeconds });
         if (job) {
           await runJob(db, job, { ...options, signal: controller.signal, log });
+          options.onJob?.();
           continue;
         }
       } catch (error) {
         log(`worker ${id}: ${error instanceof Error ? error.message : String(error)}`);
       }
       await sleep(options.idleMs ?? 2_000, controller.signal);
+      options.onIdle?.();
     }
   };
   const running = loop();
@@ -112,14 +169,14 @@ export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {
  * Runs queued jobs (and inference passes for new outcomes) in this process until nothing is left; for scripts such
  * as the demo seed, and for tests. Returns the number of jobs run.
  */
-export async function drainQueue(db: Db, options: BatchOptions & { workerId?: string; kinds?: readonly JobKind[]; schedule?: boolean; maxJobs?: number } = {}): Promise<number> {
+export async function drainQueue(db: Db, options: BatchOptions & { workerId?: string; kinds?: readonly JobKind[]; schedule?: boolean; maxJobs?: number; retryBaseMs?: number } = {}): Promise<number> {
   const id = options.workerId ?? newWorkerId();
   let ran = 0;
   for (;;) {
     if (options.schedule !== false) await scheduleInference(db);
     const job = await claimJob(db, id, { kinds: options.kinds });
     if (!job) return ran;
-    await runJob(db, job, options);
+    await runJob(db, job, { ...options, retryBaseMs: options.retryBaseMs ?? 0 });
     ran++;
     if (ran >= (options.maxJobs ?? 1000)) return ran;
   }
