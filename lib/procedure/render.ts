@@ -69,6 +69,11 @@ function phrase(step: ProposedStep): string {
   }
 }
 
+/** The steps of a stored spec's operation list (anything without a type is passed over). */
+export function stepsOf(operations: readonly unknown[]): ProposedStep[] {
+  return operations.filter((v): v is ProposedStep => typeof v === "object" && v !== null && typeof (v as { type?: unknown }).type === "string");
+}
+
 /** Writes steps as one paragraph; each sentence names what it acts on. */
 export function renderProcedure(steps: ProposedStep[]): string {
   const sentences: string[] = [];

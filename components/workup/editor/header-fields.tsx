@@ -4,6 +4,7 @@ import { setHeader } from "@/lib/workups-client/editor-actions";
 import { type HeaderState } from "@/lib/workups-client/editor-types";
 import { SelectControl, TextControl } from "./controls";
 import { useEditor } from "./editor-context";
+import { ScaleControl } from "./scale-control";
 
 export interface MemberChoice {
   id: string;
@@ -30,6 +31,7 @@ export function HeaderFields({ members }: { members: MemberChoice[] }) {
       <TextControl {...bind("expectedProductMmol")} label="Expected product (mmol)" numeric className="sm:col-span-3" hint="Theoretical amount; recovery is judged against it when nothing was assayed." />
       <TextControl {...bind("assayedProductMmol")} label="Product assayed before the workup (mmol)" numeric className="sm:col-span-3"
         hint="From a quantitative sample (qNMR, calibrated HPLC) before the quench; separates reaction yield from workup losses." />
+      <ScaleControl />
     </div>
   );
 }

@@ -13,6 +13,7 @@ import { type ComponentName } from "@/components/workup/prediction/phase-bars";
 import { OperationCard, stepElementId } from "./operation-card";
 import { fieldId } from "./controls";
 import { useEditor } from "./editor-context";
+import { ProcedurePaste } from "./procedure-paste";
 
 export function focusFirstField(opId: string): void {
   requestAnimationFrame(() => {
@@ -54,6 +55,7 @@ export function OperationsSection({ announce }: { announce: (text: string) => vo
         </div>
         <Button variant="secondary" onClick={add}>Add step</Button>
         <p id="add-step-hint" className="w-full text-xs text-stone-500">Enter adds the chosen step at the end; Alt+↑/↓ inside a step moves it.</p>
+        <ProcedurePaste announce={announce} />
       </div>
     </div>
   );

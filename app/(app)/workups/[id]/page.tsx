@@ -19,8 +19,11 @@ import { OutcomeResult } from "@/components/workup/detail/outcome-result";
 import { PredictionOverview, combineSteps } from "@/components/workup/prediction/prediction-overview";
 import { MixtureView } from "@/components/workup/detail/mixture-view";
 import { PartitionProvenance } from "@/lib/partition/components/partition-provenance";
+import { ProcedureText } from "@/components/workup/detail/procedure-text";
+import { renderProcedure, stepsOf } from "@/lib/procedure/render";
 
 export const metadata = { title: "Workup" };
+
 
 function amount(mmol: number | null): string {
   return mmol === null ? "—" : `${formatNumber(mmol)} mmol`;
@@ -139,6 +142,9 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
           <Card title="Components"><ComponentsView spec={workup.spec} links={links} /></Card>
           <Card title="Starting mixture"><MixtureView spec={workup.spec} library={library} /></Card>
           <Card title="Steps"><StepsView spec={workup.spec} prediction={prediction} library={library} /></Card>
+          <Card title="Procedure text">
+            <ProcedureText paragraph={renderProcedure(stepsOf(operations))} printHref={`/workups/${workup.id}/procedure`} />
+          </Card>
         </div>
       </div>
     </>

@@ -7,6 +7,12 @@ import { WorkupEditor } from "@/components/workup/editor/workup-editor";
 import { snapshotOfDetail } from "@/components/workup/editor/snapshot";
 import { editorStateOf, emptyEditorState } from "@/lib/workups-client/from-spec";
 import { editorContext, todayUtc } from "../_lib/editor-data";
+import { copiedHeader } from "@/lib/workups-client/template";
+import { type EditorState } from "@/lib/workups-client/editor-types";
+
+function copyOf(state: EditorState, today: string, chemistId: string): EditorState {
+  return { ...state, header: copiedHeader(state.header, today, chemistId) };
+}
 
 export const metadata = { title: "New workup" };
 
@@ -27,7 +33,7 @@ export default async function NewWorkupPage({ searchParams }: { searchParams: Pr
   const { members, library } = await editorContext(member);
   const source = copy ? await copySource(member.group.id, copy) : null;
   const initial = source
-    ? editorStateOf({ ...source.header, title: `${source.header.title} (copy)`, performedOn: todayUtc(), chemistId: member.user.id }, source.spec, snapshotOfDetail(source).links)
+    ? copyOf(editorStateOf(source.header, source.spec, snapshotOfDetail(source).links), todayUtc(), member.user.id)
     : emptyEditorState(todayUtc(), member.user.id);
   return (
     <>
