@@ -7,6 +7,7 @@ import { z } from "zod";
 import { componentAmountSchema, finiteNumber, pHSchema, massSchema, temperatureSchema, volumeSchema } from "./schema-quantities";
 import { operationSchema } from "./schema-operations";
 import { COUNTER_ION_KEYS, saltMolarMass } from "./data/counter-ions";
+import { parentMolarMass, saltFromSmiles } from "./salt-smiles";
 import { toMmol } from "./units";
 
 export const PROVENANCES = ["measured", "literature", "estimated", "group"] as const;
@@ -59,7 +60,9 @@ export const componentSchema = z.object({
   /** Weighed as a salt: `molarMass` is then the parent's (neutral molecule as drawn, or the cation of a
    * quaternary ammonium) and a mass amount converts through the salt's molar mass; the counter-ion enters the
    * aqueous charge balance and the ion-pair extraction (e.g. { counterIon: "chloride" } for an amine
-   * hydrochloride, { counterIon: "sodium" } for a sodium carboxylate, perParent 2 for a dihydrochloride). */
+   * hydrochloride, { counterIon: "sodium" } for a sodium carboxylate, perParent 2 for a dihydrochloride).
+   * Without it, a multi-fragment `smiles` naming a known counter-ion ("NCc1ccccc1.Cl") sets it, and `molarMass`
+   * is then read as the whole salt's (salt-smiles.ts). */
   salt: z.object({
     counterIon: z.enum(COUNTER_ION_KEYS, { error: () => `counterIon must be one of ${COUNTER_ION_KEYS.join(", ")}` }),
     perParent: z.number().positive({ error: "perParent must be > 0" }).max(4, { error: "perParent must be ≤ 4" }).default(1),
@@ -75,10 +78,18 @@ export const componentSchema = z.object({
   tags: z.array(z.enum(COMPONENT_TAGS)).default([]),
   waterSoluble: z.boolean().optional(),
   notes: z.string().max(5000).optional(),
-}).transform(({ amount, ...c }) => ({
-  ...c,
-  amountMmol: toMmol(amount.value, amount.unit, c.salt ? saltMolarMass(c.molarMass, c.salt.counterIon, c.salt.perParent, c.fixedCharge) : c.molarMass),
-}));
+}).transform(({ amount, ...c }) => {
+  if (c.salt) return { ...c, amountMmol: toMmol(amount.value, amount.unit, saltMolarMass(c.molarMass, c.salt.counterIon, c.salt.perParent, c.fixedCharge)) };
+  // A salt drawn as a multi-fragment SMILES: molarMass is the whole salt's (as computed from that SMILES).
+  const drawn = c.smiles ? saltFromSmiles(c.smiles) : null;
+  if (!drawn) return { ...c, amountMmol: toMmol(amount.value, amount.unit, c.molarMass) };
+  return {
+    ...c,
+    molarMass: parentMolarMass(c.molarMass, drawn, c.fixedCharge),
+    salt: { counterIon: drawn.counterIon, perParent: drawn.perParent },
+    amountMmol: toMmol(amount.value, amount.unit, c.molarMass),
+  };
+});
 
 const mixtureSchema = z.object({
   /** Reaction solvents (and water) present at the start of the work-up. */
