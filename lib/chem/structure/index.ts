@@ -9,3 +9,4 @@ export { type SmilesLine, type SmilesLineResult, readSmilesLines, splitSmilesLin
 export { FINGERPRINT_BITS, FINGERPRINT_BYTES, bitIsSet, intersectionCount, morganFingerprint, patternFingerprint, popcount, tanimoto, tanimotoFromCounts } from "./fingerprint";
 export { type EstimatedPKa, detectIonizableSites, estimateIonizableSites } from "./sites";
 export { SITE_CLASSES, type SiteClass } from "./site-classes";
+export { NO_SITE_WARNING, type SiteWarning, estimateSitesWithWarnings, unrecognisedProtonGroups } from "./site-warnings";

@@ -7,6 +7,8 @@ import { StructureError } from "./errors";
 import { type RDKitModule, type RDKitMol, usingMol } from "./rdkit";
 import { parseRDKitJson } from "./rdkit-json";
 import { type ReadOptions, readStructure } from "./read";
+import { refineSiteValues, type SiteMatch } from "./pka-estimate";
+import { graphOf } from "./pka-graph";
 import { SITE_CLASSES, type SiteClass } from "./site-classes";
 
 export interface EstimatedPKa {
@@ -56,7 +58,7 @@ export function detectIonizableSites(rdkit: RDKitModule, mol: RDKitMol): Estimat
   const molecule = parseRDKitJson(mol.get_json());
   const isHetero = (atom: number) => ![1, 6].includes(molecule.atoms[atom]?.z ?? 6);
   const claimed = new Set<number>();
-  const sites: EstimatedPKa[] = [];
+  const found: (SiteMatch & { source: string })[] = [];
   for (const { spec, queries } of compile(rdkit)) {
     const ringsUsed = new Set<number>();
     for (const query of queries) {
@@ -72,18 +74,26 @@ export function detectIonizableSites(rdkit: RDKitModule, mol: RDKitMol): Estimat
         if (ring >= 0) ringsUsed.add(ring);
         if (second && spec.perRing === "one") continue;
         const secondValue = second && typeof spec.perRing === "object" ? spec.perRing : undefined;
-        sites.push({
-          value: secondValue?.pKa ?? spec.pKa,
-          kind: spec.kind,
-          provenance: "estimated",
-          source: secondValue?.source ?? spec.source,
-          se: spec.se,
-          site: spec.label,
-          atoms: [siteAtom, ...atoms.filter((a) => a !== siteAtom)],
-        });
+        const ordered = [siteAtom, ...atoms.filter((a) => a !== siteAtom)];
+        found.push({ spec, atom: siteAtom, atoms: ordered, value: secondValue?.pKa ?? spec.pKa, source: secondValue?.source ?? spec.source, fixed: secondValue !== undefined || undefined });
+        const extra = spec.second ? atoms[spec.second.site] : undefined;
+        if (spec.second && extra !== undefined) {
+          claimed.add(extra);
+          found.push({ spec, atom: extra, atoms: [extra, ...atoms.filter((a) => a !== extra)], value: spec.second.pKa, source: spec.second.source, fixed: true });
+        }
       }
     }
   }
+  const values = refineSiteValues(graphOf(molecule), found);
+  const sites = found.map((f, i): EstimatedPKa => ({
+    value: values[i] ?? f.value,
+    kind: f.spec.kind,
+    provenance: "estimated",
+    source: f.source,
+    se: f.spec.se,
+    site: f.spec.label,
+    atoms: f.atoms,
+  }));
   return sites.sort((a, b) => (a.atoms[0] ?? 0) - (b.atoms[0] ?? 0));
 }
 
