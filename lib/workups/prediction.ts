@@ -4,7 +4,7 @@
  */
 import { simulateWorkup, validateWorkup, type PredictOptions } from "@/lib/chem/predict";
 import { type WorkupInput } from "@/lib/chem/schema";
-import { type WorkupPrediction } from "@/lib/chem/types";
+import { type Flag, type WorkupPrediction } from "@/lib/chem/types";
 import { engineSimulator } from "@/lib/chem/compiled";
 import { propagateUncertainty, type Interval } from "@/lib/chem/uncertainty";
 import { ENGINE_VERSION } from "@/lib/chem/version";
@@ -70,13 +70,16 @@ export interface PredictionOptions {
   draws?: number;
   /** The group's pooled partition values and registry properties of linked compounds (lib/partition groupValuesForLinks). */
   groupValues?: GroupValues;
+  /** Flags found outside the engine (site-flags.ts: N–H/O–H groups no site class recognised), shown with the engine's. */
+  extraFlags?: Flag[];
 }
 
 /** Point prediction (with steps, flags and cautions) and, when draws > 0, the Monte Carlo interval. */
 export function computePrediction(spec: unknown, options: PredictionOptions): ComputedPrediction {
   const parsed = applyGroupValues(parseSpec(spec, options.library), options.groupValues);
   const engine: PredictOptions = { ...options.library };
-  const prediction = simulateWorkup(parsed, engine);
+  const simulated = simulateWorkup(parsed, engine);
+  const prediction = options.extraFlags?.length ? { ...simulated, flags: [...simulated.flags, ...options.extraFlags] } : simulated;
   const draws = options.draws ?? SAVE_DRAWS;
   const uncertainty = draws > 0 ? intervalOf(parsed, engine, draws, options.seed) : null;
   const productKey = prediction.productKey;

@@ -7,6 +7,7 @@ import { type GroupValues } from "@/lib/partition/overlay";
 import { type Client } from "./context";
 import { groupLibrary } from "./library";
 import { computePrediction, seedFromId } from "./prediction";
+import { siteFlags } from "./site-flags";
 import { componentLinkSchema } from "./schemas";
 import { type PredictionSummary } from "./service";
 
@@ -32,7 +33,7 @@ export async function previewPrediction(
       ? await db.workupComponent.findMany({ where: { groupId, workupId: options.workupId }, select: { key: true, compoundId: true } })
       : [];
   const [library, groupValues] = await Promise.all([groupLibrary(db, groupId), groupValuesForLinks(db, groupId, links)]);
-  const p = computePrediction(spec, { library, seed: seedFromId(options.workupId ?? groupId), groupValues });
+  const p = computePrediction(spec, { library, seed: seedFromId(options.workupId ?? groupId), groupValues, extraFlags: await siteFlags(spec) });
   const { flags, cautions } = p.result.prediction;
   return { engineVersion: p.engineVersion, productKey: p.productKey, productRecovery: p.productRecovery, recoveryLow: p.recoveryLow, recoveryHigh: p.recoveryHigh, flags, cautions };
 }

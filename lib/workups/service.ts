@@ -17,6 +17,7 @@ import { newRecordId } from "./ids";
 import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
 import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "./prediction";
+import { siteFlags } from "./site-flags";
 import { headerColumns, plainJson, searchTextOf, snapshotHeader, solventKeysOf, type WorkupSnapshot } from "./record";
 import { createWorkupSchema, updateWorkupSchema, type CreateWorkup } from "./schemas";
 
@@ -73,6 +74,7 @@ export async function createWorkup(db: Db, actor: Actor, input: unknown, options
   const id = newRecordId();
   const prediction = computePrediction(rawSpecOf(input), {
     library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
+    extraFlags: await siteFlags(rawSpecOf(input)),
   });
   const flagged = isFlagged("unknown", prediction.result.prediction.flags);
   await db.$transaction(async (tx) => {
@@ -102,6 +104,7 @@ export async function updateWorkup(db: Db, actor: Actor, id: string, input: unkn
   const library = await groupLibrary(db, actor.groupId);
   const prediction = computePrediction(rawSpecOf(input), {
     library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
+    extraFlags: await siteFlags(rawSpecOf(input)),
   });
   const version = parsed.baseVersion + 1;
   return db.$transaction(async (tx) => {

@@ -3,6 +3,7 @@ import { can } from "@/lib/authz";
 import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { getDb } from "@/lib/db/client";
 import { getCompound, partitionDataFor, workupsUsing } from "@/lib/compounds/queries";
+import { siteWarnings } from "@/lib/compounds/site-warnings";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { Card, PageHeader } from "@/components/ui/page-header";
@@ -22,6 +23,7 @@ export default async function CompoundPage({ params }: { params: Promise<{ id: s
   const compound = await getCompound(db, member.group.id, id).catch((e: unknown) => pageFailure(e));
   const [observations, workups] = [await partitionDataFor(db, member.group.id, compound.id), await workupsUsing(db, member.group.id, [compound.id])];
   const used = workups.get(compound.id) ?? [];
+  const warnings = await siteWarnings(compound);
   const editable = can(member, "data:write");
   const similarHref = `/search?mode=similarity&query=${encodeURIComponent(compound.canonicalSmiles)}`;
   return (
@@ -52,7 +54,7 @@ export default async function CompoundPage({ params }: { params: Promise<{ id: s
         </div>
       </div>
       <div className="mt-6 space-y-6">
-        <SitesCard compound={compound} editable={editable} />
+        <SitesCard compound={compound} editable={editable} warnings={warnings} />
         <Card title={`Workups that used it (${used.length})`}>
           <WorkupTable workups={used} caption={`Workups of ${member.group.name} that used ${compound.name}`} />
         </Card>

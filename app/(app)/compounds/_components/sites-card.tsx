@@ -15,7 +15,7 @@ function ProvenanceBadge({ entry }: { entry: StoredPKa }) {
 }
 
 /** Ionizable sites with their pKa: estimates from the site class, or measured and literature values that replace them. */
-export function SitesCard({ compound, editable }: { compound: CompoundDetail; editable: boolean }) {
+export function SitesCard({ compound, editable, warnings = [] }: { compound: CompoundDetail; editable: boolean; warnings?: string[] }) {
   const sites = compound.pKas;
   return (
     <Card title={`Ionizable sites (${sites.length})`}>
@@ -23,6 +23,11 @@ export function SitesCard({ compound, editable }: { compound: CompoundDetail; ed
         Estimated sites carry their class&apos;s default pKa with a wide uncertainty; replace them with a measured or literature value when there is one.
         For a base the value is the pKa of its conjugate acid (BH⁺).
       </p>
+      {warnings.length > 0 ? (
+        <ul className="mb-3 space-y-1 rounded border border-amber-300 bg-amber-50 px-3 py-2 text-sm text-amber-900" data-testid="site-warnings">
+          {warnings.map((w) => <li key={w}>{w}</li>)}
+        </ul>
+      ) : null}
       {sites.length === 0 ? (
         <p className="text-sm text-stone-500" data-testid="no-sites">No ionizable site found: the compound is treated as neutral at every pH.</p>
       ) : (
