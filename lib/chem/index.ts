@@ -14,3 +14,4 @@ export * from "./phases";
 export * from "./predict";
 export * from "./flags";
 export * from "./operation-types";
+export * from "./losses";

@@ -16,6 +16,8 @@ export interface OperationFieldMeta {
   units?: UnitName[];
   default?: string | number | boolean;
   options?: string[];
+  /** One line of help shown under the field. */
+  hint?: string;
 }
 
 export interface OperationTypeMeta {
@@ -57,14 +59,18 @@ const TYPES: OperationTypeMeta[] = [
   { type: "remove_cosolvent", label: "Remove reaction solvent", purpose: "Evaporate a water-miscible reaction solvent before the work-up.",
     fields: [{ name: "solvent", label: "Solvent", kind: "solvent", required: true }, { name: "fractionRemoved", label: "Fraction removed", kind: "fraction", required: false, default: 0.95 }] },
   { type: "dry", label: "Dry", purpose: "Remove dissolved water with a drying agent; the agent holds back some solution.",
-    fields: [{ name: "agent", label: "Drying agent", kind: "agent", required: true }, mass("mass", "Mass (default: 3.5× the need)"), rinse] },
+    fields: [{ name: "agent", label: "Drying agent", kind: "agent", required: true }, mass("mass", "Mass (default: 3.5× the need)"),
+      { ...rinse, hint: "Left blank, the spent agent is taken as rinsed with two portions of the layer's solvent, each twice the solution it holds (common practice)." }] },
   { type: "filter", label: "Filter", purpose: "Collect a solid or remove fines; the cake holds back some solution.",
     fields: [{ name: "keep", label: "Keep", kind: "filterKeep", required: false, default: "filtrate", options: ["filtrate", "solid"] },
       { name: "solidComponents", label: "Components that are solid", kind: "components", required: false }, mass("cakeMass", "Cake or pad mass"), rinse, saveAs] },
   { type: "concentrate", label: "Concentrate", purpose: "Remove volatile solvent; high-boiling solvents and non-volatile residue stay.",
     fields: [{ name: "method", label: "Method", kind: "method", required: false, default: "rotavap", options: ["rotavap", "high_vacuum", "n2_stream", "distillation"] },
       { name: "bath", label: "Bath temperature", kind: "quantity", required: false, units: unitsOf("temperature") },
-      { name: "pressure", label: "Pressure", kind: "quantity", required: false, units: unitsOf("pressure") },
+      { name: "pressure", label: "Pressure", kind: "quantity", required: false, units: unitsOf("pressure"),
+        hint: "Left blank: a rotary evaporator set so the solvent boils 20 °C below the bath (rule of 20); 0.5 mbar on a high-vacuum line." },
+      { name: "minutes", label: "Time (min)", kind: "integer", required: false,
+        hint: "Left blank: until the solvent is gone plus 5 min (60 min on a high-vacuum line). Volatile products are lost at a rate set by their vapour pressure." },
       { name: "peroxideTested", label: "Tested for peroxides", kind: "boolean", required: false }] },
 ];
 

@@ -5,12 +5,15 @@
  * Volumes, amounts, target pH and rinse volumes are read from the simulator's parameters (parameters.ts).
  */
 import { reagentPh } from "./aqueous";
-import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
+import { concentrate } from "./concentrate";
+import { dry } from "./drying";
 import { WATER } from "./library";
 import { volumeForTargetPh } from "./target-ph";
 import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
 import { addAt } from "./stream";
+
+export { RETAINED_SOLVENT_BP_C } from "./concentrate";
 
 export type StepDetails = Record<string, number | string | boolean>;
 type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => StepDetails;
@@ -191,37 +194,6 @@ const removeCosolvent: Handler<"remove_cosolvent"> = (sim, op, step) => {
   return { removedMl: removed };
 };
 
-const dry: Handler<"dry"> = (sim, op, step) => {
-  const agent = sim.lib.lib.dryingAgents[op.agent];
-  if (!agent) throw new Error(`unknown drying agent '${op.agent}'`);
-  const cur = sim.current;
-  const waterG = (cur.solv[WATER] as number) * (sim.lib.density[WATER] as number);
-  const neededG = waterG / agent.capacityGPerG.value;
-  const massG = op.massG ?? neededG * DRYING_AGENT_EXCESS;
-  const absorbedG = Math.min(waterG, massG * agent.capacityGPerG.value);
-  addAt(cur.solv, WATER, -(absorbedG / (sim.lib.density[WATER] as number)));
-  // Hold-up: the spent agent keeps holdUp·mass mL of solution; a rinse of V_r leaves Vh/(Vh + V_r) of that behind.
-  const volume = cur.totalVolume();
-  const holdUp = agent.holdUpMlPerG.value * massG;
-  let retained = volume > 0 ? Math.min(1, holdUp / volume) : 0;
-  if (op.rinse) {
-    const rinseMl = sim.params.rinseMl[step - 1] as number;
-    addAt(cur.solv, sim.solventIndex(op.rinse.solvent), rinseMl);
-    retained *= holdUp / (holdUp + rinseMl);
-  }
-  const held = sim.newStream();
-  held.addFrom(cur, retained);
-  for (let c = 0; c < cur.comp.length; c++) addAt(cur.comp, c, -(held.comp[c] as number));
-  for (let i = 0; i < cur.solv.length; i++) addAt(cur.solv, i, -(held.solv[i] as number));
-  held.solid = true;
-  const water = sim.newStream();
-  water.solv[WATER] = absorbedG / (sim.lib.density[WATER] as number);
-  held.addFrom(water, 1);
-  sim.leave(step, held, "drying_agent", `${agent.name} (spent)`);
-  return { waterG, agentNeededG: neededG, agentRecommendedG: neededG * DRYING_AGENT_EXCESS, agentUsedG: massG,
-    waterLeftG: waterG - absorbedG, holdUpMl: holdUp, fractionHeldUp: retained };
-};
-
 /** Hold-up of solution on a filter cake or pad, mL per g (memory, as for drying agents). */
 const CAKE_HOLD_UP_ML_PER_G = 1;
 
@@ -252,29 +224,6 @@ const filter: Handler<"filter"> = (sim, op, step) => {
     sim.current = solid;
   } else sim.leave(step, solid, "filter_cake", "filter cake");
   return { fractionHeldUp: retained };
-};
-
-/** Solvents above these normal boiling points stay in the crude (assumption; DMF, DMSO, NMP on a rotavap). */
-export const RETAINED_SOLVENT_BP_C = { rotavap: 130, n2_stream: 130, distillation: 130, high_vacuum: 200 } as const;
-/** Components below these normal boiling points are predicted to evaporate with the solvent (assumption). */
-export const LOST_COMPONENT_BP_C = { rotavap: 100, n2_stream: 100, distillation: 100, high_vacuum: 150 } as const;
-
-const concentrate: Handler<"concentrate"> = (sim, op, step) => {
-  const cur = sim.current;
-  const waterMl = cur.solv[WATER] as number;
-  const volumeMl = cur.totalVolume();
-  const gone = sim.newStream();
-  const cut = RETAINED_SOLVENT_BP_C[op.method];
-  for (let i = 0; i < cur.solv.length; i++) {
-    if ((sim.lib.bpC[i] as number) < cut) { gone.solv[i] = cur.solv[i] as number; cur.solv[i] = 0; }
-  }
-  const lostCut = LOST_COMPONENT_BP_C[op.method];
-  sim.input.components.forEach((c, ci) => {
-    if (c.bpC !== undefined && c.bpC < lostCut) { gone.comp[ci] = cur.comp[ci] as number; cur.comp[ci] = 0; }
-  });
-  sim.leave(step, gone, "evaporated", "evaporated solvent");
-  sim.residue = true;
-  return { method: op.method, bathC: op.bathC, waterMl, volumeMl };
 };
 
 /** Dispatch by a switch: a keyed lookup in a table of handlers goes megamorphic across ten operation shapes. */

@@ -5,6 +5,7 @@
 import { type CompiledComponents } from "./components";
 import { evaluateCautions } from "./cautions";
 import { evaluateFlags, type FlagContext } from "./flags";
+import { lossesByBucket } from "./losses";
 import { libraryForWorkup, resolveLibrary, type CompiledLibrary, type Library, type LibraryOverrides } from "./library";
 import { RETAINED_SOLVENT_BP_C } from "./operations";
 import { readParameters } from "./parameters";
@@ -145,6 +146,7 @@ function assemble(w: WorkupInput, library: Library, lib: CompiledLibrary, comps:
     return { key: c.key, name: c.name, role: c.role, startMmol: c.amountMmol, isolatedMmol, recovery: r, isolatedMg: mg, purityPct: purity };
   });
   const productIndex = w.components.findIndex((c) => c.role === "product");
+  const sideStreams = sim.side.map((x) => sideStream(lib, comps, x));
   const ctx: FlagContext = {
     input: w, library, lib, comps, contacts: sim.contacts, steps: sim.stepTraces, side: sim.side, isolated: iso,
     recovery: Float64Array.from(components, (c) => c.recovery), productIndex, crudeMassMg, residualSolventsMg,
@@ -159,7 +161,9 @@ function assemble(w: WorkupInput, library: Library, lib: CompiledLibrary, comps:
     crudeMassMg,
     residualSolventsMg,
     productKey: productIndex >= 0 ? (w.components[productIndex]?.key ?? null) : null,
-    sideStreams: sim.side.map((x) => sideStream(lib, comps, x)),
+    sideStreams,
+    // Skipped on the recoveries-only path (Monte Carlo), which reads no losses.
+    ...(withFlags || steps.length > 0 ? { losses: lossesByBucket(sideStreams, Object.fromEntries(w.components.map((c) => [c.key, c.amountMmol]))) } : {}),
     flags: withFlags ? evaluateFlags(ctx) : [],
     cautions: withFlags ? evaluateCautions(ctx) : [],
   };

@@ -106,11 +106,25 @@ export function sideStream(lib: CompiledLibrary, comps: CompiledComponents, x: S
   const out: SideStream = {
     step: x.step, name: x.name, fate: x.fate, volumeMl: x.stream.totalVolume(), components: componentRecord(comps, x.stream.comp),
   };
-  if (x.fate === "waste") {
-    const kind = streamKind(lib, x.stream, false);
-    let chlorinated = 0;
-    for (let i = 1; i < lib.solventKeys.length; i++) if (lib.solvents[i]?.chlorinated) chlorinated += x.stream.solv[i] as number;
-    out.wasteClass = x.stream.solid ? "solid" : kind === "aqueous" ? "aqueous" : chlorinated > 0 ? "halogenated_organic" : "non_halogenated_organic";
-  }
+  if (x.fate === "waste") out.wasteClass = wasteClass(lib, x.stream);
   return out;
+}
+
+/**
+ * A discarded layer is aqueous waste when water is most of its volume: a wash saturated with ethyl acetate
+ * (8.3 wt %, ≈9 vol %) or carrying DMF is still an aqueous layer, not organic waste.
+ */
+export function wasteClass(lib: CompiledLibrary, s: Stream): NonNullable<SideStream["wasteClass"]> {
+  if (s.solid) return "solid";
+  let water = 0, other = 0, chlorinated = 0;
+  for (let i = 0; i < lib.solventKeys.length; i++) {
+    const v = s.solv[i] as number;
+    if (i === WATER) water += v;
+    else {
+      other += v;
+      if (lib.solvents[i]?.chlorinated) chlorinated += v;
+    }
+  }
+  if (water > 0 && water >= other) return "aqueous";
+  return chlorinated > 0 ? "halogenated_organic" : "non_halogenated_organic";
 }

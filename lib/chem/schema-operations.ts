@@ -130,6 +130,8 @@ const concentrate = z.object({
   method: z.enum(["rotavap", "high_vacuum", "n2_stream", "distillation"]).default("rotavap"),
   bath: temperatureSchema("bath temperature").optional(),
   pressure: pressureSchema().optional(),
+  /** Total time on the evaporator, min; omitted: until the solvent is gone plus a few minutes (evaporation.ts). */
+  minutes: z.number({ error: "minutes must be a number" }).gt(0, { error: "minutes must be > 0" }).max(10080, { error: "minutes must be ≤ 10080 (one week)" }).optional(),
   /** Whether the stream was tested for peroxides before concentration (asked for ether streams, §4.3). */
   peroxideTested: z.boolean().optional(),
   ...common,

@@ -109,6 +109,15 @@ export interface ComponentOutcome {
   purityPct: number;
 }
 
+/** Fractions (0–1) of a component's starting amount lost, by where it went (losses.ts). */
+export interface ComponentLosses {
+  aqueous: number;
+  organic: number;
+  drying_agent: number;
+  filter_cake: number;
+  evaporated: number;
+}
+
 export interface WorkupPrediction {
   engineVersion: string;
   steps: StepResult[];
@@ -122,6 +131,8 @@ export interface WorkupPrediction {
   productKey: string | null;
   /** Every stream that left the main line, with its fate; with `isolated` it closes the mass balance. */
   sideStreams: SideStream[];
+  /** Each component's losses by destination (absent in predictions stored before it was added). */
+  losses?: Record<string, ComponentLosses>;
   flags: Flag[];
   cautions: Caution[];
 }

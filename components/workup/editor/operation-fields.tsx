@@ -13,7 +13,7 @@ import { optionLabel } from "./labels";
 export function OperationField({ op, field, stepNumber }: { op: OperationState; field: OperationFieldMeta; stepNumber: number }) {
   const { state, apply, messages, touch, library } = useEditor();
   const key = `op:${op.id}.${field.name}`;
-  const common = { fieldKey: key, messages: messages(key), onBlur: () => touch(key) };
+  const common = { fieldKey: key, messages: messages(key), onBlur: () => touch(key), ...(field.hint ? { hint: field.hint } : {}) };
   const value = op.values[field.name] ?? "";
   const setValue = (name: string, v: string) => apply((s) => setOperationValue(s, op.id, name, v), `op:${op.id}.${name}`);
   const label = field.label;
@@ -85,9 +85,10 @@ function RinseField({ op, field, setValue }: { op: OperationState; field: Operat
   const volumePath = `${field.name}.volume`;
   return (
     <div className="flex flex-wrap gap-2">
-      <SelectControl fieldKey={`${base}.solvent`} label="Rinse solvent" value={solvent} blank="No rinse" groups={withCurrent(solventChoices(library, "any"), solvent)}
+      <SelectControl fieldKey={`${base}.solvent`} label="Rinse solvent" value={solvent} blank={op.type === "dry" ? "Default rinse" : "No rinse"} groups={withCurrent(solventChoices(library, "any"), solvent)}
         messages={[...messages(base), ...messages(`${base}.solvent`)]} onBlur={() => touch(`${base}.solvent`)} onChange={(v) => setValue(`${field.name}.solvent`, v)} />
       <QuantityControl fieldKey={`${base}.volume`} label="Rinse volume" units={unitsOf("volume")} className="w-36" messages={messages(`${base}.volume`)} onBlur={() => touch(`${base}.volume`)}
+        {...(field.hint ? { hint: field.hint } : {})}
         quantity={{ value: op.values[volumePath] ?? "", unit: op.values[unitKey(volumePath)] ?? "mL" }}
         onChange={(q) => apply((s) => setOperationValue(setOperationValue(s, op.id, volumePath, q.value), op.id, unitKey(volumePath), q.unit), `${base}.volume`)} />
     </div>

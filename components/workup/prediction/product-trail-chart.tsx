@@ -1,15 +1,16 @@
 // Where the product is after each step: carried forward, set aside in a saved layer, or lost (by where it went).
 // A picture of the mass balance; the same numbers are in the table for screen readers.
-import { type LossKind, type TrailPoint } from "@/lib/workups-client/product-trail";
+import { LOSS_KINDS, type LossKind, type TrailPoint } from "@/lib/workups-client/product-trail";
 import { pct } from "./format";
 
 const LOSS_STYLE: Record<LossKind, { fill: string; label: string }> = {
   aqueous: { fill: "#38bdf8", label: "aqueous layers" },
   organic: { fill: "#f59e0b", label: "organic waste" },
-  solid: { fill: "#a8a29e", label: "drying agent / filter" },
-  evaporated: { fill: "#c4b5fd", label: "evaporated" },
+  drying_agent: { fill: "#a8a29e", label: "drying agent" },
+  filter_cake: { fill: "#78716c", label: "filter cake" },
+  evaporated: { fill: "#c4b5fd", label: "evaporation" },
 };
-const KINDS: LossKind[] = ["aqueous", "organic", "solid", "evaporated"];
+const KINDS = LOSS_KINDS;
 const H = 110;
 
 export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[]; productName: string }) {

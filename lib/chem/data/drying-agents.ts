@@ -43,3 +43,12 @@ export const DRYING_AGENTS: Readonly<Record<string, DryingAgentProps>> = Object.
 
 /** Multiple of the theoretical agent mass recommended, because practical capacity is far below theoretical (common practice). */
 export const DRYING_AGENT_EXCESS = 3.5;
+
+/**
+ * Load of an agent = water to take up ÷ its theoretical capacity at the mass used. Above DRYING_AGENT_MAX_LOAD it
+ * is overloaded (practical capacity is 0.2–0.8 g/g against about 1 g/g theoretical, memory; the recommended 3.5×
+ * the need is a load of 0.29). Below DRYING_AGENT_EXCESS_LOAD (more than twice the recommended mass) it is in clear
+ * excess. The two ranges do not overlap, so a step is never told both to add agent and to use less.
+ */
+export const DRYING_AGENT_MAX_LOAD = 0.3;
+export const DRYING_AGENT_EXCESS_LOAD = 1 / (2 * DRYING_AGENT_EXCESS);

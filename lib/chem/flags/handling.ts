@@ -1,5 +1,5 @@
 /** Handling failure modes: F13, F14, F15, F17, F23 (workup-practice §3). */
-import { LOST_COMPONENT_BP_C } from "../operations";
+import { DRYING_AGENT_EXCESS_LOAD, DRYING_AGENT_MAX_LOAD } from "../data/drying-agents";
 import { GAS_MOLAR_VOLUME_ML_PER_MMOL } from "../units";
 import { flag, operationOf, pct, productInfo, stepName, type Rule } from "./context";
 
@@ -25,19 +25,26 @@ export const co2Foaming: Rule = (ctx) => {
   return [];
 };
 
-/** F14: volatile product on concentration. */
+/** Share of the product lost to evaporation above which F14 is a danger rather than a warning. */
+const F14_DANGER_LOSS = 0.2;
+/** Share lost that raises F14 even for a product boiling above the warning boiling point. */
+const F14_WARN_LOSS = 0.02;
+
+/** F14: volatile product on concentration, from the evaporation model's predicted loss at the step. */
 export const volatileProduct: Rule = (ctx) => {
   const p = productInfo(ctx);
   const bp = p?.component.bpC;
-  if (!p || bp === undefined) return [];
+  if (!p || bp === undefined || p.startMmol <= 0) return [];
   for (const s of ctx.steps) {
     const op = operationOf(ctx, s.index);
     if (op?.type !== "concentrate") continue;
+    let lost = 0;
+    for (const x of ctx.side) if (x.step === s.index && x.fate === "evaporated") lost += (x.stream.comp[p.index] as number) / p.startMmol;
     const warnBelow = op.method === "high_vacuum" ? 250 : 150;
-    if (bp >= warnBelow) continue;
-    const lost = bp < LOST_COMPONENT_BP_C[op.method];
-    return [flag("F14", lost ? "danger" : "warning", "Volatile product lost on concentration",
-      `${p.component.name} boils at ${bp.toFixed(0)} °C; ${op.method === "high_vacuum" ? "high vacuum" : "concentration"} in ${stepName(ctx, s.index)} ${lost ? "is predicted to remove it with the solvent" : "can carry part of it away"}.`,
+    if (bp >= warnBelow && lost < F14_WARN_LOSS) continue;
+    const where = op.method === "high_vacuum" ? "high vacuum" : "concentration";
+    return [flag("F14", lost > F14_DANGER_LOSS ? "danger" : "warning", "Volatile product lost on concentration",
+      `${p.component.name} boils at ${bp.toFixed(0)} °C; ${where} in ${stepName(ctx, s.index)} (bath ${op.bathC.toFixed(0)} °C, ${Number(s.details.pressureMbar ?? 0).toPrecision(3)} mbar) is predicted to carry away about ${pct(lost)} of it with the solvent.`,
       "Control the pressure, keep the bath cool, stop with some solvent left and quantify by qNMR, or extract into a low-boiling solvent (pentane, ether).",
       { step: s.index, component: p.component.key })];
   }
@@ -56,15 +63,35 @@ export const heldUp: Rule = (ctx) => {
     const agent = op?.type === "dry" ? ctx.library.dryingAgents[op.agent] : undefined;
     const amineTrap = agent?.retains.includes("amines") && p.basePka !== null && p.basePka > 8;
     if (f <= 0.01 && !amineTrap) continue;
+    // Advice agrees with F23: "use less agent" only when the agent is in clear excess, never when it is loaded.
+    const step = ctx.steps.find((t) => t.index === x.step);
+    const load = loadOf(ctx, x.step);
+    const remedies = [
+      load !== null && load < DRYING_AGENT_EXCESS_LOAD ? "use less agent (a brine wash first lowers the need)" : "",
+      op?.type === "dry" && step?.details.defaultRinse === true
+        ? "rinse the spent agent with fresh solvent (the prediction assumes two portions, each twice the solution it holds)"
+        : "rinse the solid with more fresh solvent, in several small portions",
+      amineTrap ? "or dry basic amines over Na₂SO₄ or K₂CO₃" : "",
+    ].filter(Boolean);
     out.push(flag("F15", "warning", "Product held back by the drying agent or filter cake",
       [f > 0.01 ? `About ${pct(f)} of ${p.component.name} stays in the solution held by the ${x.name} in ${stepName(ctx, x.step)}.` : "",
         amineTrap ? `${agent?.name ?? "The agent"} is mildly Lewis-acidic and can hold basic amines.` : ""].filter(Boolean).join(" "),
-      `Use less agent (brine first), rinse the solid with fresh solvent${amineTrap ? ", or dry basic amines over Na₂SO₄ or K₂CO₃" : ""}.`,
+      `${remedies.join("; ").replace(/^./, (c) => c.toUpperCase())}.`,
       { step: x.step, component: p.component.key }));
     break;
   }
   return out;
 };
+
+/** Water load of a dry step's agent as a share of its theoretical capacity; null for other steps. */
+function loadOf(ctx: Parameters<Rule>[0], step: number): number | null {
+  const op = operationOf(ctx, step);
+  const s = ctx.steps.find((t) => t.index === step);
+  if (op?.type !== "dry" || !s) return null;
+  const cap = ctx.library.dryingAgents[op.agent]?.capacityGPerG.value ?? 1;
+  const used = Number(s.details.agentUsedG ?? 0);
+  return used > 0 ? Number(s.details.waterG ?? 0) / (cap * used) : null;
+}
 
 /** F17: neutral form above its solubility in either layer. */
 export const precipitation: Rule = (ctx) => {
@@ -101,7 +128,7 @@ export const wetOrganic: Rule = (ctx) => {
     const used = Number(s.details.agentUsedG ?? 0);
     const op = operationOf(ctx, s.index);
     const cap = op?.type === "dry" ? ctx.library.dryingAgents[op.agent]?.capacityGPerG.value ?? 1 : 1;
-    if (left > 1e-6 || load > 0.3 * cap * used) {
+    if (left > 1e-6 || load > DRYING_AGENT_MAX_LOAD * cap * used) {
       return [flag("F23", "warning", "Drying agent overloaded",
         `${stepName(ctx, s.index)} has about ${load.toFixed(2)} g of water to take up with ${used.toFixed(1)} g of agent (${pct(load / Math.max(cap * used, 1e-9))} of its theoretical capacity).`,
         "Wash with brine first and add agent until some stays free-flowing.", { step: s.index })];

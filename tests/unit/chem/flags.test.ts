@@ -84,10 +84,12 @@ describe("failure-mode flags (one per implemented mode)", () => {
     const f = expectFlag(workup([naphthalene(), tfa(10)], [["dcm", 20]], [wash("nahco3_sat", 30)], { funnel: mL(60) }), "F13");
     expect(f.severity).toBe("danger");
   });
+  // A liquid boiling at 90 °C (vapour pressure ≈ 180 mbar at 40 °C) is stripped with ether on a rotary evaporator
+  // (common practice); the evaporation model leaves a trace, not exactly nothing.
   it("F14: a product boiling at 90 °C on the rotary evaporator", () => {
     const f = expectFlag(workup([neutral("volatile", 2, { bpC: 90 })], [["et2o", 50]], [wash("water", 20), { type: "concentrate" }]), "F14");
     expect(f.severity).toBe("danger");
-    expect(predictWorkup(workup([neutral("volatile", 2, { bpC: 90 })], [["et2o", 50]], [wash("water", 20), { type: "concentrate" }])).recovery.volatile).toBe(0);
+    expect(predictWorkup(workup([neutral("volatile", 2, { bpC: 90 })], [["et2o", 50]], [wash("water", 20), { type: "concentrate" }])).recovery.volatile).toBeLessThan(0.05);
   });
   it("F15: a large mass of drying agent holds product", () => {
     expectFlag(workup([naphthalene()], [["etoac", 20]], [wash("brine", 10), { type: "dry", agent: "mgso4", mass: { value: 10, unit: "g" } }]), "F15");
