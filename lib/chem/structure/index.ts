@@ -10,3 +10,5 @@ export { FINGERPRINT_BITS, FINGERPRINT_BYTES, bitIsSet, intersectionCount, morga
 export { type EstimatedPKa, detectIonizableSites, estimateIonizableSites } from "./sites";
 export { SITE_CLASSES, type SiteClass } from "./site-classes";
 export { NO_SITE_WARNING, type SiteWarning, estimateSitesWithWarnings, unrecognisedProtonGroups } from "./site-warnings";
+export { mcGowanVolume, mcGowanVolumeOf } from "./mcgowan";
+export { type StructureAbraham, abrahamForStructure } from "./abraham";
