@@ -9,7 +9,7 @@ import { type SolventProps } from "./data/solvents";
 import { pairingFactor, pairingSign } from "./ion-pair";
 import { type CompiledLibrary, type Library } from "./library";
 import { emptyParameters, readComponentParameters, type WorkupParameters } from "./parameters";
-import { collanderLogK, cosolvencyPower, setschenowConstant } from "./partition";
+import { abrahamLogK, anchorLogP, collanderLogK, componentAbraham, cosolvencyPower, setschenowConstant } from "./partition";
 import { type Component } from "./schema";
 
 export interface CompiledComponents {
@@ -111,7 +111,8 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
     }
     const donor = nAcid > 0;
     const effective = parameterLogP(c, ci, p, lib.lib.solvents, donor);
-    const logP = Number.isNaN(effective) ? 0 : effective;
+    const octanol = componentAbraham(c, "octanol");
+    const logP = !Number.isNaN(effective) ? effective : octanol ? octanol.value : 0;
     out.setschenow[ci] = c.setschenowK ?? setschenowConstant(logP);
     const k0 = p.logKStart[ci] as number;
     const row = ci * ns;
@@ -126,8 +127,11 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
       }
       out.sigma[row + i] = 0;
       const own = ownLogK(c, s.key, p, k0);
+      // Abraham estimate (cached per component and solvent), anchored on this run's log P when that is enabled.
+      const ab = Number.isNaN(own) ? componentAbraham(c, s.key) : null;
       out.logK[row + i] = !Number.isNaN(own) ? own
-        : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
+        : ab ? abrahamLogK(ab, anchorLogP(c) === undefined ? undefined : (p.logP[ci] as number))
+          : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
     }
   }
   out.keys.length = components.length;

@@ -39,6 +39,15 @@ export const pKaSchema = z.object({
   se: standardError.optional(),
 });
 
+const descriptor = (name: string, min: number, max: number) =>
+  finiteNumber(name).refine((v) => v >= min && v <= max, { error: `${name} must be between ${min} and ${max}` });
+export const abrahamDescriptorsSchema = z.object({
+  E: descriptor("E", -2, 6), S: descriptor("S", -1, 10), A: descriptor("A", 0, 3), B: descriptor("B", 0, 6),
+  V: descriptor("V", 0.1, 10), L: descriptor("L", -2, 40).optional(),
+  provenance,
+  source: z.string().max(500).optional(),
+});
+
 export const componentSchema = z.object({
   key: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, { error: "key must be 1–64 letters, digits, '_', '-' or '.'" }),
   name: z.string().trim().min(1, { error: "name is required" }).max(200),
@@ -47,6 +56,11 @@ export const componentSchema = z.object({
   amount: componentAmountSchema,
   smiles: z.string().max(2000).optional(),
   logP: logValueSchema.optional(),
+  /**
+   * Abraham solute descriptors (E, S, A, B, McGowan V, optionally L) with their provenance; when given they
+   * replace the measured table and the log P line for every solvent that has published coefficients.
+   */
+  abraham: abrahamDescriptorsSchema.optional(),
   /** Partition coefficient for a named solvent (group or literature value); overrides the estimate from log P. */
   logK: z.record(z.string(), logValueSchema).default({}),
   pKas: z.array(pKaSchema).max(12, { error: "at most 12 pKa values" }).default([]),
