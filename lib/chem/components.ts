@@ -130,7 +130,7 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
       // Abraham estimate (cached per component and solvent), anchored on this run's log P when that is enabled.
       const ab = Number.isNaN(own) ? componentAbraham(c, s.key) : null;
       out.logK[row + i] = !Number.isNaN(own) ? own
-        : ab ? abrahamLogK(ab, anchorLogP(c) === undefined ? undefined : (p.logP[ci] as number))
+        : ab ? abrahamLogK(ab, anchorLogP(c) === undefined ? undefined : p.logP[ci])
           : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
     }
   }
