@@ -22,6 +22,7 @@ export interface SiteWarning {
 
 /** Non-ionizable X–H between pH 0 and 14 (see the file comment for the values). */
 const NEUTRAL_XH = [
+  "[OX2H2,OX1H1-,OX3H3+]", // water of crystallisation, hydroxide, hydronium: the solvent's own ions
   "[OX2H1][CX4]", // alcohol
   "[OX2H1][Si]", // silanol: weakly acidic (pKa ≈ 11-13) but not ionised in a workup
   "[#7X3;!H0][#6X3]=[O,S]", // amide, lactam, carbamate, urea, thioamide

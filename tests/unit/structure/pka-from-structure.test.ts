@@ -137,6 +137,14 @@ describe("site classes a synthetic group meets", () => {
     expect(Math.abs((values[1] ?? NaN) - 7.74)).toBeLessThanOrEqual(0.5);
   });
 
+  it.each([
+    ["ammonium chloride", "[NH4+].[Cl-]", 9.25],
+    ["hydrazine", "NN", 8.1],
+    ["hydroxylamine", "NO", 5.96],
+  ] as const)("gives %s its conjugate acid’s pKa (%s; %s, CRC, from memory)", (_name, smiles, measured) => {
+    expect(Math.abs(one(smiles, "base") - measured)).toBeLessThanOrEqual(0.3);
+  });
+
   it("gives piperazine's two nitrogens 9.73 and 5.35 [Perrin], within 0.8", () => {
     const values = sitesOf("C1CNCCN1").map((s) => s.value).sort((a, b) => b - a);
     expect(Math.abs((values[0] ?? NaN) - 9.73)).toBeLessThanOrEqual(0.8);
@@ -145,8 +153,8 @@ describe("site classes a synthetic group meets", () => {
 });
 
 describe("N–H/O–H groups with no recognised site", () => {
-  it("warns instead of treating a dialkyl phosphate or a hydrazine as silently neutral", () => {
-    for (const smiles of ["COP(=O)(O)OC", "NN"]) {
+  it("warns instead of treating a dialkyl phosphate or an N-arylhydroxylamine as silently neutral", () => {
+    for (const smiles of ["COP(=O)(O)OC", "ONc1ccccc1"]) {
       const { sites, warnings } = estimateSitesWithWarnings(rdkit, smiles);
       expect(sites).toEqual([]);
       expect(warnings).toHaveLength(1);
@@ -154,8 +162,8 @@ describe("N–H/O–H groups with no recognised site", () => {
     }
   });
 
-  it("stays quiet for groups that do not ionise between pH 0 and 14 (alcohol, amide, indole N–H; CRC) and for recognised sites", () => {
-    for (const smiles of ["CCO", "CC(=O)NC", "c1ccc2[nH]ccc2c1", "On1nnc2ccccc12", "CC(=O)Nc1ccc(O)cc1"]) {
+  it("stays quiet for groups that do not ionise between pH 0 and 14 (alcohol, amide, indole N–H, water of crystallisation; CRC) and for recognised sites", () => {
+    for (const smiles of ["CCO", "CC(=O)NC", "c1ccc2[nH]ccc2c1", "On1nnc2ccccc12", "CC(=O)Nc1ccc(O)cc1", "CC(=O)[O-].[Na+].O.O.O"]) {
       expect(estimateSitesWithWarnings(rdkit, smiles).warnings).toEqual([]);
     }
   });
