@@ -5,8 +5,9 @@
  */
 import { type FlagContext } from "./flags";
 import { stepName } from "./flags/context";
+import { assumedFunnelMl } from "./flags/handling";
 import { type Caution } from "./types";
-import { GAS_MOLAR_VOLUME_ML_PER_MMOL } from "./units";
+import { GAS_MOLAR_VOLUME_ML_PER_MMOL, gasMolarVolumeMl } from "./units";
 
 const DEFER = "Follow your local rules and your institution's safety plan; this is a prompt, not an approval.";
 /** Gas worth a venting prompt, mL (≈0.2 mmol; assumption). */
@@ -24,9 +25,12 @@ export function evaluateCautions(ctx: FlagContext): Caution[] {
   };
   const tags = new Set(ctx.input.components.flatMap((c) => c.tags));
   for (const t of ctx.contacts) {
-    const gas = t.co2Mmol * GAS_MOLAR_VOLUME_ML_PER_MMOL;
+    const gas = t.co2Mmol * gasMolarVolumeMl(t.temperatureC);
     if (gas >= GAS_PROMPT_ML) {
-      add("gas_evolution", t.step, `${stepName(ctx, t.step)} releases about ${gas.toFixed(0)} mL of CO₂ (25 °C, 1 atm) in portion ${t.portion}: add slowly, swirl before stoppering, vent often with the stem pointed away from people, into the back of the hood.`, `gas${t.step}`);
+      const funnel = ctx.input.funnelMl ?? assumedFunnelMl(t.liquidVolume);
+      const free = Math.max(funnel - t.liquidVolume, 1);
+      const over = gas > free ? ` — more than the ${free.toFixed(0)} mL free volume of a ${funnel.toFixed(0)} mL funnel: neutralize in an open, stirred flask first, then` : ":";
+      add("gas_evolution", t.step, `${stepName(ctx, t.step)} releases about ${gas.toFixed(0)} mL of CO₂ (${Number.isFinite(t.temperatureC) ? t.temperatureC.toFixed(0) : "25"} °C, 1 atm) in portion ${t.portion}${over} add slowly, swirl before stoppering, vent often with the stem pointed away from people, into the back of the hood.`, `gas${t.step}`);
     }
     if (t.temperatureRiseK >= EXOTHERM_PROMPT_K) {
       add("exotherm", t.step, `Neutralization in ${stepName(ctx, t.step)} releases about ${t.heatKJ.toFixed(1)} kJ, warming the mixture by about ${t.temperatureRiseK.toFixed(0)} K: add slowly with cooling, and let it cool before stoppering a funnel with low-boiling solvent.`, `heat${t.step}`);

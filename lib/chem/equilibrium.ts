@@ -3,14 +3,14 @@
  * log K of every component corrected for the organic layer's composition (log-linear mixing of the solvents'
  * values, an assumption), salting out and cosolvency (partition.ts), then the pH by charge balance with every
  * component distributing between the layers inside the residual (aqueous.ts). Ions enter the organic layer as
- * ion pairs with the water's counter-ions (ion-pair.ts). CO₂ above saturation leaves as
- * gas and the pH is solved again. Results stay in the instance (typed arrays reused between contacts).
+ * ion pairs with the water's counter-ions (ion-pair.ts). CO₂ above saturation leaves as gas inside the same
+ * solve (the carbonate is capped at saturation with the headspace). Results stay in the instance (typed arrays reused between contacts).
  * The charge balance is solved by safeguarded Newton steps on its analytic slope (aqueous.ts): from the pH of
  * the previous contact, or of the same contact in the previous Monte-Carlo draw, it needs three to five
  * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
-import { co2Excess, KW, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
+import { CO2_SATURATION_M, KW, solvePhWithSlope, systemFractionProtonated, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
@@ -18,13 +18,11 @@ import { PhaseSplit } from "./phases";
 import { ionPairOffset } from "./ion-pair";
 import { copyInto, type Stream } from "./stream";
 
-/** The pH (and 10^−pH) a contact reached in an earlier run, before and after CO₂ left: where later runs'
- * searches for the same contact start. */
+/** The pH (and 10^−pH) a contact reached in an earlier run: where later runs' searches for the same contact
+ * start. */
 export interface PhMemo {
   pH: number;
   h: number;
-  pHAfterGas: number;
-  hAfterGas: number;
 }
 
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
@@ -68,6 +66,8 @@ export class Equilibrator implements SlopedChargeBalance {
   private readonly pairCation: Float64Array;
   private cationM = 0;
   private anionM = 0;
+  /** H₂CO₃* the aqueous layer holds under the headspace, mol/L: CO₂ above it leaves (Infinity: none leaves). */
+  private carbonateCap = Number.POSITIVE_INFINITY;
   /** Components with an acidic or basic site, and how many. */
   private charged: Int32Array;
   private nCharged = 0;
@@ -130,19 +130,21 @@ export class Equilibrator implements SlopedChargeBalance {
       this.distribution.fill(Infinity);
       return;
     }
+    // CO₂ leaves to the headspace until H₂CO₃* is at saturation: the balance is solved with the carbonate that
+    // stays dissolved at each trial pH (open system), so the gas and the pH come out of one solve.
+    const carb = this.systemTotals[CARBONATE] as number;
+    this.carbonateCap = carb > 0 ? CO2_SATURATION_M : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.pH = remembered ? solvePhWithSlope(this, memo.pH, memo.h) : solvePhWithSlope(this, guess);
     if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; }
-    const carb = this.systemTotals[CARBONATE] as number;
+    this.carbonateCap = Number.POSITIVE_INFINITY;
     if (carb > 0) {
-      const excess = co2Excess(carb, this.va, this.rootH);
+      const kept = Math.min(carb, (CO2_SATURATION_M * this.va) / systemFractionProtonated(CARBONATE, this.rootH));
+      const excess = carb - kept;
       if (excess > 1e-12) {
         this.co2Mmol = excess;
-        this.systemTotals[CARBONATE] = carb - excess;
-        this.systemConc[CARBONATE] = (carb - excess) / this.va;
-        this.pH = remembered && Number.isFinite(memo.pHAfterGas) ? solvePhWithSlope(this, memo.pHAfterGas, memo.hAfterGas)
-          : solvePhWithSlope(this, this.pH, this.rootH);
-        if (memo && !Number.isFinite(memo.pHAfterGas)) { memo.pHAfterGas = this.pH; memo.hAfterGas = this.rootH; }
+        this.systemTotals[CARBONATE] = kept;
+        this.systemConc[CARBONATE] = kept / this.va;
       }
     }
     this.speciate(this.rootH);
@@ -280,6 +282,12 @@ export class Equilibrator implements SlopedChargeBalance {
         lost2 += (i + 1) * (i + 1) * term;
       }
       const conc = this.systemConc[s] as number;
+      if (s === CARBONATE && conc > this.carbonateCap * sum) {
+        // Capped at saturation: [H₂CO₃*] fixed, so [HCO₃⁻] = cap·K₁/h and [CO₃²⁻] = cap·K₁K₂/h² (z₀ = 0).
+        f -= this.carbonateCap * lost;
+        df += this.carbonateCap * lost2;
+        continue;
+      }
       const mean = lost / sum;
       f += conc * ((SYSTEM_Z0[s] as number) - mean);
       df += conc * (lost2 / sum - mean * mean);

@@ -8,7 +8,7 @@ import { WATER, type CompiledLibrary } from "./library";
 import { type ContactOutcome } from "./simulator";
 import { type Stream } from "./stream";
 import { type ContactResult, type LayerKind, type PhaseState, type SideStream, type SpeciesAmounts, type StreamSummary } from "./types";
-import { GAS_MOLAR_VOLUME_ML_PER_MMOL } from "./units";
+import { gasMolarVolumeMl } from "./units";
 import { type SideInternal } from "./simulator";
 
 const TINY = 1e-12;
@@ -70,7 +70,7 @@ export function contactResult(lib: CompiledLibrary, comps: CompiledComponents, e
   return {
     portion, phases,
     densityDifference: two && t ? t.organicDensity - t.aqueousDensity : null,
-    co2Mmol: eq.co2Mmol, co2GasMl: eq.co2Mmol * GAS_MOLAR_VOLUME_ML_PER_MMOL,
+    co2Mmol: eq.co2Mmol, co2GasMl: eq.co2Mmol * gasMolarVolumeMl(t?.temperatureC ?? Number.NaN),
     heatKJ: t?.heatKJ ?? 0, temperatureRiseK: t?.temperatureRiseK ?? 0,
     capacityExceeded: t?.capacityExceeded ?? false,
     reagentPh: t && Number.isFinite(t.reagentPh) ? t.reagentPh : null,

@@ -186,7 +186,7 @@ export class Simulator {
     if (memory) {
       memo = memory[k] ?? null;
       if (!memo) {
-        memo = { pH: Number.NaN, h: Number.NaN, pHAfterGas: Number.NaN, hAfterGas: Number.NaN };
+        memo = { pH: Number.NaN, h: Number.NaN };
         memory.push(memo);
       }
     }

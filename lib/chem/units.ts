@@ -77,3 +77,9 @@ export function toMmol(value: number, unit: AmountUnit | "mg" | "g", molarMass: 
 
 /** Molar volume of an ideal gas at 25 °C and 1 atm: RT/p = 8.314462618·298.15/101325 m³/mol = 24.465 L/mol (CODATA R). */
 export const GAS_MOLAR_VOLUME_ML_PER_MMOL = 24.465;
+
+/** Molar volume of an ideal gas at `temperatureC` and 1 atm, mL/mmol (RT/p, CODATA R); 25 °C when unknown. */
+export function gasMolarVolumeMl(temperatureC: number): number {
+  if (!Number.isFinite(temperatureC)) return GAS_MOLAR_VOLUME_ML_PER_MMOL;
+  return (8.314462618 * (temperatureC + 273.15)) / 101.325;
+}

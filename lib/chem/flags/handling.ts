@@ -1,6 +1,6 @@
 /** Handling failure modes: F13, F14, F15, F17, F23 (workup-practice §3). */
 import { DRYING_AGENT_EXCESS_LOAD, DRYING_AGENT_MAX_LOAD } from "../data/drying-agents";
-import { GAS_MOLAR_VOLUME_ML_PER_MMOL } from "../units";
+import { gasMolarVolumeMl } from "../units";
 import { flag, operationOf, pct, productInfo, stepName, type Rule } from "./context";
 
 const FUNNEL_SIZES_ML = [60, 125, 250, 500, 1000, 2000, 5000];
@@ -14,7 +14,7 @@ export function assumedFunnelMl(liquidMl: number): number {
 export const co2Foaming: Rule = (ctx) => {
   for (const t of ctx.contacts) {
     if (t.co2Mmol <= 0) continue;
-    const gas = t.co2Mmol * GAS_MOLAR_VOLUME_ML_PER_MMOL;
+    const gas = t.co2Mmol * gasMolarVolumeMl(t.temperatureC);
     const funnel = ctx.input.funnelMl ?? assumedFunnelMl(t.liquidVolume);
     const headspace = Math.max(funnel - t.liquidVolume, 1);
     if (gas <= 0.25 * headspace) continue;
