@@ -13,11 +13,11 @@ function tooLarge(limit: number): PayloadTooLargeError {
   return new PayloadTooLargeError(`The request body is larger than ${describeLimit(limit)}. Send less at once.`);
 }
 
-/** The body as text, refusing it as soon as it passes `limit` bytes. */
-export async function readBodyText(request: Request, limit: number): Promise<string> {
+/** The body's bytes, refusing it as soon as it passes `limit` bytes. */
+export async function readBodyBytes(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
   const declared = request.headers.get("content-length");
   if (declared !== null && /^\d+$/.test(declared) && Number(declared) > limit) throw tooLarge(limit);
-  if (!request.body) return "";
+  if (!request.body) return new Uint8Array(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -37,6 +37,12 @@ export async function readBodyText(request: Request, limit: number): Promise<str
     joined.set(chunk, offset);
     offset += chunk.byteLength;
   }
+  return joined;
+}
+
+/** The body as text, refusing it as soon as it passes `limit` bytes. */
+export async function readBodyText(request: Request, limit: number): Promise<string> {
+  const joined = await readBodyBytes(request, limit);
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(joined);
   } catch {

@@ -13,6 +13,7 @@ import {
   listPageSchema, looseObject, meSchema, outcomeReportSchema, predictResponseSchema, savedWorkupSchema, versionDiffSchema,
   versionListSchema, workupDetailSchema,
 } from "./responses";
+import { uploadQuerySchema } from "@/lib/attachments/schemas";
 
 export type HttpMethod = "get" | "post" | "put" | "delete";
 
@@ -88,6 +89,20 @@ export const API_ROUTES: ApiRoute[] = [
     success: { status: 200, schema: looseObject, description: "observations and pooled values" }, errors: readErrors },
   { method: "get", path: "/api/v1/jobs", summary: "The group's background jobs waiting or running, with progress, and the last one finished", permission: "data:read",
     success: { status: 200, schema: looseObject, description: "job status" }, errors: [403] },
+  { method: "get", path: "/api/v1/workups/{id}/attachments", summary: "Files kept with the workup and its outcome (no bytes)", permission: "data:read",
+    success: { status: 200, schema: looseObject, description: "the attachments" }, errors: readErrors },
+  { method: "post", path: "/api/v1/workups/{id}/attachments", summary: "Attach a file (image, PDF or plain-text data, at most 10 MB); its type is read from its content", permission: "data:write",
+    query: uploadQuerySchema, body: { name: "AttachmentBytes", schema: looseObject, contentType: "application/octet-stream", limit: "10 MB" },
+    success: { status: 201, schema: looseObject, description: "the attachment" }, errors: [403, 404, 413, 415, 422] },
+  { method: "get", path: "/api/v1/attachments/{id}", summary: "The file as uploaded (?download=1 to save it rather than open it)", permission: "data:read",
+    success: { status: 200, contentType: "application/octet-stream", description: "the file" }, errors: readErrors },
+  { method: "delete", path: "/api/v1/attachments/{id}", summary: "Delete an attachment", permission: "data:write",
+    success: { status: 204, description: "deleted" }, errors: readErrors },
+  { method: "get", path: "/api/v1/attachments/{id}/thumbnail", summary: "The preview of an image attachment", permission: "data:read",
+    success: { status: 200, contentType: "image/jpeg", description: "PNG or JPEG preview" }, errors: readErrors },
+  { method: "put", path: "/api/v1/attachments/{id}/thumbnail", summary: "Store the preview of an image attachment (PNG or JPEG, at most 200 kB)", permission: "data:write",
+    body: { name: "ThumbnailBytes", schema: looseObject, contentType: "image/jpeg", limit: "200 kB" },
+    success: { status: 204, description: "stored" }, errors: [403, 404, 413, 415, 422] },
   { method: "get", path: "/api/v1/openapi.json", summary: "This document", permission: null,
     success: { status: 200, schema: looseObject, description: "OpenAPI 3.1" }, errors: [] },
 ];

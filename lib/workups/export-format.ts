@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { PURITY_METHODS, OUTCOME_STATUSES } from "./schemas";
+import { fileNameSchema } from "@/lib/attachments/schemas";
 
 export const EXPORT_FORMAT = "layerwise.group-export";
 export const EXPORT_FORMAT_VERSION = 1;
@@ -50,6 +51,11 @@ const workup = z.object({
     isolatedMassMg: z.number(), purityPct: z.number().nullable(), purityMethod: z.enum(PURITY_METHODS), layerAssays: json,
     recoveryPct: z.number().nullable(), analysis: json, notes: z.string(), reportedBy: personRef, createdAt: timestamp, updatedAt: timestamp,
   }).nullable(),
+  /** Files kept with the workup or its outcome, bytes in base64 (absent in exports made before attachments existed). */
+  attachments: z.array(z.object({
+    fileName: fileNameSchema, mediaType: z.string(), target: z.enum(["workup", "outcome"]), sha256: z.string().regex(/^[0-9a-f]{64}$/),
+    data: z.base64(), thumbnail: z.base64().nullable(), createdBy: personRef, createdAt: timestamp,
+  })).default([]),
 });
 
 export const groupExportSchema = z.object({

@@ -25,6 +25,7 @@ export async function exportGroup(db: Db, groupId: string): Promise<GroupExport>
         versions: { orderBy: { version: "asc" } },
         predictions: { orderBy: [{ workupVersion: "asc" }, { createdAt: "asc" }, { id: "asc" }] },
         outcome: true,
+        attachments: { orderBy: byCreation },
       },
     }),
   ]);
@@ -75,6 +76,10 @@ export async function exportGroup(db: Db, groupId: string): Promise<GroupExport>
             notes: w.outcome.notes, reportedBy: person(w.outcome.reportedById), createdAt: iso(w.outcome.createdAt), updatedAt: iso(w.outcome.updatedAt),
           }
         : null,
+      attachments: w.attachments.map((a) => ({
+        fileName: a.fileName, mediaType: a.mediaType, target: a.target, sha256: a.sha256, data: Buffer.from(a.data).toString("base64"),
+        thumbnail: a.thumbnail ? Buffer.from(a.thumbnail).toString("base64") : null, createdBy: person(a.createdById), createdAt: iso(a.createdAt),
+      })),
     })),
   };
   const people = await db.user.findMany({ where: { id: { in: [...personIds] } }, select: { id: true, name: true, email: true }, orderBy: [{ email: "asc" }] });

@@ -4,7 +4,9 @@
  * group's solvent and reagent library is replaced by the exported one. Exporting the result gives the same document
  * apart from the refs (and people the importing group does not have).
  */
+import { createHash } from "node:crypto";
 import { type Db } from "@/lib/db/client";
+import { isThumbnail, sniffType } from "@/lib/attachments/content";
 import { workupInputSchema } from "@/lib/chem/schema";
 import { ConflictError, ValidationError, parseInput, type FieldErrors } from "@/lib/errors";
 import { audit } from "./audit";
@@ -22,8 +24,23 @@ export interface ImportCounts {
   versions: number;
   predictions: number;
   outcomes: number;
+  attachments: number;
   /** Emails of exported people who are not members of this group; their references were left empty. */
   unmatchedPeople: string[];
+}
+
+/** A stored file as the import writes it: its type is decided again from its bytes, and its checksum must match. */
+function attachmentRow(a: ExportedWorkup["attachments"][number], groupId: string, workupId: string, person: (ref: string | null) => string | null) {
+  const data = Uint8Array.from(Buffer.from(a.data, "base64"));
+  const type = sniffType(data);
+  if (!type || createHash("sha256").update(data).digest("hex") !== a.sha256) {
+    throw new ValidationError({ attachments: [`${a.fileName}: its content does not match its checksum or is not a kind of file kept here`] });
+  }
+  const thumbnail = a.thumbnail === null ? null : Uint8Array.from(Buffer.from(a.thumbnail, "base64"));
+  return {
+    groupId, workupId, target: a.target, fileName: a.fileName, mediaType: type.mediaType, sizeBytes: data.byteLength, sha256: a.sha256, data,
+    thumbnail: thumbnail && isThumbnail(thumbnail) ? thumbnail : null, createdById: person(a.createdBy), createdAt: new Date(a.createdAt),
+  };
 }
 
 /** Every ref must point at a record of the document; specs must still pass the engine's schema. */
@@ -104,6 +121,8 @@ export async function importGroup(db: Db, actor: Actor, body: unknown): Promise<
       createdAt: new Date(createdAt), updatedAt: new Date(updatedAt),
     })));
     await tx.outcome.createMany({ data: outcomes });
+    const attachments = each((w, id) => w.attachments.map((a) => attachmentRow(a, groupId, id, person)));
+    if (attachments.length) await tx.attachment.createMany({ data: attachments });
     await tx.partitionObservation.createMany({
       data: doc.observations.map(({ ref: _ref, compound, workup, createdBy, createdAt, details, ...o }) => ({
         ...o, groupId, id: newRecordId(), compoundId: compoundId.get(compound)!, workupId: workup === null ? null : (workupId.get(workup) ?? null),
@@ -112,7 +131,7 @@ export async function importGroup(db: Db, actor: Actor, body: unknown): Promise<
     });
     const counts: ImportCounts = {
       solvents: doc.solvents.length, reagents: doc.reagents.length, compounds: doc.compounds.length, observations: doc.observations.length,
-      workups: doc.workups.length, versions: versions.length, predictions: predictions.length, outcomes: outcomes.length, unmatchedPeople,
+      workups: doc.workups.length, versions: versions.length, predictions: predictions.length, outcomes: outcomes.length, attachments: attachments.length, unmatchedPeople,
     };
     await audit(tx, actor, "group.import", groupId, { ...counts, exportedAt: doc.exportedAt, fromGroup: doc.group.name });
     return counts;

@@ -9,6 +9,7 @@ import { type GroupExport } from "@/lib/workups/export-format";
 import { exportGroup } from "@/lib/workups/group-export";
 import { importGroup } from "@/lib/workups/group-import";
 import { reportOutcome } from "@/lib/workups/outcome";
+import { createAttachment } from "@/lib/attachments/service";
 import { createWorkup, updateWorkup } from "@/lib/workups/service";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
 import { exampleSpec, footprint, header, makeLab, type Lab } from "./fixtures";
@@ -57,6 +58,9 @@ describeEachDatabase("import and export", (t) => {
       links: [{ key: "aniline", compoundId: anilineId }], baseVersion: 1,
     }, QUICK);
     await reportOutcome(t.db, source.member, first.id, { isolatedMassMg: 870, purityPct: 96, purityMethod: "qnmr", notes: "white needles" });
+    // A TLC note kept as a text file with the outcome (type decided from the bytes: plain UTF-8 text).
+    await createAttachment(t.db, { groupId: source.groupId, userId: source.member.userId }, first.id, { name: "tlc-rf.txt", target: "outcome" },
+      new TextEncoder().encode("Rf 0.42 (30% EtOAc/hexanes)\n"));
     const second = await createWorkup(t.db, source.lead, { header: header({ title: "Lidocaine pH swing", performedOn: "2026-10-20" }), spec: exampleSpec("amine-back-extraction") }, QUICK);
     await t.db.partitionObservation.create({
       data: {
@@ -77,7 +81,7 @@ describeEachDatabase("import and export", (t) => {
       await t.db.membership.create({ data: { groupId: target.groupId, userId: person.userId, role: "member" } });
     }
     const counts = await importGroup(t.db, target.lead, JSON.parse(JSON.stringify(exported)) as unknown);
-    expect(counts).toMatchObject({ compounds: 1, workups: 2, versions: 3, predictions: 3, outcomes: 1, observations: 1, solvents: 1, reagents: 1, unmatchedPeople: [] });
+    expect(counts).toMatchObject({ compounds: 1, workups: 2, versions: 3, predictions: 3, outcomes: 1, attachments: 1, observations: 1, solvents: 1, reagents: 1, unmatchedPeople: [] });
     const again = await exportGroup(t.db, target.groupId);
     expect(again.group.name).toBe("Nazarov Lab");
     expect(modRefs({ ...again, group: exported.group })).toEqual(modRefs(exported));
@@ -97,6 +101,12 @@ describeEachDatabase("import and export", (t) => {
     expect((error as ValidationError).fieldErrors["workups.0.components.0.compound"]).toEqual(["no compound with ref 'c-missing-compound'"]);
     const wrongFormat = await importGroup(t.db, empty.lead, { ...exported, format: "something-else" }).catch((e: unknown) => e);
     expect((wrongFormat as ValidationError).fieldErrors["format"]).toEqual(['format must be "layerwise.group-export"']);
+    const attachmentsBefore = await t.db.attachment.count();
+    const tampered = structuredClone(exported);
+    tampered.workups[0]!.attachments[0]!.data = Buffer.from("Rf 0.99\n").toString("base64");
+    const badFile = await importGroup(t.db, empty.lead, tampered).catch((e: unknown) => e);
+    expect((badFile as ValidationError).fieldErrors["attachments"]).toEqual(["tlc-rf.txt: its content does not match its checksum or is not a kind of file kept here"]);
+    expect(await t.db.attachment.count()).toBe(attachmentsBefore);
     const { workups, versions, predictions, outcomes, compounds } = await footprint(t.db);
     expect({ workups, versions, predictions, outcomes, compounds }).toEqual({
       workups: before.workups, versions: before.versions, predictions: before.predictions, outcomes: before.outcomes, compounds: before.compounds,

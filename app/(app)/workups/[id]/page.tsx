@@ -20,6 +20,8 @@ import { PredictionOverview, combineSteps } from "@/components/workup/prediction
 import { MixtureView } from "@/components/workup/detail/mixture-view";
 import { PartitionProvenance } from "@/lib/partition/components/partition-provenance";
 import { ProcedureText } from "@/components/workup/detail/procedure-text";
+import { Attachments } from "@/components/workup/detail/attachments";
+import { listAttachments } from "@/lib/attachments/service";
 import { renderProcedure, stepsOf } from "@/lib/procedure/render";
 
 export const metadata = { title: "Workup" };
@@ -34,7 +36,9 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
   const member = await requirePageMember("data:read", { returnTo: `/workups/${id}` });
   const db = await getDb();
   const workup = await getWorkupDetail(db, member.group.id, id).catch(pageFailure);
-  const [overrides, versions] = await Promise.all([groupLibrary(db, member.group.id), listVersions(db, member.group.id, id)]);
+  const [overrides, versions, attachments] = await Promise.all([
+    groupLibrary(db, member.group.id), listVersions(db, member.group.id, id), listAttachments(db, member.group.id, id),
+  ]);
   const library = resolveLibrary(overrides);
   const stored = workup.prediction;
   const prediction = stored?.result.prediction ?? null;
@@ -142,6 +146,9 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
           <Card title="Components"><ComponentsView spec={workup.spec} links={links} /></Card>
           <Card title="Starting mixture"><MixtureView spec={workup.spec} library={library} /></Card>
           <Card title="Steps"><StepsView spec={workup.spec} prediction={prediction} library={library} /></Card>
+          <Card title="Attachments">
+            <Attachments workupId={workup.id} initial={attachments} writer={writer} hasOutcome={workup.outcome !== null} />
+          </Card>
           <Card title="Procedure text">
             <ProcedureText paragraph={renderProcedure(stepsOf(operations))} printHref={`/workups/${workup.id}/procedure`} />
           </Card>
