@@ -63,7 +63,8 @@ export const workupDetailSchema = z.object({
 
 const cause = z.object({
   code: z.string(), title: z.string(), change: z.string(), step: z.number().optional(), recovery: fraction,
-  fractionOfGap: z.number(), score: z.number().describe("1 = explains the whole gap; min(f, 1/f) of the fraction f closed"), simulated: z.boolean(),
+  fractionOfGap: fraction.describe("share of the gap (predicted − reported) the cause closes at its most plausible size, capped at 1; the figure every view shows"),
+  score: fraction.describe("posterior plausibility among the candidate causes (prior frequency × likelihood of the outcome)"), simulated: z.boolean(),
 });
 
 export const outcomeReportSchema = z.object({
@@ -71,8 +72,17 @@ export const outcomeReportSchema = z.object({
   workupVersion: z.number().int(),
   recoveryPct: z.number().nullable(),
   analysis: z.object({
-    reported: z.object({ recovery: fraction, productMmol: z.number(), referenceMmol: z.number(), basis: z.enum(["assayed", "expected", "spec"]), purityAssumed: z.boolean() }).nullable(),
-    predicted: z.object({ recovery: fraction, low: nullableFraction, high: nullableFraction }).nullable(),
+    reported: z.object({
+      recovery: z.number().describe("isolated product over the product in the crude before the workup"), productMmol: z.number(), referenceMmol: z.number(),
+      basis: z.enum(["assayed", "expected", "spec"]), crudeMmol: z.number().describe("product in the crude: the assay, or the reference × the group's reaction-yield figure"), purityAssumed: z.boolean(),
+    }).nullable(),
+    predicted: z.object({ recovery: fraction.describe("median of the predictive distribution, same basis"), low: nullableFraction, high: nullableFraction, engine: fraction.optional() }).nullable(),
+    predictive: z.object({
+      logMean: z.number(), logSd: z.number(), crudeLog: z.number(), observedLog: z.number(), yieldLog: z.number().nullable(),
+      quantile: fraction.describe("predictive CDF at the reported value"),
+      shortfallProbability: fraction.describe("posterior probability of a real shortfall; status below (flagged) from threshold"),
+      threshold: fraction, level: fraction, historyN: z.number().int(), case: z.record(z.string(), z.unknown()),
+    }).nullable().optional(),
     deviation: z.object({ status: z.enum(OUTCOME_STATUSES), deviationPct: z.number().nullable(), low: nullableFraction, high: nullableFraction, fallbackBand: z.boolean() }),
     flagged: z.boolean(),
     dangerFlags: z.array(z.string()),

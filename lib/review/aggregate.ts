@@ -11,7 +11,7 @@ export interface ReviewRow {
   chemistId: string | null;
   solventSystem: string | null;
   operationTypes: string[];
-  status: "as_expected" | "below" | "above" | "unknown";
+  status: "as_expected" | "below" | "above" | "inconclusive" | "unknown";
   flagged: boolean;
   deviationPct: number | null;
   /** Percent. */

@@ -1,18 +1,49 @@
 // The comparison stored with an outcome (Outcome.analysis) and mirrored on the Workup row (status, deviationPct,
-// flagged): reported vs predicted recovery, the interval, and the likely causes of a shortfall.
+// flagged): reported recovery against the predictive distribution (engine + handling + assay + reaction yield, the
+// group's history folded in), the outcome status, and the likely causes of a shortfall. Two signals stay apart:
+// procedure risk (the engine's flags, known before any outcome) and outcome status.
 import { type LibraryOverrides } from "@/lib/chem/library";
+import { handlingEvents } from "@/lib/chem/handling";
+import {
+  FLAG_PROBABILITY, INTERVAL_LEVEL, fitGroupModel, judgeOutcome, predictiveOf, recoveryInterval,
+  type AssayMethod, type GroupModel, type PredictiveCase,
+} from "@/lib/chem/predictive";
 import { type WorkupInput } from "@/lib/chem/schema";
 import { type Flag } from "@/lib/chem/types";
-import { rankCauses, type LikelyCause } from "./causes";
-import { compareWithPrediction, isFlagged, reportedRecovery, type Deviation, type ReportedRecovery } from "./deviation";
+import { engineRecoveryOf, rankCauses, type CauseCode, type LikelyCause, type Simulator } from "./causes";
+import { isFlagged, reportedRecovery, type Deviation, type ReportedRecovery } from "./deviation";
 import { productOf } from "./record";
+
+export interface PredictiveSummary {
+  /** Mean and sd of log(isolated / reference amount). */
+  logMean: number;
+  logSd: number;
+  /** log(product in the crude / reference amount): 0 when assayed. */
+  crudeLog: number;
+  observedLog: number;
+  /** log(assayed crude / expected amount) when both were recorded. */
+  yieldLog: number | null;
+  /** Predictive CDF at the reported value, and the posterior probability of a real shortfall. */
+  quantile: number;
+  shortfallProbability: number;
+  /** Flag threshold on shortfallProbability. */
+  threshold: number;
+  level: number;
+  /** What the model was given, kept so that later judgements can learn from this outcome. */
+  case: PredictiveCase;
+  /** Outcomes of the group the model learned from. */
+  historyN: number;
+}
 
 export interface OutcomeAnalysis {
   workupVersion: number;
   engineVersion: string | null;
   productKey: string | null;
+  /** Reported recovery relative to the product in the crude before the workup. */
   reported: ReportedRecovery | null;
-  predicted: { recovery: number; low: number | null; high: number | null } | null;
+  /** Predictive median and 95 % interval on the same basis; `engine` is the engine's own point prediction. */
+  predicted: { recovery: number; low: number | null; high: number | null; engine?: number } | null;
+  predictive?: PredictiveSummary | null;
   deviation: Deviation;
   flagged: boolean;
   /** Codes of the engine's danger flags, which flag a workup whatever its outcome. */
@@ -31,41 +62,75 @@ export interface PredictionFacts {
 }
 
 export interface AnalysisInputs {
-  outcome: { isolatedMassMg: number; purityPct?: number | null };
-  header: { assayedProductMmol: number | null; expectedProductMmol: number | null };
+  outcome: { isolatedMassMg: number; purityPct?: number | null; purityMethod?: AssayMethod | null };
+  header: { assayedProductMmol: number | null; expectedProductMmol: number | null; chemistId?: string | null };
   spec: WorkupInput;
   prediction: PredictionFacts | null;
   library: LibraryOverrides;
+  /** The group's model (lib/workups/group-model.ts); the common-practice priors alone when omitted. */
+  model?: GroupModel;
+  causeFrequencies?: Partial<Record<CauseCode, number>>;
+  /** The engine re-run for causes (defaults to the engine with the group's library). */
+  simulate?: Simulator;
 }
 
-export function analyzeOutcome({ outcome, header, spec, prediction, library }: AnalysisInputs): OutcomeAnalysis {
+const PRIORS_ONLY = fitGroupModel([]);
+
+export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
+  const { outcome, header, spec, prediction, library } = inputs;
+  const model = inputs.model ?? PRIORS_ONLY;
   const product = productOf(spec, prediction?.productKey ?? null);
+  const assayed = header.assayedProductMmol !== null && header.assayedProductMmol > 0;
+  const method: AssayMethod = outcome.purityMethod ?? (outcome.purityPct === null || outcome.purityPct === undefined ? "weight_only" : "hplc");
+  const engine = prediction && prediction.productRecovery !== null
+    ? { recovery: prediction.productRecovery, low: prediction.recoveryLow, high: prediction.recoveryHigh }
+    : null;
+  const predictiveCase: PredictiveCase | null = engine
+    ? { engine, handling: handlingEvents(spec.operations), assay: method, crudeAssayed: assayed, chemist: header.chemistId ?? null }
+    : null;
+  const predictive = predictiveCase ? predictiveOf(model, predictiveCase) : null;
   const reported = product
     ? reportedRecovery({
-        isolatedMassMg: outcome.isolatedMassMg,
-        purityPct: outcome.purityPct,
-        molarMass: product.molarMass,
-        assayedProductMmol: header.assayedProductMmol,
-        expectedProductMmol: header.expectedProductMmol,
-        specProductMmol: product.amountMmol,
+        isolatedMassMg: outcome.isolatedMassMg, purityPct: outcome.purityPct, molarMass: product.molarMass,
+        assayedProductMmol: header.assayedProductMmol, expectedProductMmol: header.expectedProductMmol, specProductMmol: product.amountMmol,
+        yieldFactor: Math.exp(predictive?.crudeLog ?? model.means["yield"] ?? 0),
       })
     : null;
-  const predicted =
-    prediction && prediction.productRecovery !== null
-      ? { recovery: prediction.productRecovery, low: prediction.recoveryLow, high: prediction.recoveryHigh }
-      : null;
-  const deviation = compareWithPrediction(reported?.recovery ?? null, predicted?.recovery ?? null, predicted?.low ?? null, predicted?.high ?? null);
+  const interval = predictive ? recoveryInterval(predictive) : null;
+  const predicted = interval && engine ? { recovery: interval.median, low: interval.low, high: interval.high, engine: engine.recovery } : null;
   const flags = prediction?.flags ?? [];
-  const causes =
-    deviation.status === "below" && product && predicted && reported
-      ? rankCauses(spec, product.key, predicted.recovery, reported.recovery, library)
-      : [];
+  let deviation: Deviation = { status: "unknown", deviationPct: null, low: predicted?.low ?? null, high: predicted?.high ?? null, fallbackBand: false };
+  let summary: PredictiveSummary | null = null;
+  let causes: LikelyCause[] = [];
+  if (reported && predicted && predictive && predictiveCase && reported.productMmol > 0) {
+    const observedLog = Math.log(reported.productMmol / reported.referenceMmol);
+    const judged = judgeOutcome(model, predictive, observedLog);
+    deviation = {
+      status: judged.status, deviationPct: (reported.recovery - predicted.recovery) * 100,
+      low: predicted.low, high: predicted.high, fallbackBand: engine?.low === null || engine?.high === null,
+    };
+    summary = {
+      ...predictive, observedLog, quantile: judged.quantile, shortfallProbability: judged.shortfallProbability,
+      yieldLog: assayed && header.expectedProductMmol ? Math.log((header.assayedProductMmol as number) / header.expectedProductMmol) : null,
+      threshold: FLAG_PROBABILITY, level: INTERVAL_LEVEL, case: predictiveCase, historyN: model.n,
+    };
+    if ((judged.status === "below" || judged.status === "inconclusive") && product) {
+      causes = rankCauses({
+        input: spec, productKey: product.key, engineRecovery: predictiveCase.engine.recovery,
+        logMean: predictive.logMean, logSd: predictive.logSd, observedLog, crudeLog: predictive.crudeLog, crudeAssayed: assayed,
+        ...(inputs.causeFrequencies ? { frequencies: inputs.causeFrequencies } : {}),
+      }, inputs.simulate ?? engineRecoveryOf(library, product.key));
+    }
+  } else if (reported && reported.productMmol === 0 && predicted) {
+    deviation = { status: "below", deviationPct: (0 - predicted.recovery) * 100, low: predicted.low, high: predicted.high, fallbackBand: false };
+  }
   return {
     workupVersion: prediction?.workupVersion ?? 0,
     engineVersion: prediction?.engineVersion ?? null,
     productKey: product?.key ?? null,
     reported,
     predicted,
+    predictive: summary,
     deviation,
     flagged: isFlagged(deviation.status, flags),
     dangerFlags: flags.filter((f) => f.severity === "danger").map((f) => f.code),

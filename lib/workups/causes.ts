@@ -1,179 +1,186 @@
 /**
- * Likely causes of a recovery below the prediction, ranked by how much of the gap each explains: the model is
- * re-run with one suspect parameter changed (workup-practice §3 failure modes; §6 view 5, "which few causes account
- * for most lost material"). A change that explains the gap exactly scores 1; one that closes half of it, or
- * overshoots it twofold, scores 0.5; one that moves the prediction the wrong way scores 0.
+ * Likely causes of a shortfall (workup-practice §3 failure modes; §6 view 5). Each candidate cause is a change to
+ * the workup or to the reaction with a size (fraction lost in an emulsion, pH error, co-solvent left behind, …).
+ * The model is re-run across a prior over that size; the cause's plausibility is its prior frequency × how likely
+ * the reported value is under it (averaged over the size prior) × what the chemist recorded (an emulsion seen or
+ * not), normalised over the candidates. Each cause is shown at its most plausible size, with the share of the gap
+ * it then closes, capped at 100 %. A cause that can only over-explain (a wrong layer when most product arrived) has
+ * next to no likelihood and is dropped. Pure: the engine is passed in.
  */
 import { simulateWorkup, type PredictOptions } from "@/lib/chem/predict";
 import { type Operation, type WorkupInput } from "@/lib/chem/schema";
 import { type LibraryOverrides } from "@/lib/chem/library";
+import { causeSpace, type CauseCandidate } from "./cause-space";
 
-export type CauseCode = "product_logp_lower" | "product_pka_shift" | "cosolvent_not_removed" | "one_fewer_extraction" | "emulsion_loss" | "wrong_layer";
+export type CauseCode =
+  | "reaction_shortfall" | "emulsion_loss" | "wrong_ph" | "product_logp_lower" | "cosolvent_not_removed" | "one_fewer_extraction" | "wrong_layer";
 
 export interface LikelyCause {
   code: CauseCode;
   title: string;
-  /** The parameter change that was tried, in words. */
+  /** The change at its most plausible size, in words. */
   change: string;
   step?: number;
-  /** Predicted product recovery with the change, fraction. */
+  /** Predicted recovery (relative to the product in the crude) with the change, fraction. */
   recovery: number;
-  /** (predicted − recovery with the change) / (predicted − reported). */
+  /** Share of the gap (predicted − reported) the change closes at its most plausible size, 0–1. */
   fractionOfGap: number;
+  /** Posterior plausibility among the candidates, 0–1. */
   score: number;
-  /** False for the hold-up estimate, which is a correction of the prediction rather than a re-run. */
+  /** False for causes computed in closed form (emulsion loss, reaction shortfall) rather than by an engine re-run. */
   simulated: boolean;
 }
 
-/** Share of a layer assumed lost at a separation with an emulsion or rag, or on a difficult cut (common practice). */
-export const EMULSION_LOSS_FRACTION = 0.1;
-/** Causes explaining less than this share of the gap are not listed. */
-const MIN_SCORE = 0.05;
+/**
+ * How often each cause is behind a shortfall a group reviews (common practice, rough figures; the group's own
+ * reviewed shortfalls update them): reactions falling short are the most common reason for little product,
+ * emulsions and hold-up next; procedural slips (pH, co-solvent, an extraction skipped, a layer discarded) after.
+ */
+export const CAUSE_PRIOR: Record<CauseCode, number> = {
+  reaction_shortfall: 0.3, emulsion_loss: 0.2, wrong_ph: 0.12, product_logp_lower: 0.1,
+  cosolvent_not_removed: 0.1, one_fewer_extraction: 0.1, wrong_layer: 0.08,
+};
+/** Weight of the common-practice frequencies against the group's own reviewed shortfalls (pseudo-counts). */
+export const CAUSE_PRIOR_WEIGHT = 20;
+/** An emulsion or rag is noted at the separation in most workups that lost product to one (common practice). */
+const EMULSION_NOTED = { ifEmulsion: 0.8, otherwise: 0.1 };
+/** Causes below this posterior plausibility, or closing less than this share of the gap, are not listed. */
+const MIN_PLAUSIBILITY = 0.02;
+const MIN_SHARE = 0.05;
 
-const SEPARATIONS = new Set(["wash", "extract", "back_extract", "separate"]);
-
-interface Candidate {
-  code: CauseCode;
-  title: string;
-  change: string;
-  step?: number;
-  input?: WorkupInput;
-  recovery?: number;
+export interface CauseQuestion {
+  input: WorkupInput;
+  productKey: string;
+  /** The engine's recovery of the product for the workup as recorded. */
+  engineRecovery: number;
+  /** Predictive distribution of log(reported amount / reference amount) and the reported value on that scale. */
+  logMean: number;
+  logSd: number;
+  observedLog: number;
+  /** log(product in the crude / reference amount) the model assumed; 0 when assayed. */
+  crudeLog: number;
+  crudeAssayed: boolean;
+  /** Cause frequencies of the group (defaults to CAUSE_PRIOR). */
+  frequencies?: Partial<Record<CauseCode, number>>;
 }
 
-export function gapScore(predicted: number, reported: number, withChange: number): { fractionOfGap: number; score: number } {
-  const gap = predicted - reported;
-  if (!(Math.abs(gap) > 1e-9)) return { fractionOfGap: 0, score: 0 };
-  const fractionOfGap = (predicted - withChange) / gap;
-  const score = fractionOfGap <= 0 ? 0 : fractionOfGap <= 1 ? fractionOfGap : 1 / fractionOfGap;
-  return { fractionOfGap, score };
-}
+export type Simulator = (input: WorkupInput) => number | null;
 
-function withOperations(input: WorkupInput, operations: Operation[]): WorkupInput {
-  return { ...input, operations };
-}
-
-function productCandidates(input: WorkupInput, productIndex: number): Candidate[] {
-  const product = input.components[productIndex];
-  if (!product) return [];
-  const out: Candidate[] = [];
-  const replaceProduct = (next: typeof product): WorkupInput => ({
-    ...input,
-    components: input.components.map((c, i) => (i === productIndex ? next : c)),
-  });
-  if (product.logP || Object.keys(product.logK).length > 0) {
-    const logK = Object.fromEntries(Object.entries(product.logK).map(([k, v]) => [k, { ...v, value: v.value - 1 }]));
-    const logP = product.logP ? { ...product.logP, value: product.logP.value - 1 } : undefined;
-    out.push({
-      code: "product_logp_lower", title: "Product more polar than assumed",
-      change: product.logP ? `log P of ${product.name} ${product.logP.value.toFixed(2)} → ${(product.logP.value - 1).toFixed(2)}` : `log K of ${product.name} 1 unit lower`,
-      input: replaceProduct({ ...product, logK, ...(logP ? { logP } : {}) }),
-    });
-  }
-  product.pKas.forEach((pKa, j) => {
-    for (const shift of [-1, 1]) {
-      const pKas = product.pKas.map((p, k) => (k === j ? { ...p, value: p.value + shift } : p));
-      out.push({
-        code: "product_pka_shift", title: "Product more ionized at the wash pH than assumed",
-        change: `${pKa.kind === "acid" ? "acid" : "conjugate-acid"} pKa of ${product.name} ${pKa.value.toFixed(2)} → ${(pKa.value + shift).toFixed(2)}`,
-        input: replaceProduct({ ...product, pKas }),
-      });
+export function engineRecoveryOf(library: LibraryOverrides, productKey: string): Simulator {
+  const engine: PredictOptions = { ...library, steps: false, flags: false };
+  return (input) => {
+    try {
+      const r = simulateWorkup(input, engine).recovery[productKey];
+      return r !== undefined && Number.isFinite(r) ? r : null;
+    } catch {
+      return null; // a variant the engine cannot run (e.g. no layer left to keep) explains nothing
     }
-  });
-  return out;
-}
-
-function operationCandidates(input: WorkupInput): Candidate[] {
-  const ops = input.operations;
-  const out: Candidate[] = [];
-  const removals = ops.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "remove_cosolvent");
-  if (removals.length > 0) {
-    out.push({
-      code: "cosolvent_not_removed", title: "Water-miscible co-solvent not removed before the extraction",
-      change: `step${removals.length > 1 ? "s" : ""} ${removals.map((r) => r.i + 1).join(", ")} (co-solvent removal) left out`,
-      step: (removals[0]?.i ?? 0) + 1,
-      input: withOperations(input, ops.filter((op) => op.type !== "remove_cosolvent")),
-    });
-  }
-  const extractions = ops.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "extract");
-  const multi = extractions.filter(({ op }) => op.type === "extract" && op.portions > 1).at(-1);
-  if (multi && multi.op.type === "extract") {
-    const fewer = { ...multi.op, portions: multi.op.portions - 1 };
-    out.push({
-      code: "one_fewer_extraction", title: "One extraction fewer than recorded",
-      change: `step ${multi.i + 1}: ${multi.op.portions} → ${multi.op.portions - 1} portions`, step: multi.i + 1,
-      input: withOperations(input, ops.map((op, i) => (i === multi.i ? fewer : op))),
-    });
-  } else if (extractions.length > 1) {
-    const last = extractions.at(-1)!;
-    out.push({
-      code: "one_fewer_extraction", title: "One extraction fewer than recorded",
-      change: `step ${last.i + 1} (extraction) left out`, step: last.i + 1,
-      input: withOperations(input, ops.filter((_, i) => i !== last.i)),
-    });
-  }
-  ops.forEach((op, i) => {
-    if (!SEPARATIONS.has(op.type) || !("keep" in op) || (op.keep !== "organic" && op.keep !== "aqueous")) return;
-    const flipped = { ...op, keep: op.keep === "organic" ? "aqueous" : "organic" } as Operation;
-    out.push({
-      code: "wrong_layer", title: "Wrong layer kept",
-      change: `step ${i + 1} kept the ${op.keep === "organic" ? "aqueous" : "organic"} layer instead of the ${op.keep}`, step: i + 1,
-      input: withOperations(input, ops.map((o, k) => (k === i ? flipped : o))),
-    });
-  });
-  return out;
-}
-
-function emulsionCandidate(input: WorkupInput, predicted: number): Candidate | null {
-  const separations = input.operations.filter((op) => SEPARATIONS.has(op.type));
-  if (separations.length === 0) return null;
-  const observed = separations.filter((op) => op.observed?.interface === "emulsion" || op.observed?.interface === "rag").length;
-  const count = Math.max(1, observed);
-  return {
-    code: "emulsion_loss", title: "Emulsion or hold-up loss at a separation",
-    change: `${Math.round(EMULSION_LOSS_FRACTION * 100)} % of the kept layer lost at ${count} separation${count > 1 ? "s" : ""}${observed > 0 ? " where an emulsion or rag was recorded" : ""}`,
-    recovery: predicted * (1 - EMULSION_LOSS_FRACTION) ** count,
   };
 }
 
-/** Ranks the candidates; empty unless the reported recovery is below the prediction. */
-export function rankCauses(
-  input: WorkupInput,
-  productKey: string,
-  predicted: number,
-  reported: number,
-  library: LibraryOverrides,
-): LikelyCause[] {
-  if (!(reported < predicted)) return [];
-  const productIndex = input.components.findIndex((c) => c.key === productKey);
-  if (productIndex < 0) return [];
-  const engine: PredictOptions = { ...library, steps: false, flags: false };
-  const candidates = [...productCandidates(input, productIndex), ...operationCandidates(input)];
-  const emulsion = emulsionCandidate(input, predicted);
-  if (emulsion) candidates.push(emulsion);
-  const best = new Map<string, LikelyCause>();
-  for (const candidate of candidates) {
-    const recovery = candidate.recovery ?? simulatedRecovery(candidate.input, productKey, engine);
-    if (recovery === null) continue;
-    const { fractionOfGap, score } = gapScore(predicted, reported, recovery);
-    if (score < MIN_SCORE) continue;
-    const cause: LikelyCause = {
-      code: candidate.code, title: candidate.title, change: candidate.change, recovery, fractionOfGap, score,
-      simulated: candidate.recovery === undefined, ...(candidate.step !== undefined ? { step: candidate.step } : {}),
-    };
-    // One entry per kind of cause: the variant (pKa direction, which layer) that explains the gap best.
-    const kept = best.get(cause.code);
-    if (!kept || cause.score > kept.score) best.set(cause.code, cause);
-  }
-  return [...best.values()].sort((a, b) => b.score - a.score);
+const logNormalDensity = (x: number, mean: number, sd: number) => -0.5 * ((x - mean) / sd) ** 2 - Math.log(sd);
+
+interface Scored {
+  candidate: CauseCandidate;
+  logEvidence: number;
+  best: { effect: number; words: string };
 }
 
-function simulatedRecovery(input: WorkupInput | undefined, productKey: string, engine: PredictOptions): number | null {
-  if (!input) return null;
-  try {
-    const recovery = simulateWorkup(input, engine).recovery[productKey];
-    return recovery !== undefined && Number.isFinite(recovery) ? recovery : null;
-  } catch {
-    return null; // a variant the engine cannot run (e.g. no layer left to keep) explains nothing
+/** log Σ exp. */
+function logSum(values: readonly number[]): number {
+  const max = Math.max(...values);
+  return max === -Infinity ? -Infinity : max + Math.log(values.reduce((s, v) => s + Math.exp(v - max), 0));
+}
+
+function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator): Scored | null {
+  const target = q.observedLog - q.logMean;
+  const logR0 = Math.log(Math.max(q.engineRecovery, 1e-12));
+  const points: { effect: number; logWeight: number; words: string }[] = [];
+  for (const size of candidate.sizes) {
+    const effect = size.effect ?? effectOf(size.input, simulate, logR0);
+    if (effect === null) continue;
+    points.push({ effect, logWeight: Math.log(size.weight), words: size.words });
   }
+  if (points.length === 0) return null;
+  const totalWeight = logSum(points.map((p) => p.logWeight));
+  const terms = points.map((p) => p.logWeight - totalWeight + logNormalDensity(target, p.effect, q.logSd));
+  let bestIndex = 0;
+  terms.forEach((t, i) => { if (t > (terms[bestIndex] as number)) bestIndex = i; });
+  let best = points[bestIndex]!;
+  // Between two sizes that bracket the reported value, the most plausible size is the one that matches it.
+  const refine = candidate.refine;
+  if (refine) {
+    const bracket = points.findIndex((p, i) => i > 0 && (points[i - 1]!.effect - target) * (p.effect - target) <= 0);
+    if (bracket > 0) {
+      const a = points[bracket - 1]!;
+      const b = points[bracket]!;
+      const t = a.effect === b.effect ? 0.5 : (target - a.effect) / (b.effect - a.effect);
+      const refined = refine(t, bracket - 1);
+      const effect = refined.effect ?? effectOf(refined.input, simulate, logR0);
+      if (effect !== null && Math.abs(effect - target) < Math.abs(best.effect - target)) best = { effect, logWeight: 0, words: refined.words };
+    }
+  }
+  return { candidate, logEvidence: logSum(terms), best: { effect: best.effect, words: best.words } };
+}
+
+function effectOf(input: WorkupInput | undefined, simulate: Simulator, logR0: number): number | null {
+  if (!input) return null;
+  const r = simulate(input);
+  return r === null ? null : Math.log(Math.max(r, 1e-6)) - logR0;
+}
+
+function emulsionNoted(operations: readonly Operation[]): boolean {
+  return operations.some((op) => op.observed?.interface === "emulsion" || op.observed?.interface === "rag");
+}
+
+/** Ranks the candidate causes of a reported value below the predictive median; empty otherwise. */
+export function rankCauses(q: CauseQuestion, simulate: Simulator): LikelyCause[] {
+  if (!(q.observedLog < q.logMean)) return [];
+  const candidates = causeSpace(q.input, q.productKey, q.crudeAssayed);
+  const noted = emulsionNoted(q.input.operations);
+  const frequencies = { ...CAUSE_PRIOR, ...q.frequencies };
+  const scored = candidates.map((c) => score(c, q, simulate)).filter((s): s is Scored => s !== null);
+  const logPosts = scored.map((s) => {
+    const seen = s.candidate.code === "emulsion_loss"
+      ? (noted ? EMULSION_NOTED.ifEmulsion : 1 - EMULSION_NOTED.ifEmulsion)
+      : (noted ? EMULSION_NOTED.otherwise : 1 - EMULSION_NOTED.otherwise);
+    return Math.log(frequencies[s.candidate.code] * s.candidate.share) + Math.log(seen) + s.logEvidence;
+  });
+  const total = logSum(logPosts);
+  const median = Math.exp(q.logMean - q.crudeLog);
+  const reported = Math.exp(q.observedLog - q.crudeLog);
+  const gap = median - reported;
+  const causes: LikelyCause[] = scored.map((s, i) => {
+    const recovery = median * Math.exp(s.best.effect);
+    return {
+      code: s.candidate.code, title: s.candidate.title, change: s.best.words,
+      ...(s.candidate.step !== undefined ? { step: s.candidate.step } : {}),
+      recovery, fractionOfGap: gapShare(median, reported, recovery), score: Math.exp((logPosts[i] as number) - total),
+      simulated: s.candidate.simulated,
+    };
+  });
+  // One entry per kind of cause (e.g. the most plausible layer), then the plausible ones that close part of the gap.
+  const best = new Map<CauseCode, LikelyCause>();
+  const summed = new Map<CauseCode, number>();
+  for (const c of causes) {
+    const kept = best.get(c.code);
+    if (!kept || c.score > kept.score) best.set(c.code, c);
+    summed.set(c.code, (summed.get(c.code) ?? 0) + c.score);
+  }
+  return [...best.values()]
+    .map((c) => ({ ...c, score: summed.get(c.code) ?? c.score }))
+    .filter((c) => c.score >= MIN_PLAUSIBILITY && c.fractionOfGap >= MIN_SHARE && gap > 0)
+    .sort((a, b) => b.score - a.score);
+}
+
+/** (predicted − with the change) / (predicted − reported), clamped to 0–1: the one figure every view shows. */
+export function gapShare(predicted: number, reported: number, withChange: number): number {
+  const gap = predicted - reported;
+  if (!(gap > 1e-9)) return 0;
+  return Math.min(1, Math.max(0, (predicted - withChange) / gap));
+}
+
+/** The words every view uses for a cause's share of the gap. */
+export function gapShareWords(fractionOfGap: number): string {
+  return `explains ${Math.round(Math.min(1, Math.max(0, fractionOfGap)) * 100)} % of the gap`;
 }

@@ -26,7 +26,7 @@ export const CSV_COLUMNS: readonly CsvColumn[] = [
   { name: "purity_method", imported: true, doc: "qnmr, hplc, gc or weight_only" },
   { name: "outcome_notes", imported: true, doc: "optional" },
   { name: "version", imported: false, doc: "export only" },
-  { name: "status", imported: false, doc: "export only: as_expected, below, above or unknown" },
+  { name: "status", imported: false, doc: "export only: as_expected, below, above, inconclusive or unknown" },
   { name: "flagged", imported: false, doc: "export only" },
   { name: "reported_recovery_pct", imported: false, doc: "export only" },
   { name: "predicted_recovery_pct", imported: false, doc: "export only" },

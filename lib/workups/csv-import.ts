@@ -11,6 +11,7 @@ import { audit } from "./audit";
 import { LONG_TRANSACTION, type Actor } from "./context";
 import { parseCsv } from "./csv";
 import { newRecordId } from "./ids";
+import { loadGroupJudgement } from "./group-model";
 import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
 import { computePrediction, IMPORT_DRAWS, seedFromId, type ComputedPrediction } from "./prediction";
@@ -66,6 +67,7 @@ export async function importWorkupsCsv(db: Db, actor: Actor, text: string, optio
   if (table.rows.length > MAX_IMPORT_ROWS) throw new ValidationError({ csv: [`at most ${MAX_IMPORT_ROWS} rows per import; split the file`] });
   const total = table.rows.length;
   const library = await groupLibrary(db, actor.groupId);
+  const judgement = await loadGroupJudgement(db, actor.groupId);
   const members = await db.membership.findMany({ where: { groupId: actor.groupId }, select: { user: { select: { id: true, email: true } } } });
   const context: RowContext = {
     memberByEmail: new Map(members.map((m) => [m.user.email.toLowerCase(), m.user.id])),
@@ -85,7 +87,7 @@ export async function importWorkupsCsv(db: Db, actor: Actor, text: string, optio
         const prediction = computePrediction(spec, { library, seed: seedFromId(id), draws: options.draws ?? IMPORT_DRAWS, groupValues });
         const analysis = outcome
           ? analyzeOutcome({
-              outcome, spec: prediction.parsed, library,
+              outcome, spec: prediction.parsed, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies,
               header: { assayedProductMmol: input.header.assayedProductMmol ?? null, expectedProductMmol: input.header.expectedProductMmol ?? null },
               prediction: { ...prediction, workupVersion: 1, flags: prediction.result.prediction.flags },
             })

@@ -1,17 +1,22 @@
 /**
- * Reported recovery and its comparison with the prediction (workup-practice §2.11 step 5, §5.1 "Derived").
- * All recoveries are fractions 0–1 here; deviations in percentage points only where the name says Pct.
+ * Reported recovery on one product basis, "product in the crude before the workup" (workup-practice §2.11 step 5,
+ * §5.1 "Derived"): the in-process assay when the chemist gave one; otherwise the expected amount (or the spec's
+ * product amount) times the group's reaction-yield figure (lib/chem/predictive.ts YIELD_PRIOR, updated from the
+ * group's assayed workups). The predicted recovery is the engine's fraction of whatever product entered the
+ * workup, so both sit on that basis. All recoveries are fractions 0–1; deviations in points only where named Pct.
  */
 
 export type RecoveryBasis = "assayed" | "expected" | "spec";
 
 export interface ReportedRecovery {
-  /** Product isolated over the reference amount, fraction (may exceed 1 when the material is impure or wet). */
+  /** Product isolated over the product in the crude, fraction (may exceed 1 when impure, wet or the estimate was low). */
   recovery: number;
   productMmol: number;
+  /** The amount the crude estimate starts from: the assay, the expected amount, or the spec's product amount. */
   referenceMmol: number;
-  /** What the reference amount is: the in-process assay, the theoretical amount, or the spec's product amount. */
   basis: RecoveryBasis;
+  /** Product in the crude before the workup, mmol: the assay, or the reference × the group's reaction-yield figure. */
+  crudeMmol: number;
   /** Weight only: the isolated mass was taken as pure product, so the recovery is an upper bound. */
   purityAssumed: boolean;
 }
@@ -23,13 +28,11 @@ export interface RecoveryInputs {
   assayedProductMmol: number | null;
   expectedProductMmol: number | null;
   specProductMmol: number | null;
+  /** Product in the crude per unit of an unassayed reference amount (the yield figure); 1 when omitted. */
+  yieldFactor?: number;
 }
 
-/**
- * recovery = mass × purity / (molar mass × reference amount). The reference is the amount assayed before the workup
- * when there is one (work-up recovery, separating reaction from work-up performance, §5.1 IPC); otherwise the
- * expected product amount, otherwise the product amount written in the spec. Null when there is no reference.
- */
+/** recovery = mass × purity / (molar mass × product in the crude). Null when there is no reference amount. */
 export function reportedRecovery(inputs: RecoveryInputs): ReportedRecovery | null {
   const purityAssumed = inputs.purityPct === null || inputs.purityPct === undefined;
   const purity = purityAssumed ? 1 : (inputs.purityPct as number) / 100;
@@ -40,45 +43,30 @@ export function reportedRecovery(inputs: RecoveryInputs): ReportedRecovery | nul
     ["spec", inputs.specProductMmol],
   ];
   for (const [basis, mmol] of reference) {
-    if (mmol !== null && mmol > 0) return { recovery: productMmol / mmol, productMmol, referenceMmol: mmol, basis, purityAssumed };
+    if (mmol === null || !(mmol > 0)) continue;
+    const crudeMmol = basis === "assayed" ? mmol : mmol * (inputs.yieldFactor ?? 1);
+    return { recovery: productMmol / crudeMmol, productMmol, referenceMmol: mmol, basis, crudeMmol, purityAssumed };
   }
   return null;
 }
 
-export type DeviationStatus = "as_expected" | "below" | "above" | "unknown";
+export type DeviationStatus = "as_expected" | "below" | "above" | "inconclusive" | "unknown";
 
 export interface Deviation {
   status: DeviationStatus;
-  /** reported − predicted, percentage points; null without a prediction. */
+  /** reported − predicted (median of the predictive distribution), percentage points; null without a prediction. */
   deviationPct: number | null;
-  /** The interval the status was judged against, fractions. */
+  /** The 95 % predictive interval the status was judged against, fractions. */
   low: number | null;
   high: number | null;
-  /** True when the Monte Carlo interval was missing and the fallback band was used. */
+  /** True when the engine's Monte Carlo interval was missing and a wide fallback spread was used. */
   fallbackBand: boolean;
 }
 
 /**
- * ±10 percentage points around the point prediction when no interval could be computed: the band a group review
- * draws around the identity line of a parity plot (workup-practice §6 view 1; common practice).
+ * Flagged for review: a real shortfall with posterior probability ≥ 0.95 (status "below", lib/chem/predictive.ts
+ * FLAG_PROBABILITY), or a danger-level procedure risk from the engine, whatever the outcome.
  */
-export const FALLBACK_BAND = 0.1;
-
-export function compareWithPrediction(
-  reported: number | null,
-  predicted: number | null,
-  low: number | null,
-  high: number | null,
-): Deviation {
-  if (reported === null || predicted === null) return { status: "unknown", deviationPct: null, low, high, fallbackBand: false };
-  const fallbackBand = low === null || high === null;
-  const lo = fallbackBand ? Math.max(0, predicted - FALLBACK_BAND) : Math.min(low, predicted);
-  const hi = fallbackBand ? predicted + FALLBACK_BAND : Math.max(high, predicted);
-  const status: DeviationStatus = reported < lo ? "below" : reported > hi ? "above" : "as_expected";
-  return { status, deviationPct: (reported - predicted) * 100, low: lo, high: hi, fallbackBand };
-}
-
-/** A workup is flagged for review when the product came out below the interval or the engine raised a danger flag. */
 export function isFlagged(status: DeviationStatus, flags: readonly { severity: string }[]): boolean {
   return status === "below" || flags.some((f) => f.severity === "danger");
 }

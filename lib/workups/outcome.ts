@@ -12,6 +12,7 @@ import { applyGroupValues } from "@/lib/partition/overlay";
 import { analyzeOutcome, type OutcomeAnalysis, type PredictionFacts } from "./analysis";
 import { audit } from "./audit";
 import { type Actor } from "./context";
+import { loadGroupJudgement } from "./group-model";
 import { groupLibrary } from "./library";
 import { asJson } from "./persist";
 import { parseSpec, type StoredPredictionResult } from "./prediction";
@@ -50,7 +51,7 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
     const workup = await db.workup.findFirst({
       where: { id: workupId, groupId: actor.groupId },
       select: {
-        version: true, spec: true, assayedProductMmol: true, expectedProductMmol: true,
+        version: true, spec: true, assayedProductMmol: true, expectedProductMmol: true, chemistId: true,
         components: { where: { groupId: actor.groupId }, select: { key: true, compoundId: true } },
         predictions: {
           orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1,
@@ -67,7 +68,8 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
     const prediction: PredictionFacts | null = stored
       ? { ...stored, productKey: (stored.result as Partial<StoredPredictionResult> | null)?.prediction?.productKey ?? null, flags: flagsOf(stored.result) }
       : null;
-    const analysis = analyzeOutcome({ outcome, header: workup, spec, prediction, library });
+    const judgement = await loadGroupJudgement(db, actor.groupId, workupId);
+    const analysis = analyzeOutcome({ outcome, header: workup, spec, prediction, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies });
     const recoveryPct = analysis.reported ? analysis.reported.recovery * 100 : null;
     const written = await db.$transaction(async (tx) => {
       const { count } = await tx.workup.updateMany({

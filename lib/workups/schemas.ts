@@ -8,7 +8,7 @@ import { workupInputSchema } from "@/lib/chem/schema";
 
 export const PURITY_METHODS = ["qnmr", "hplc", "gc", "weight_only"] as const;
 export type PurityMethodName = (typeof PURITY_METHODS)[number];
-export const OUTCOME_STATUSES = ["as_expected", "below", "above", "unknown"] as const;
+export const OUTCOME_STATUSES = ["as_expected", "below", "above", "inconclusive", "unknown"] as const;
 export type OutcomeStatusName = (typeof OUTCOME_STATUSES)[number];
 
 /** Largest amount accepted in a header field: 10 kmol, far above any bench or kilo-lab workup. */

@@ -10,6 +10,7 @@ import { type Caution, type Flag } from "@/lib/chem/types";
 import { groupValuesForLinks } from "@/lib/partition/group-values";
 import { audit } from "./audit";
 import { analyzeOutcome } from "./analysis";
+import { loadGroupJudgement } from "./group-model";
 import { staleVersionError } from "./conflict";
 import { type Actor, type Tx } from "./context";
 import { isFlagged, type DeviationStatus } from "./deviation";
@@ -132,13 +133,17 @@ async function refreshOutcome(
   tx: Tx, actor: Actor, id: string, version: number, parsed: CreateWorkup, prediction: ComputedPrediction,
   library: Awaited<ReturnType<typeof groupLibrary>>,
 ): Promise<{ flagged: boolean; status: DeviationStatus; deviationPct: number | null }> {
-  const outcome = await tx.outcome.findFirst({ where: { workupId: id, groupId: actor.groupId }, select: { id: true, isolatedMassMg: true, purityPct: true } });
+  const outcome = await tx.outcome.findFirst({ where: { workupId: id, groupId: actor.groupId }, select: { id: true, isolatedMassMg: true, purityPct: true, purityMethod: true } });
   const flags = prediction.result.prediction.flags;
   let state: { flagged: boolean; status: DeviationStatus; deviationPct: number | null } = { flagged: isFlagged("unknown", flags), status: "unknown", deviationPct: null };
   if (outcome) {
+    const judgement = await loadGroupJudgement(tx, actor.groupId, id);
     const analysis = analyzeOutcome({
-      outcome, spec: prediction.parsed, library,
-      header: { assayedProductMmol: parsed.header.assayedProductMmol ?? null, expectedProductMmol: parsed.header.expectedProductMmol ?? null },
+      outcome, spec: prediction.parsed, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies,
+      header: {
+        assayedProductMmol: parsed.header.assayedProductMmol ?? null, expectedProductMmol: parsed.header.expectedProductMmol ?? null,
+        chemistId: parsed.header.chemistId ?? null,
+      },
       prediction: { ...prediction, workupVersion: version, flags },
     });
     await tx.outcome.update({

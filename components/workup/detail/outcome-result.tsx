@@ -6,11 +6,12 @@ import type { OutcomeAnalysis } from "@/lib/workups/analysis";
 import { RecoveryInterval } from "@/components/workup/prediction/recovery-interval";
 import { pct } from "@/components/workup/prediction/format";
 import { StatusBadge } from "./status-badge";
+import { gapShareWords } from "@/lib/workups/causes";
 
 const BASIS: Record<string, string> = {
-  assayed: "against the product assayed before the workup (workup recovery)",
-  expected: "against the expected product amount (includes any reaction shortfall)",
-  spec: "against the product amount written in the workup",
+  assayed: "of the product assayed in the crude before the workup",
+  expected: "of the product estimated in the crude (expected amount × the group's reaction-yield figure)",
+  spec: "of the product estimated in the crude (the workup's product amount × the group's reaction-yield figure)",
 };
 
 export function OutcomeResult({ analysis }: { analysis: OutcomeAnalysis }) {
@@ -39,19 +40,26 @@ export function OutcomeResult({ analysis }: { analysis: OutcomeAnalysis }) {
       {predicted && reported ? <RecoveryInterval predicted={predicted.recovery} low={deviation.low} high={deviation.high} reported={reported.recovery} /> : null}
       {causes.length > 0 ? (
         <div>
-          <p className="text-xs font-medium uppercase tracking-wide text-stone-500">Likely causes, by how much of the gap each explains</p>
+          <p className="text-xs font-medium uppercase tracking-wide text-stone-500">Likely causes, most plausible first</p>
           <ol className="mt-1 space-y-1.5" data-testid="likely-causes">
             {causes.map((c, i) => (
               <li key={`${c.code}-${c.step ?? 0}`} className="rounded border border-stone-200 p-2">
                 <p className="font-medium">{i + 1}. {c.title}{c.step !== undefined ? <span className="ml-1 font-normal text-stone-500">(step {c.step})</span> : null}</p>
-                <p className="text-xs text-stone-600">{c.change}: the model then predicts {pct(c.recovery)}, {c.fractionOfGap > 0 ? `closing ${formatNumber(Math.min(c.fractionOfGap, 9.99) * 100, 0)} % of the gap` : "no closer"}.</p>
+                <p className="text-xs text-stone-600">Most plausible size: {c.change}. The model then predicts {pct(c.recovery)}; this {gapShareWords(c.fractionOfGap)}. Plausibility {formatNumber(c.score * 100, 0)} %.</p>
                 <div className="mt-1 h-1.5 w-full rounded bg-stone-100" aria-hidden><div className="h-1.5 rounded bg-amber-500" style={{ width: `${Math.round(c.score * 100)}%` }} /></div>
               </li>
             ))}
           </ol>
-          <p className="mt-1 text-xs text-stone-500">Each cause is a prompt to look, not a verdict: the model was re-run with one parameter changed at a time.</p>
+          <p className="mt-1 text-xs text-stone-500">Each cause is a prompt to look, not a verdict: the model was re-run with one cause at a time, at the size that best fits the outcome; plausibility weighs how often the cause occurs against how well it fits.</p>
         </div>
       ) : deviation.status === "below" ? <p className="text-xs text-stone-600">No single change the model tries explains the gap; look at handling losses and the measurement itself.</p> : null}
+      {analysis.predictive ? (
+        <p className="text-xs text-stone-500" data-testid="judgement-basis">
+          Judged against the predictive distribution: the engine&apos;s spread, ordinary handling losses, the {analysis.predictive.case.assay.replace("_", " ")} assay&apos;s error{analysis.predictive.case.crudeAssayed ? "" : " and the reaction's own scatter (no assay of the crude)"}, learned from {analysis.predictive.historyN} earlier outcome{analysis.predictive.historyN === 1 ? "" : "s"} of the group.
+          Probability of a real shortfall: {formatNumber(analysis.predictive.shortfallProbability * 100, 0)} % (flagged from {formatNumber(analysis.predictive.threshold * 100, 0)} %).
+          {deviation.status === "inconclusive" ? " Below the interval, but not clearly enough to flag." : ""}
+        </p>
+      ) : null}
     </div>
   );
 }

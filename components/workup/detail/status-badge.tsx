@@ -1,11 +1,12 @@
 import { Badge } from "@/components/ui/badge";
 
-type Status = "as_expected" | "below" | "above" | "unknown";
+type Status = "as_expected" | "below" | "above" | "inconclusive" | "unknown";
 
 const LABELS: Record<Status, { label: string; tone: "good" | "low" | "high" | "neutral" }> = {
   as_expected: { label: "As predicted", tone: "good" },
   below: { label: "Below prediction", tone: "low" },
   above: { label: "Above prediction", tone: "high" },
+  inconclusive: { label: "Low, not conclusive", tone: "neutral" },
   unknown: { label: "No outcome yet", tone: "neutral" },
 };
 

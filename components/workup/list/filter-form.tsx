@@ -18,7 +18,7 @@ export interface FilterValues {
 
 export const FILTER_KEYS = ["q", "compoundId", "solvent", "chemistId", "from", "to", "flagged", "status"] as const;
 
-const STATUS_WORDS: Record<string, string> = { as_expected: "As predicted", below: "Below prediction", above: "Above prediction", unknown: "No outcome yet" };
+const STATUS_WORDS: Record<string, string> = { as_expected: "As predicted", below: "Below prediction", above: "Above prediction", inconclusive: "Low, not conclusive", unknown: "No outcome yet" };
 
 type Choice = { value: string; label: string };
 

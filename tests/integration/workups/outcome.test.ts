@@ -41,15 +41,20 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
     return createWorkup(t.db, lab.member, { header: header({ title: "Acetanilide extraction", ...overrides }), spec });
   }
 
-  it("computes recovery from mass × purity / (M × expected amount) and calls it as expected inside the interval", async () => {
+  it("computes recovery from mass × purity / (M × product in the crude) and calls it as expected inside the interval", async () => {
     const w = await saved();
     const predicted = w.prediction.productRecovery!;
     const mass = massFor(predicted) / 0.98;
     const report = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: mass, purityPct: 98, purityMethod: "qnmr" });
-    expect(report.recoveryPct).toBeCloseTo((mass * 0.98) / (ACETANILIDE_G_PER_MOL * 5) * 100, 9);
+    // No assay and no history yet: product in the crude = 5 mmol expected × 0.95, the reaction-yield prior
+    // (common practice: a reaction run as planned gives 90–100 % of what the chemist expected).
+    expect(report.recoveryPct).toBeCloseTo((mass * 0.98) / (ACETANILIDE_G_PER_MOL * 5 * 0.95) * 100, 9);
     expect(report.analysis.reported).toMatchObject({ basis: "expected", referenceMmol: 5, purityAssumed: false });
+    expect(report.analysis.reported!.crudeMmol).toBeCloseTo(4.75, 9);
     expect(report.analysis.deviation.status).toBe("as_expected");
-    expect(report.analysis.deviation.deviationPct).toBeCloseTo(0, 6);
+    // The predictive median sits below the engine's point by the ordinary handling loss, on the crude basis.
+    expect(report.analysis.predicted!.recovery).toBeLessThan(predicted);
+    expect(report.analysis.deviation.deviationPct).toBeCloseTo((report.analysis.reported!.recovery - report.analysis.predicted!.recovery) * 100, 9);
     expect(report.analysis.causes).toEqual([]);
     const row = await t.db.workup.findUniqueOrThrow({ where: { id: w.id }, include: { outcome: true } });
     expect(row).toMatchObject({ status: "as_expected", flagged: w.flagged });
@@ -61,26 +66,47 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
   it("uses the assayed amount before the workup as the reference when there is one", async () => {
     const w = await saved(measuredSpec(), { assayedProductMmol: 4 });
     const report = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: 270.34, purityPct: 100, purityMethod: "hplc" });
-    expect(report.analysis.reported).toMatchObject({ basis: "assayed", referenceMmol: 4 });
+    expect(report.analysis.reported).toMatchObject({ basis: "assayed", referenceMmol: 4, crudeMmol: 4 });
     expect(report.recoveryPct).toBeCloseTo((270.34 / ACETANILIDE_G_PER_MOL / 4) * 100, 9);
+  });
+
+  it("judges predicted and reported recovery on one basis: a 4.6 mmol crude against 5.0 mmol expected is no shortfall", async () => {
+    // The chemist wrote 4.6 mmol of product into the workup and 5.0 mmol expected, with no assay. The isolated amount
+    // is what the engine predicts for 4.6 mmol less a few percent handling loss (common practice: 3–8 % for an
+    // extract-dry-concentrate sequence). Judged against 5.0 mmol with the engine's narrow interval it once read as a
+    // shortfall; the reaction's own scatter belongs in the judgement.
+    const spec = measuredSpec();
+    spec.components[0]!.amount = { value: 4.6, unit: "mmol" };
+    const fresh = await makeLab(t.db, "Fresh Lab");
+    const w = await createWorkup(t.db, fresh.member, { header: header({ title: "Acetanilide, 4.6 mmol crude" }), spec });
+    const isolatedMmol = 4.6 * w.prediction.productRecovery! * 0.96;
+    expect(isolatedMmol / 5).toBeLessThan(w.prediction.recoveryLow!); // the old comparison: below the engine's interval
+    const report = await reportOutcome(t.db, fresh.member, w.id, { isolatedMassMg: isolatedMmol * ACETANILIDE_G_PER_MOL, purityPct: 100, purityMethod: "qnmr" });
+    expect(report.analysis.deviation.status).toBe("as_expected");
+    expect(report.analysis.flagged).toBe(false);
+    expect(report.analysis.predicted!.low!).toBeLessThan(report.analysis.reported!.recovery);
   });
 
   it("flags a shortfall below the interval, with deviation = reported − predicted, and ranks the causes", async () => {
     const w = await saved();
-    const predicted = w.prediction.productRecovery!;
     const reported = 0.5;
     expect(reported).toBeLessThan(w.prediction.recoveryLow!);
     const report = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: massFor(reported), purityPct: null, purityMethod: "weight_only" });
     expect(report.analysis.reported?.purityAssumed).toBe(true);
     expect(report.analysis.deviation.status).toBe("below");
-    expect(report.analysis.deviation.deviationPct).toBeCloseTo((reported - predicted) * 100, 6);
+    expect(report.analysis.predictive!.shortfallProbability).toBeGreaterThanOrEqual(0.95);
+    const deviation = (report.analysis.reported!.recovery - report.analysis.predicted!.recovery) * 100;
+    expect(report.analysis.deviation.deviationPct).toBeCloseTo(deviation, 6);
     expect(report.analysis.flagged).toBe(true);
     const scores = report.analysis.causes.map((c) => c.score);
     expect(scores.length).toBeGreaterThan(1);
     expect([...scores].sort((a, b) => b - a)).toEqual(scores);
+    // No assay: "the reaction gave less" is one of the candidates.
+    expect(report.analysis.causes.map((c) => c.code)).toContain("reaction_shortfall");
+    for (const c of report.analysis.causes) expect(c.fractionOfGap).toBeLessThanOrEqual(1);
     const row = await t.db.workup.findUniqueOrThrow({ where: { id: w.id } });
     expect(row).toMatchObject({ status: "below", flagged: true });
-    expect(row.deviationPct).toBeCloseTo((reported - predicted) * 100, 6);
+    expect(row.deviationPct).toBeCloseTo(deviation, 6);
   });
 
   it("ranks first the cause whose parameter change reproduces the reported recovery", async () => {
@@ -94,14 +120,18 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
     if (extract.type !== "extract") throw new Error("the first step is the extraction");
     extract.portions -= 1;
     for (const [variant, code] of [[lowerLogK, "product_logp_lower"], [fewer, "one_fewer_extraction"]] as const) {
-      const reported = simulateWorkup(variant).recovery["acetanilide"]!;
-      const w = await saved();
+      // The crude was assayed (5 mmol), so the reaction is out of the question; the isolated amount is what the
+      // variant predicts less the ordinary handling loss the model expects for this workup.
+      const w = await saved(measuredSpec(), { assayedProductMmol: 5 });
+      const probe = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: massFor(0.9), purityPct: 100, purityMethod: "qnmr" });
+      const handling = probe.analysis.predicted!.recovery / w.prediction.productRecovery!;
+      const reported = simulateWorkup(variant).recovery["acetanilide"]! * handling;
       const report = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: massFor(reported), purityPct: 100, purityMethod: "qnmr" });
       expect(report.analysis.deviation.status, code).toBe("below");
       const [top] = report.analysis.causes;
       expect(top?.code).toBe(code);
-      expect(top?.fractionOfGap).toBeCloseTo(1, 6);
-      expect(top?.score).toBeCloseTo(1, 6);
+      expect(top?.fractionOfGap).toBeCloseTo(1, 2);
+      expect(top?.score).toBeGreaterThan(0.5);
     }
   });
 

@@ -1,6 +1,7 @@
 "use client";
 // The group-meeting views (workup-practice §6): parity plot, spread of deviations, deviations by solvent system, by
 // operation type and by chemist, and the ranked list of flagged workups. Each view exports its data and image.
+import { gapShareWords } from "@/lib/workups/causes";
 import Link from "next/link";
 import { ChartFrame } from "@/components/charts/chart-frame";
 import { DeviationHistogram, GroupMeanChart, type Bin } from "@/components/charts/bar-charts";
@@ -19,8 +20,7 @@ export interface ReviewViewsProps {
 }
 
 const fmt = (v: number | null, digits = 1) => (v === null ? "" : v.toFixed(digits));
-/** A change that would lose more than the whole shortfall overshoots: say so rather than print "247 %". */
-const gapShare = (share: number) => (share > 1.05 ? "more than the whole gap" : `${(100 * share).toFixed(0)} % of the gap`);
+const gapShare = (share: number) => gapShareWords(share);
 
 function GroupTable({ stats, factor }: { stats: GroupStat[]; factor: string }) {
   return (

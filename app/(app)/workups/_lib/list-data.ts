@@ -2,6 +2,7 @@
 import { getDb } from "@/lib/db/client";
 import { type MemberContext } from "@/lib/authz";
 import { type OutcomeAnalysis } from "@/lib/workups/analysis";
+import { gapShareWords } from "@/lib/workups/causes";
 import { type StoredPredictionResult } from "@/lib/workups/prediction";
 
 /** Compound filter choices: only compounds some workup uses, by name (a group's registry can be far larger). */
@@ -46,7 +47,7 @@ export async function flaggedWorkups(member: MemberContext): Promise<{ items: Fl
   ]);
   const items = rows.map((r) => {
     const analysis = r.outcome?.analysis as unknown as Partial<OutcomeAnalysis> | null; // written by lib/workups/analysis.ts
-    const causes = (analysis?.causes ?? []).slice(0, 3).map((c) => ({ title: c.title, detail: `explains ~${Math.round(Math.min(1, c.score) * 100)} % of the gap` }));
+    const causes = (analysis?.causes ?? []).slice(0, 3).map((c) => ({ title: c.title, detail: gapShareWords(c.fractionOfGap) }));
     const flags = ((r.predictions[0]?.result as unknown as Partial<StoredPredictionResult> | null)?.prediction?.flags ?? [])
       .filter((f) => f.severity === "danger").slice(0, 2).map((f) => ({ title: f.title, detail: f.step !== undefined ? `step ${f.step}` : "" }));
     return { id: r.id, title: r.title, performedOn: r.performedOn, deviationPct: r.deviationPct, reasons: causes.length > 0 ? causes : flags };

@@ -1,0 +1,2 @@
+-- AlterEnum
+ALTER TYPE "OutcomeStatus" ADD VALUE 'inconclusive';
