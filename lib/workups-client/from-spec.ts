@@ -4,6 +4,7 @@
  */
 import { PROVENANCES, ROLES, type ComponentRole, type OperationType, type Provenance } from "@/lib/chem/schema";
 import type { JsonObject, JsonValue, SnapshotHeader } from "@/lib/workups/record";
+import { stepIdOf, withStepIds } from "@/lib/workups/step-ids";
 import { newClientId } from "./ids";
 import { COMMON_FIELDS, OPERATION_TYPES, defaultUnit, operationMeta } from "./operation-forms";
 import { unitKey, type ComponentState, type EditorState, type HeaderState, type LogValueState, type OperationState, type Quantity } from "./editor-types";
@@ -56,13 +57,14 @@ function componentOf(v: JsonValue, links: Map<string, string | null>): Component
 
 const KNOWN_TYPES = new Set<string>(OPERATION_TYPES.map((m) => m.type));
 
-export function operationOf(v: JsonValue): OperationState | null {
+/** `index`: the step's position, which names a step saved without an id (lib/workups/step-ids.ts). */
+export function operationOf(v: JsonValue, index = 0): OperationState | null {
   const o = asRecord(v);
   if (!KNOWN_TYPES.has(text(o.type))) return null;
   const type = text(o.type) as OperationType;
   const values: Record<string, string> = {};
   const lists: Record<string, string[]> = {};
-  const handled = new Set(["type"]);
+  const handled = new Set(["type", "id"]);
   for (const field of [...operationMeta(type).fields, ...COMMON_FIELDS]) {
     handled.add(field.name);
     const raw = o[field.name];
@@ -88,7 +90,7 @@ export function operationOf(v: JsonValue): OperationState | null {
     } else values[field.name] = text(raw);
   }
   const extra = Object.fromEntries(Object.entries(o).filter(([k]) => !handled.has(k)));
-  return { id: newClientId("op"), type, values, lists, extra };
+  return { id: stepIdOf(o, index), type, values, lists, extra };
 }
 
 export function headerOf(h: SnapshotHeader): HeaderState {
@@ -110,7 +112,7 @@ export function editorStateOf(header: SnapshotHeader, spec: JsonObject, links: {
       solvents: asList(mixture.solvents).map((s) => ({ id: newClientId("m"), solvent: text(asRecord(s).solvent), volume: quantityOf(asRecord(s).volume, "mL") })),
       reagents: asList(mixture.reagents).map((s) => ({ id: newClientId("m"), reagent: text(asRecord(s).reagent), volume: quantityOf(asRecord(s).volume, "mL") })),
     },
-    operations: asList(spec.operations).map(operationOf).filter((op): op is OperationState => op !== null),
+    operations: withStepIds(spec.operations).map((op, i) => operationOf(op, i)).filter((op): op is OperationState => op !== null),
     settings: { name: text(name), temperature: quantityOf(temperature, "°C"), funnel: quantityOf(funnel, "mL"), extra },
   };
 }

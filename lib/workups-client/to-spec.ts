@@ -79,7 +79,8 @@ function composite(op: OperationState, field: OperationFieldMeta): JsonObject | 
 }
 
 export function operationInput(op: OperationState): JsonObject {
-  const out: JsonObject = { ...op.extra, type: op.type };
+  // The step's id is saved with it, so merges and the history follow the step wherever it moves.
+  const out: JsonObject = { ...op.extra, id: op.id, type: op.type };
   for (const field of [...operationMeta(op.type).fields, ...COMMON_FIELDS]) {
     delete out[field.name];
     switch (field.kind) {

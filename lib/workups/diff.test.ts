@@ -79,4 +79,21 @@ describe("version diff", () => {
     b.spec["funnel"] = { value: 500, unit: "mL" };
     expect(diffSnapshots(snapshot(), b).settings).toEqual([{ field: "funnel", from: { value: 250, unit: "mL" }, to: { value: 500, unit: "mL" } }]);
   });
+
+  it("follows steps by their saved ids: a first save that adds ids changes nothing, a moved and edited step is one change", () => {
+    const legacy = snapshot();
+    const withIds = snapshot();
+    opsOf(withIds).forEach((op, i) => { op["id"] = `step-${i + 1}`; });
+    expect(diffSnapshots(legacy, withIds).unchanged).toBe(true);
+    const moved = snapshot(structuredClone(withIds.spec));
+    const [first] = opsOf(moved).splice(0, 1);
+    first!["label"] = "moved to the end";
+    opsOf(moved).push(first!);
+    opsOf(moved).unshift({ id: "new1", type: "dilute", solvent: "etoac", volume: { value: 10, unit: "mL" } });
+    const d = diffSnapshots(withIds, moved).operations;
+    expect(d.added).toEqual([{ step: 1, type: "dilute", label: null }]);
+    expect(d.removed).toEqual([]);
+    expect(d.changed).toHaveLength(1);
+    expect(d.changed[0]).toMatchObject({ fromStep: 1, toStep: opsOf(moved).length, changes: [{ field: "label", from: opsOf(withIds)[0]!["label"], to: "moved to the end" }] });
+  });
 });

@@ -1,9 +1,11 @@
 /**
  * What changed between two versions of a workup, for the history view: header fields, components (by key, with
- * their compound links) and operations (an ordered list without ids, matched by a longest common subsequence so
- * that inserting a step shows one addition rather than every later step "changed"). Pure; browser-safe.
+ * their compound links) and operations. Steps saved with ids (step-ids.ts) are matched by id, wherever they moved;
+ * a version whose steps carry no ids is matched by a longest common subsequence, so that inserting a step shows
+ * one addition rather than every later step "changed". Pure; browser-safe.
  */
 import { type JsonValue, type WorkupSnapshot } from "./record";
+import { withStepIds } from "./step-ids";
 
 export interface FieldChange {
   field: string;
@@ -100,7 +102,30 @@ function matchOperations(a: string[], b: string[]): [number, number][] {
   return pairs;
 }
 
+const hasOwnId = (op: JsonValue) => typeof asRecord(op)["id"] === "string";
+
+/** Steps matched by their ids (the older version's id-less steps by position, as the editor named them on load). */
+function operationDiffById(a: JsonValue[], b: JsonValue[]): VersionDiff["operations"] {
+  const older = withStepIds(a);
+  const newer = withStepIds(b);
+  const describe = (op: JsonRecord, index: number) => ({ step: index + 1, type: text(op["type"], "?"), label: typeof op["label"] === "string" ? op["label"] : null });
+  const index = new Map(older.map((op, i) => [op["id"] as string, i]));
+  const matched = new Set<number>();
+  const added: VersionDiff["operations"]["added"] = [];
+  const changed: OperationChange[] = [];
+  newer.forEach((op, ni) => {
+    const oi = index.get(op["id"] as string);
+    if (oi === undefined) return added.push(describe(op, ni));
+    matched.add(oi);
+    const changes = fieldChanges(older[oi]!, op, ["id"]);
+    if (changes.length > 0) changed.push({ fromStep: oi + 1, toStep: ni + 1, type: describe(op, ni).type, changes });
+  });
+  const removed = older.flatMap((op, i) => (matched.has(i) ? [] : [describe(op, i)]));
+  return { added, removed, changed };
+}
+
 function operationDiff(a: JsonValue[], b: JsonValue[]): VersionDiff["operations"] {
+  if (b.length > 0 && b.every(hasOwnId)) return operationDiffById(a, b);
   const pairs = matchOperations(a.map(canonical), b.map(canonical));
   const describe = (op: JsonValue | undefined, index: number) => {
     const r = asRecord(op);

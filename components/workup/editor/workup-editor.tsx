@@ -2,18 +2,21 @@
 // The workup editor (new and edit): header, components, starting mixture and steps on the left, the live prediction
 // on the right. Keyboard: Ctrl+Z / Ctrl+Shift+Z (or Ctrl+Y) undo and redo the last edit, Ctrl+S or Ctrl+Enter saves,
 // Alt+↑/↓ moves the focused step, Alt+Shift+D duplicates it, Enter in "Add a step" adds one. Leaving with unsaved
-// edits asks first.
+// edits asks first, and unsaved edits to a saved workup are kept in the browser as a draft (draft.ts): reopening the
+// page offers them back, merged three-way with whatever was saved meanwhile.
 import { useRouter } from "next/navigation";
 import Link from "next/link";
 import { useEffect, useMemo, useRef, useState, useTransition, type ReactNode } from "react";
+import { getWorkupAction } from "@/lib/workups/actions";
 import { type LibraryOverrides, resolveLibrary } from "@/lib/chem/library";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { createWorkupAction, updateWorkupAction } from "@/lib/workups/actions";
 import type { WorkupDetail } from "@/lib/workups/queries";
-import type { WorkupSnapshot } from "@/lib/workups/record";
+import type { JsonValue, WorkupSnapshot } from "@/lib/workups/record";
 import { editorStateOf } from "@/lib/workups-client/from-spec";
-import { mergeSnapshots } from "@/lib/workups-client/merge";
+import { browserStorage, clearDraft, loadDraft, saveDraft, type Draft } from "@/lib/workups-client/draft";
+import { mergeSnapshots, same, type Choice, type MergeResult } from "@/lib/workups-client/merge";
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { saveInput } from "@/lib/workups-client/to-spec";
 import { useGroupValues } from "@/lib/workups-client/use-group-values";
@@ -25,7 +28,7 @@ import { CompoundPicker } from "./compound-picker";
 import { MixtureSection } from "./mixture-section";
 import { OperationsSection } from "./operations-section";
 import { PredictionPanel } from "./prediction-panel";
-import { ConflictPanel } from "./conflict-panel";
+import { ConflictPanel, type TheirVersion } from "./conflict-panel";
 import { ShortcutsHelp } from "./shortcuts-help";
 import { snapshotOfDetail, snapshotOfState } from "./snapshot";
 import { useEditorState } from "./use-editor-state";
@@ -41,6 +44,19 @@ export interface EditorProps {
   members: MemberChoice[];
   library: LibraryOverrides;
 }
+
+/** A merge in progress: the three snapshots, the user's choices, and the merged result last put into the form. */
+interface MergeSession {
+  base: WorkupSnapshot;
+  mine: WorkupSnapshot;
+  theirs: WorkupSnapshot;
+  their: TheirVersion;
+  choices: Record<string, Choice>;
+  result: MergeResult;
+}
+
+/** A snapshot as the editor would send it back, so fields the form only normalizes do not count as changes. */
+const normalized = (s: WorkupSnapshot): WorkupSnapshot => snapshotOfState(editorStateOf(s.header, s.spec, s.links));
 
 function Section({ title, children, id }: { title: string; children: ReactNode; id: string }) {
   return (
@@ -63,6 +79,12 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   const [baseline, setBaseline] = useState(() => JSON.stringify(input));
   const [failure, setFailure] = useState<string | null>(null);
   const [conflict, setConflict] = useState<string | null>(null);
+  const [session, setSession] = useState<MergeSession | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const [loading, startLoading] = useTransition();
+  const [storage] = useState(browserStorage);
+  const [draftChecked, setDraftChecked] = useState(false);
+  const [offeredDraft, setOfferedDraft] = useState<Draft | null>(null);
   const [announcement, setAnnouncement] = useState("");
   const [saving, startSaving] = useTransition();
   const summaryRef = useRef<HTMLDivElement>(null);
@@ -89,11 +111,16 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
       if (result.ok) {
         setBaseline(JSON.stringify(input));
         setConflict(null);
+        setSession(null);
+        if (storage && workupId) clearDraft(storage, workupId);
         router.push(`/workups/${result.data.id}`);
         router.refresh();
         return;
       }
-      if (result.status === 409) setConflict(result.message);
+      if (result.status === 409) {
+        setConflict(result.message);
+        setSession(null);
+      }
       else {
         if (result.fieldErrors) editor.setServerErrors(result.fieldErrors);
         setFailure(result.message);
@@ -115,21 +142,71 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
     return () => window.removeEventListener("keydown", onKey);
   });
 
-  const rebase = (d: WorkupDetail) => {
-    const theirs = snapshotOfDetail(d);
-    const result = opened ? mergeSnapshots(opened, theirs, snapshotOfState(state)) : { merged: theirs, taken: [], both: [] };
-    editor.apply(() => editorStateOf(result.merged.header, result.merged.spec, result.merged.links), null);
-    setVersion(d.version);
-    setOpened(theirs);
-    return { taken: result.taken, both: result.both };
+  const formFrom = (snap: WorkupSnapshot) => editorStateOf(snap.header, snap.spec, snap.links);
+
+  /** Merges `theirs` into the form (three-way against `base`) and makes it the base of the next save. */
+  const startMerge = (base: WorkupSnapshot, theirsRaw: WorkupSnapshot, their: TheirVersion, mineRaw: WorkupSnapshot) => {
+    const [b, t, m] = [normalized(base), normalized(theirsRaw), mineRaw];
+    const result = mergeSnapshots(b, t, m);
+    editor.apply(() => formFrom(result.merged), null);
+    setVersion(their.version);
+    setOpened(theirsRaw);
+    setSession({ base: b, mine: m, theirs: t, their, choices: {}, result });
   };
-  const takeTheirs = (d: WorkupDetail) => {
-    const next = editorStateOf(d.header, d.spec, snapshotOfDetail(d).links);
+  const theirVersionOf = (d: WorkupDetail): TheirVersion => ({ version: d.version, by: d.updatedBy?.name ?? null, at: d.updatedAt });
+  const loadTheirs = () => startLoading(async () => {
+    if (!workupId) return;
+    const result = await getWorkupAction(workupId);
+    if (!result.ok) return setProblem(result.message);
+    setProblem(null);
+    startMerge(opened ?? snapshotOfDetail(result.data), snapshotOfDetail(result.data), theirVersionOf(result.data), snapshotOfState(state));
+  });
+  /** A changed choice moves into the form three-way, so edits made since the merge stay. */
+  const choose = (conflictId: string, choice: Choice) => {
+    if (!session) return;
+    const choices = { ...session.choices, [conflictId]: choice };
+    const result = mergeSnapshots(session.base, session.theirs, session.mine, choices);
+    const form = mergeSnapshots(session.result.merged, result.merged, snapshotOfState(state)).merged;
+    editor.apply(() => formFrom(form), null);
+    setSession({ ...session, choices, result });
+  };
+  const takeTheirs = () => {
+    if (!session || !workupId) return;
+    const next = formFrom(session.theirs);
     editor.replace(next);
-    setVersion(d.version);
-    setOpened(snapshotOfDetail(d));
     setConflict(null);
+    setSession(null);
     setBaseline(JSON.stringify(saveInput(next)));
+    if (storage) clearDraft(storage, workupId);
+  };
+
+  // Drafts: offered back once on opening; afterwards every unsaved edit is kept, and a clean form clears it.
+  useEffect(() => {
+    // After the first paint: the server-rendered form and the first client render must match (no storage there).
+    const frame = requestAnimationFrame(() => {
+      const found = workupId && storage && base !== null ? loadDraft(storage, workupId) : null;
+      if (found && base !== null && !same(found.mine as unknown as JsonValue, normalized(base) as unknown as JsonValue)) setOfferedDraft(found);
+      setDraftChecked(true);
+    });
+    return () => cancelAnimationFrame(frame);
+  }, [workupId, storage, base]);
+  useEffect(() => {
+    if (!draftChecked || offeredDraft || !workupId || !storage || !opened || version === null) return;
+    if (dirty) saveDraft(storage, { workupId, baseVersion: version, base: opened, mine: snapshotOfState(state), savedAt: new Date().toISOString() });
+    else clearDraft(storage, workupId);
+  }, [draftChecked, offeredDraft, workupId, storage, opened, version, dirty, state]);
+  const restoreDraft = (d: Draft) => {
+    setOfferedDraft(null);
+    if (d.baseVersion === version || !opened) {
+      editor.apply(() => formFrom(d.mine), null);
+      return;
+    }
+    setConflict(`You had unsaved edits to version ${d.baseVersion}; version ${version ?? "?"} was saved since.`);
+    startMerge(d.base, opened, { version: version ?? d.baseVersion, by: null, at: d.savedAt }, d.mine);
+  };
+  const discardDraft = () => {
+    setOfferedDraft(null);
+    if (storage && workupId) clearDraft(storage, workupId);
   };
 
   const api: EditorApi = {
@@ -157,8 +234,18 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
       <p className="sr-only" aria-live="polite">{announcement}</p>
       <div className="sticky bottom-0 z-10 -mx-4 mt-6 border-t border-stone-200 bg-white/95 px-4 py-3 backdrop-blur">
         <div className="space-y-3">
-          {conflict && workupId && opened ? (
-            <ConflictPanel workupId={workupId} message={conflict} base={opened} mine={snapshotOfState(state)} names={names} onRebase={rebase} onTakeTheirs={takeTheirs} />
+          {offeredDraft ? (
+            <Notice tone="warning" title="Unsaved edits from before">
+              <p>Edits to version {offeredDraft.baseVersion} from {new Date(offeredDraft.savedAt).toLocaleString()} were not saved. They are kept in this browser.</p>
+              <div className="mt-2 flex gap-2">
+                <Button variant="secondary" onClick={() => restoreDraft(offeredDraft)}>Restore my edits{offeredDraft.baseVersion !== version ? " (merged with the newer version)" : ""}</Button>
+                <Button variant="ghost" onClick={discardDraft}>Discard them</Button>
+              </div>
+            </Notice>
+          ) : null}
+          {conflict && workupId ? (
+            <ConflictPanel message={conflict} theirs={session?.their ?? null} result={session?.result ?? null} choices={session?.choices ?? {}} names={names}
+              pending={loading} problem={problem} onLoad={loadTheirs} onChoose={choose} onTakeTheirs={takeTheirs} />
           ) : null}
           {failure ? <Notice tone="error" title="Not saved">{failure}</Notice> : null}
           <div className="flex flex-wrap items-center gap-3">

@@ -12,7 +12,8 @@ const blank = () => emptyEditorState("2026-11-02", "");
 describe("new steps start with the usual bench values (common practice)", () => {
   it("a wash is one 20 mL portion of brine keeping the organic layer", () => {
     const { state } = addOperation(blank(), "wash", lib);
-    expect(operationInput(state.operations[0]!)).toEqual({ type: "wash", reagent: "brine", volume: { value: 20, unit: "mL" }, portions: 1, keep: "organic" });
+    // The step's id travels with it into the saved spec (merges and the history follow steps by id).
+    expect(operationInput(state.operations[0]!)).toEqual({ id: state.operations[0]!.id, type: "wash", reagent: "brine", volume: { value: 20, unit: "mL" }, portions: 1, keep: "organic" });
   });
 
   it("an extraction uses the organic solvent already in the funnel, three portions", () => {
