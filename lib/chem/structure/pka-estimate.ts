@@ -3,11 +3,12 @@
  * Organic Acids and Bases", Chapman & Hall 1981): Hammett σ for ring-bound sites (pka-hammett.ts), Taft σ* for
  * aliphatic acids and amines (pka-taft.ts), and simple additive rules for imidazoles and tetrazoles.
  *
- * Several sites in one molecule are solved as microspecies, as the book does for polyfunctional compounds: each
- * site's value is computed with every other site in the state it has where this one titrates (an acid whose value is
- * lower is already ionised, a base whose value is higher is still protonated), repeated until the values settle.
- * Two equivalent sites get the statistical correction ∓log 2 (first ionisation of a symmetric diacid lower, second
- * higher; Perrin 1981, ch. 2). The engine then forms a zwitterion only where an acid's value lies below a base's.
+ * Several sites in one molecule are solved as microspecies, stepwise from the fully protonated form as the book
+ * does for polyfunctional compounds: at each step every remaining site is estimated with the others in their
+ * current state, the most acidic gives up its proton, and later steps see it ionised (salicylic acid: COOH first,
+ * then the phenol beside a carboxylate; 4-aminobenzoic acid: the anilinium first, then the COOH beside a neutral
+ * NH2). Two equivalent sites get the statistical correction ∓log 2 (Perrin 1981, ch. 2). The engine then forms a
+ * zwitterion only where an acid's value lies below a base's.
  */
 import { type PKaGraph, aromaticRingOf, heavy, isAromatic, withAtoms, z } from "./pka-graph";
 import { hammettShift } from "./pka-hammett";
@@ -146,65 +147,72 @@ function imidazoleShift(g: PKaGraph, site: number): number {
 /** σm for the imidazole rule, a subset of Hansch, Leo & Taft 1991 (from memory). */
 const SIGMA_M: Record<string, number> = { NO2: 0.71, Cl: 0.37, Br: 0.39, CF3: 0.43, COOR: 0.37, COR: 0.38, CN: 0.56, CHO: 0.35, CONR2: 0.28, "COO-": -0.1, COOH: 0.37, OR: 0.12 };
 
-/** Puts every site atom in its neutral form (HA, B) so that salts and zwitterions are read alike. */
-function neutralise(g: PKaGraph, sites: SiteMatch[]): PKaGraph {
+/** The fully protonated form: every acid as HA, every base as BH⁺, so salts and zwitterions are read alike. */
+function protonated(g: PKaGraph, sites: SiteMatch[]): PKaGraph {
   const out = withAtoms(g);
   for (const s of sites) {
     const a = out.atoms[s.atom];
-    if (!a) continue;
-    if (s.spec.kind === "acid" && a.chg < 0 && z(out, s.atom) !== 5) {
+    if (!a || z(out, s.atom) === 5) continue;
+    if (s.spec.kind === "acid" && a.chg < 0) {
       a.chg = 0;
       a.hs += 1;
-    } else if (s.spec.kind === "base" && a.chg > 0 && a.hs > 0) {
-      a.chg = 0;
-      a.hs -= 1;
+    } else if (s.spec.kind === "base" && a.chg <= 0) {
+      a.chg = 1;
+      a.hs += 1;
     }
   }
   return out;
 }
 
-function stateFor(neutral: PKaGraph, sites: SiteMatch[], values: number[], i: number): PKaGraph {
-  const me = values[i] ?? 0;
-  const g = withAtoms(neutral);
-  sites.forEach((s, j) => {
-    if (j === i) return;
-    const v = values[j] ?? 0;
-    const a = g.atoms[s.atom];
-    if (!a || z(g, s.atom) === 5) return;
-    const tie = Math.abs(v - me) < 0.02 && j < i;
-    if (s.spec.kind === "acid" && (v < me || tie)) {
-      a.chg = -1;
-      a.hs = Math.max(0, a.hs - 1);
-    } else if (s.spec.kind === "base" && (v > me || tie)) {
-      a.chg = 1;
-      a.hs += 1;
-    }
-  });
-  return g;
+/** Takes the proton off site `s` in graph `g` (HA → A⁻, BH⁺ → B). */
+function deprotonate(g: PKaGraph, s: SiteMatch): void {
+  const a = g.atoms[s.atom];
+  if (!a || z(g, s.atom) === 5) return;
+  a.chg -= 1;
+  a.hs = Math.max(0, a.hs - 1);
 }
 
-/** Refined values, in the order of `sites`. */
+/**
+ * Refined values, in the order of `sites`. Stepwise from the fully protonated form: every remaining site is
+ * estimated in the current microstate, the most acidic one gives up its proton (its value is fixed there), and
+ * the next step sees it ionised. Equivalent sites (same class, same value in the protonated form) get ∓log 2.
+ */
 export function refineSiteValues(g: PKaGraph, sites: SiteMatch[]): number[] {
-  const neutral = neutralise(g, sites);
-  const first = sites.map((s) => (s.fixed ? s.value : round(estimateOne(neutral, s))));
-  let values = first;
-  for (let pass = 0; pass < 4; pass++) {
-    const next = sites.map((s, i) => (s.fixed ? s.value : round(estimateOne(stateFor(neutral, sites, values, i), s))));
-    const settled = next.every((v, i) => Math.abs(v - (values[i] ?? v)) < 0.005);
-    values = next;
-    if (settled) break;
+  const state = protonated(g, sites);
+  const start = sites.map((s) => (s.fixed ? s.value : round(estimateOne(state, s))));
+  const values: number[] = new Array<number>(sites.length).fill(NaN);
+  const order: number[] = [];
+  const remaining = new Set(sites.map((_, i) => i));
+  while (remaining.size > 0) {
+    let best = -1;
+    let bestValue = Infinity;
+    for (const i of remaining) {
+      const site = sites[i];
+      if (!site) continue;
+      const v = site.fixed ? site.value : round(estimateOne(state, site));
+      if (v < bestValue - 0.005) {
+        best = i;
+        bestValue = v;
+      }
+    }
+    const site = sites[best];
+    if (!site) break;
+    values[best] = bestValue;
+    order.push(best);
+    remaining.delete(best);
+    deprotonate(state, site);
   }
-  return statistical(sites, first, values);
+  return statistical(sites, start, values, order);
 }
 
-function statistical(sites: SiteMatch[], first: number[], values: number[]): number[] {
+function statistical(sites: SiteMatch[], start: number[], values: number[], order: number[]): number[] {
   const out = [...values];
+  const rank = new Map(order.map((i, k) => [i, k]));
   sites.forEach((s, i) => {
     if (s.fixed || !s.spec.method) return;
-    const twin = sites.findIndex((t, j) => j !== i && !t.fixed && t.spec.id === s.spec.id && Math.abs((first[j] ?? 0) - (first[i] ?? 0)) < 0.02);
+    const twin = sites.findIndex((t, j) => j !== i && !t.fixed && t.spec.id === s.spec.id && Math.abs((start[j] ?? 0) - (start[i] ?? 0)) < 0.02);
     if (twin < 0) return;
-    const titratesFirst = i < twin;
-    const sign = s.spec.kind === "acid" ? (titratesFirst ? -1 : 1) : titratesFirst ? 1 : -1;
+    const sign = (rank.get(i) ?? 0) < (rank.get(twin) ?? 0) ? -1 : 1;
     out[i] = round((values[i] ?? 0) + sign * LOG2);
   });
   return out;

@@ -96,7 +96,7 @@ export function ringSubstituents(g: PKaGraph, ipso: number, skip: ReadonlySet<nu
     if (r === ipso) continue;
     const d = ringDistance(ring, ipso, r);
     const position = d === 1 ? "o" : ring.length === 6 && d === 3 ? "p" : "m";
-    if (z(g, r) === 7 && ring.length === 6 && !skip.has(r)) out.push({ key: "aza", position, atom: r });
+    if (z(g, r) === 7 && ring.length === 6 && !skip.has(r)) out.push({ key: (g.atoms[r]?.chg ?? 0) > 0 ? "aza+" : "aza", position, atom: r });
     if (ring.length === 5 && z(g, r) !== 6 && !skip.has(r)) out.push({ key: RING5[z(g, r)] ?? "ring_N", position, atom: r });
     let fused = false;
     for (const n of heavy(g, r)) {

@@ -65,6 +65,11 @@ export const SIGMA: Record<string, Sigma> = {
   "PO3H-": { m: 0.2, p: 0.26, star: 0.8 },
   /** Ring nitrogen (aza) of a six-membered ring, neutral; Perrin 1981, Table 4.x (from memory). */
   aza: { m: 0.65, p: 0.93, star: 0 },
+  /**
+   * Protonated ring nitrogen (pyridinium) as a substituent: chosen so that the COOH of the nicotinic and isonicotinic
+   * acid cations comes out at 2.07 and 1.77 (CRC, from memory); field effect only, so no σ* value.
+   */
+  "aza+": { m: 2.1, p: 2.4, star: 0 },
   /** A ring fused at this position (naphthalene-type); fitted by us to 1-/2-naphthol and naphthylamine pKa (from memory, CRC). */
   fused: { m: 0.1, p: 0.1, star: 0 },
 };

@@ -54,6 +54,18 @@ describe("measured defects of issue 9", () => {
     expect(Math.abs(base - 9.78)).toBeLessThanOrEqual(0.3);
   });
 
+  it("nicotinic acid is a zwitterion: COOH 2.07 below the pyridinium 4.75 [CRC], each within 1.1", () => {
+    const acid = one("OC(=O)c1cccnc1", "acid");
+    const base = one("OC(=O)c1cccnc1", "base");
+    expect(acid).toBeLessThan(base);
+    expect(Math.abs(acid - 2.07)).toBeLessThanOrEqual(1.1);
+    expect(Math.abs(base - 4.75)).toBeLessThanOrEqual(1.1);
+  });
+
+  it("a tetraalkyl uronium or amidinium cation (HATU) has no proton to give and is no base", () => {
+    expect(sitesOf("CN(C)C(=[N+](C)C)On1nnc2cccnc12.F[P-](F)(F)(F)(F)F").filter((s) => s.site === "amidine" || s.site === "guanidine")).toEqual([]);
+  });
+
   it("HOBt has an acidic N–OH site near 4.60 [Carpino] (old: no site at all)", () => {
     expect(Math.abs(one("On1nnc2ccccc12", "acid") - 4.6)).toBeLessThanOrEqual(0.3);
   });
