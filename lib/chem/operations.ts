@@ -7,6 +7,7 @@
 import { reagentPh } from "./aqueous";
 import { concentrate } from "./concentrate";
 import { dry } from "./drying";
+import { dissolveSolid } from "./salt-solutions";
 import { WATER } from "./library";
 import { volumeForTargetPh } from "./target-ph";
 import { type OperationOf, type Operation } from "./schema";
@@ -171,17 +172,18 @@ const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
 const addSalt: Handler<"add_salt"> = (sim, op, step) => {
   const r = sim.reagent(op.salt);
   const water = sim.current.solv[WATER] as number;
+  const present = r.osmoles > 0 ? sim.current.osmoles / r.osmoles : 0;
   let mmol: number;
   if (op.saturate) {
     const sol = r.props.solubilityGPer100g?.value ?? 0;
     const saturated = (((sol / 100) * water * (sim.lib.density[WATER] as number)) / r.molarMass) * 1000;
-    const present = r.osmoles > 0 ? sim.current.osmoles / r.osmoles : 0;
     mmol = Math.max(0, saturated - present);
   } else mmol = (((op.massG ?? 0) / r.molarMass) * 1000);
   const before = sim.acidBase(sim.current);
   sim.current.addReagent(r, mmol, sim.lib.density[WATER] as number);
+  const grownMl = dissolveSolid(sim.current, op.salt, r.molarMass, water * (sim.lib.density[WATER] as number), present, mmol, sim.lib.density[WATER] as number);
   settle(sim, op, step, op.salt, before);
-  return { saltMmol: mmol, saltG: (mmol * r.molarMass) / 1000 };
+  return { saltMmol: mmol, saltG: (mmol * r.molarMass) / 1000, volumeGrowthMl: grownMl };
 };
 
 const removeCosolvent: Handler<"remove_cosolvent"> = (sim, op, step) => {

@@ -1,6 +1,7 @@
 "use client";
 // One step as the engine sees it: the funnel (or flask) at a chosen portion, where each component is, the aqueous pH,
 // gas and heat, and what left the main line in this step.
+import { MARGINAL_DENSITY_DIFFERENCE } from "@/lib/chem/phases";
 import { useId, useState } from "react";
 import { type SideStream, type StepResult } from "@/lib/chem/types";
 import { FlaskPicture, FunnelPicture } from "./vessel-picture";
@@ -61,7 +62,7 @@ function ContactNumbers({ contact }: { contact: StepResult["contacts"][number] }
   if (contact.co2GasMl > 0.5) notes.push(`about ${ml(contact.co2GasMl)} of CO₂ released`);
   if (contact.temperatureRiseK > 1) notes.push(`warms by about ${formatNumber(contact.temperatureRiseK, 0)} K`);
   if (contact.capacityExceeded) notes.push(`the wash's acid/base is used up (pH moved from ${pH(contact.reagentPh)})`);
-  if (contact.densityDifference !== null && Math.abs(contact.densityDifference) < 0.03) notes.push("densities within 0.03 g/mL: slow, uncertain split");
+  if (contact.densityDifference !== null && Math.abs(contact.densityDifference) < MARGINAL_DENSITY_DIFFERENCE) notes.push(`densities within ${MARGINAL_DENSITY_DIFFERENCE} g/mL: the layers may not separate`);
   return notes.length > 0 ? <p className="text-stone-600">This portion: {notes.join("; ")}.</p> : null;
 }
 

@@ -74,7 +74,10 @@ const list: ReagentProps[] = [
   // Na₂CO₃ 21.8 g/100 g water at 20 °C (chemister) → 17.9 wt%; density ≈1.19 extrapolated from CRC 15 wt% 1.1574 → 2.0 M (derived).
   solution("na2co3_sat", "Saturated Na₂CO₃", "base", src(2.0, "chemister", "derived"), src(1.19, "CRC-conc", "derived"), { ions: { Na: 2 }, systems: { carbonate: 1 } }),
   solution("na2co3_1m", "1 M Na₂CO₃", "base", src(1.0, "derived", "derived"), src(1.10, "memory", "memory"), { ions: { Na: 2 }, systems: { carbonate: 1 } }),
-  solution("k2co3_sat", "Saturated K₂CO₃", "base", src(5.9, "memory", "memory"), src(1.54, "memory", "memory"), { ions: { K: 2 }, systems: { carbonate: 1 } }),
+  // Saturated K₂CO₃: 7.948 mol/kg at 20 °C (CRC-salts) → 52.3 wt%; density from the CRC concentrative table
+  // extended past its last row (50 wt%, 1.5404) at constant apparent molar volume: 1.58 g/mL, 5.99 mol/L (derived;
+  // salt-solutions.ts).
+  solution("k2co3_sat", "Saturated K₂CO₃", "base", src(5.99, "CRC-salts", "derived"), src(1.58, "CRC-conc", "derived"), { ions: { K: 2 }, systems: { carbonate: 1 } }),
   // 1 M NaOH ≈ 4 wt%: CRC lists 4 wt% = 1.043 M, 1.0428 g/mL (CRC-conc).
   solution("naoh_1m", "1 M NaOH", "base", src(1.0, "CRC-conc", "confirmed"), src(1.041, "CRC-conc", "derived"), { ions: { Na: 1 } }),
   solution("naoh_10pct", "10% NaOH", "base", src(2.77, "memory", "memory"), src(1.109, "memory", "memory"), { ions: { Na: 1 } }),
@@ -111,8 +114,12 @@ const list: ReagentProps[] = [
     ions: { Na: 1, Cl: 1 }, systems: {}, solubilityGPer100g: src(35.9, "CRC-salts", "derived") },
   { key: "na2so4", name: "Sodium sulfate (solid, for salting out)", kind: "solid", purpose: "salt", density: null, basis: src(142.04, "derived", "derived"),
     ions: { Na: 2 }, systems: { sulfate: 1 }, solubilityGPer100g: src(19.5, "memory", "memory") },
+  // 7.948 mol/kg at 20 °C (CRC-salts) → 109.8 g per 100 g water (derived).
   { key: "k2co3", name: "Potassium carbonate (solid)", kind: "solid", purpose: "base", density: null, basis: src(138.2, "derived", "derived"),
-    ions: { K: 2 }, systems: { carbonate: 1 }, solubilityGPer100g: src(111, "memory", "memory") },
+    ions: { K: 2 }, systems: { carbonate: 1 }, solubilityGPer100g: src(109.8, "CRC-salts", "derived") },
+  // 19.67 mol/kg at 20 °C (CRC-salts) → 83.4 g per 100 g water (derived).
+  { key: "licl", name: "Lithium chloride (solid)", kind: "solid", purpose: "salt", density: null, basis: src(42.394, "derived", "derived"),
+    ions: { Li: 1, Cl: 1 }, systems: {}, solubilityGPer100g: src(83.4, "CRC-salts", "derived") },
   { key: "nahco3", name: "Sodium bicarbonate (solid)", kind: "solid", purpose: "base", density: null, basis: src(84.01, "derived", "derived"),
     ions: { Na: 1 }, systems: { carbonate: 1 }, solubilityGPer100g: src(9.6, "chemister", "confirmed") },
 ];

@@ -5,19 +5,32 @@ import { flag, operationOf, pct, productInfo, stepName, type Rule } from "./cont
 
 const FINE_SOLIDS: ComponentTag[] = ["aluminium", "titanium", "zinc", "copper", "palladium", "tin"];
 
-/** F10: emulsion or slow separation risk. */
+/**
+ * F10: emulsion or slow separation risk. Every contact is read for each cause, so layers closer than 0.03 g/mL
+ * in density are reported whatever brings them there (salt, a solvent mixture, dissolved material) and even when
+ * an earlier contact already raised another cause.
+ */
 export const emulsionRisk: Rule = (ctx) => {
   const reasons: string[] = [];
   let step: number | undefined;
   const note = (s: number, r: string) => { step ??= s; reasons.push(r); };
+  let marginal = false, basicChlorinated = false, observed = false;
   for (const t of ctx.contacts) {
     if (!t.twoPhase) continue;
     const d = Math.abs(t.organicDensity - t.aqueousDensity);
-    if (d < MARGINAL_DENSITY_DIFFERENCE) note(t.step, `in ${stepName(ctx, t.step)} the layers differ in density by only ${d.toFixed(3)} g/mL`);
-    if (t.chlorinatedOrganic && t.pH > 10) note(t.step, `a basic aqueous layer (pH ${t.pH.toFixed(1)}) meets a chlorinated solvent in ${stepName(ctx, t.step)}`);
+    if (!marginal && d < MARGINAL_DENSITY_DIFFERENCE) {
+      marginal = true;
+      note(t.step, `in ${stepName(ctx, t.step)} the layers differ in density by only ${d.toFixed(3)} g/mL (${t.organicDensity.toFixed(3)} against ${t.aqueousDensity.toFixed(3)}) and may not separate`);
+    }
+    if (!basicChlorinated && t.chlorinatedOrganic && t.pH > 10) {
+      basicChlorinated = true;
+      note(t.step, `a basic aqueous layer (pH ${t.pH.toFixed(1)}) meets a chlorinated solvent in ${stepName(ctx, t.step)}`);
+    }
     const obs = operationOf(ctx, t.step)?.observed?.interface;
-    if (obs === "emulsion" || obs === "rag") note(t.step, `an ${obs === "rag" ? "rag layer" : "emulsion"} was observed in ${stepName(ctx, t.step)}`);
-    if (reasons.length > 0) break;
+    if (!observed && (obs === "emulsion" || obs === "rag")) {
+      observed = true;
+      note(t.step, `an ${obs === "rag" ? "rag layer" : "emulsion"} was observed in ${stepName(ctx, t.step)}`);
+    }
   }
   const tags = new Set(ctx.input.components.flatMap((c) => c.tags));
   const fines = FINE_SOLIDS.filter((x) => tags.has(x));
@@ -25,7 +38,7 @@ export const emulsionRisk: Rule = (ctx) => {
   const soaps = ctx.input.components.filter((c) => c.surfactant).map((c) => c.name);
   if (soaps.length > 0) reasons.push(`surfactant-like components are present (${soaps.join(", ")})`);
   if (reasons.length === 0) return [];
-  return [flag("F10", "warning", "Emulsion or slow-separation risk", `Risk of an emulsion: ${reasons.join("; ")}.`,
+  return [flag("F10", "warning", marginal ? "Layers may not separate (emulsion or slow-separation risk)" : "Emulsion or slow-separation risk", `Risk of an emulsion or a slow split: ${reasons.join("; ")}.`,
     "Wait, swirl gently rather than shake hard; add brine or a little solid NaCl; filter through Celite if solids hold it; centrifuge; add more solvent; acidify soap emulsions.",
     step === undefined ? {} : { step })];
 };
