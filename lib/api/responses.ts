@@ -112,3 +112,12 @@ export const predictResponseSchema = predictionSummarySchema.omit({ flags: true,
 export const meSchema = z.object({ user: person.extend({ email: z.string() }), group: z.object({ id: z.string(), name: z.string(), slug: z.string() }), role: z.string(), permissions: z.array(z.string()), via: z.enum(["session", "token"]) });
 
 export const looseObject = z.record(z.string(), z.unknown());
+
+export const calibrationReportSchema = z.object({
+  n: z.number().int().describe("outcomes judged against a predictive distribution"),
+  levels: z.array(z.object({
+    level: fraction.describe("nominal level of the central predictive interval"), n: z.number().int(), inside: z.number().int(),
+    share: nullableFraction.describe("share of outcomes inside; a calibrated model sits near the level"),
+  })),
+  withinInterval: nullableFraction, flagged: z.number().int(), notice: z.string().nullable(),
+});

@@ -11,8 +11,9 @@ import {
 } from "@/lib/workups/schemas";
 import {
   listPageSchema, looseObject, meSchema, outcomeReportSchema, predictResponseSchema, savedWorkupSchema, versionDiffSchema,
-  versionListSchema, workupDetailSchema,
+  versionListSchema, workupDetailSchema, calibrationReportSchema,
 } from "./responses";
+import { reviewFilterSchema } from "@/lib/review/filters";
 import { uploadQuerySchema } from "@/lib/attachments/schemas";
 
 export type HttpMethod = "get" | "post" | "put" | "delete";
@@ -70,6 +71,9 @@ export const API_ROUTES: ApiRoute[] = [
       `otherwise 201 with the created rows or 422 with every row's errors. Columns: ${CSV_COLUMNS_DOC}.`,
     body: { name: "WorkupCsv", schema: looseObject, contentType: "text/csv", limit: "10 MB" },
     success: { status: 201, schema: looseObject, description: "created rows (or NDJSON progress lines and a result line)" }, errors: [400, 403, 413, 422] },
+  { method: "get", path: "/api/v1/review/calibration", summary: "How often the group's predictive intervals contained the reported outcome, by level", permission: "data:read",
+    query: reviewFilterSchema,
+    success: { status: 200, name: "CalibrationReport", schema: calibrationReportSchema, description: "coverage per interval level" }, errors: [403, 422] },
   { method: "get", path: "/api/v1/group/export", summary: "The whole group as JSON (compounds, workups with versions, outcomes, predictions, partition data, library)", permission: "data:read",
     success: { status: 200, name: "GroupExport", schema: groupExportSchema, description: "the export document" }, errors: [403] },
   { method: "post", path: "/api/v1/group/import", summary: "Load a group export into this group, which must hold no compounds or workups", permission: "library:manage",

@@ -21,6 +21,8 @@ export interface ReviewRow {
   reported: number | null;
   causes: { title: string; share: number }[];
   dangerFlags: string[];
+  /** Predictive CDF at the reported value (lib/chem/predictive.ts); absent for outcomes judged before it existed. */
+  quantile?: number | null;
 }
 
 export interface GroupStat {
@@ -106,4 +108,30 @@ export function calibration(rows: readonly ReviewRow[]): Calibration {
 /** Flagged workups, largest shortfall first; danger-flagged ones without a shortfall after them. */
 export function rankedFlagged(rows: readonly ReviewRow[]): ReviewRow[] {
   return rows.filter((r) => r.flagged).sort((a, b) => (a.deviationPct ?? Infinity) - (b.deviationPct ?? Infinity) || a.id.localeCompare(b.id));
+}
+
+/** Interval levels the calibration view checks (a group meeting reads 50 %, 80 %, 90 %, 95 % and 99 %). */
+export const CALIBRATION_LEVELS = [0.5, 0.8, 0.9, 0.95, 0.99] as const;
+
+export interface CalibrationPoint {
+  /** Nominal level of the central predictive interval. */
+  level: number;
+  n: number;
+  /** Outcomes inside that interval. */
+  inside: number;
+  /** inside / n; null without outcomes. A calibrated model sits near `level`. */
+  share: number | null;
+}
+
+/**
+ * How often the group's central predictive intervals contained the reported outcome, at each level (workup-practice
+ * §6 view 11). Reads the stored predictive CDF at the outcome: inside the central interval at level L means
+ * |quantile − 0.5| ≤ L / 2.
+ */
+export function calibrationByLevel(rows: readonly Pick<ReviewRow, "quantile">[], levels: readonly number[] = CALIBRATION_LEVELS): CalibrationPoint[] {
+  const qs = rows.flatMap((r) => (typeof r.quantile === "number" && Number.isFinite(r.quantile) ? [r.quantile] : []));
+  return levels.map((level) => {
+    const inside = qs.filter((q) => Math.abs(q - 0.5) <= level / 2).length;
+    return { level, n: qs.length, inside, share: qs.length ? inside / qs.length : null };
+  });
 }

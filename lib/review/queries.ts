@@ -80,6 +80,7 @@ export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilter
       predicted: percent(a.predicted?.recovery), low: percent(a.predicted?.low), high: percent(a.predicted?.high), reported: percent(a.reported?.recovery),
       causes: (a.causes ?? []).slice(0, 3).map((c) => ({ title: c.title, share: c.fractionOfGap })),
       dangerFlags: a.dangerFlags ?? [],
+      quantile: typeof a.predictive?.quantile === "number" ? a.predictive.quantile : null,
     };
   });
   const names = new Map(members.map((m) => [m.user.id, m.user.name]));

@@ -6,13 +6,14 @@ import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/lib/db/client";
 import { JobProgressPanel } from "@/lib/jobs/components/job-progress";
 import { jobsStatus } from "@/lib/jobs/status";
-import { calibration, groupStats, histogram, rankedFlagged } from "@/lib/review/aggregate";
+import { calibration, calibrationByLevel, groupStats, histogram, rankedFlagged } from "@/lib/review/aggregate";
 import { firstValues, reviewFilterSchema, type ReviewFilters } from "@/lib/review/filters";
 import { chemistStats } from "@/lib/review/people";
 import { loadReview } from "@/lib/review/queries";
 import { FilterForm } from "./_components/filter-form";
 import { ReviewViews } from "./_components/review-views";
 import { Summary } from "./_components/summary";
+import { CalibrationView } from "./_components/calibration-view";
 
 export const metadata = { title: "Review" };
 
@@ -54,6 +55,7 @@ export default async function ReviewPage({ searchParams }: { searchParams: Promi
           flagged={rankedFlagged(rows)}
           solventNames={solventNames}
         />
+        <CalibrationView levels={calibrationByLevel(rows)} />
       </div>
     </>
   );

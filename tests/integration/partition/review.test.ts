@@ -1,5 +1,7 @@
 import { beforeAll, expect, it } from "vitest";
 import { loadReview } from "@/lib/review/queries";
+import { calibrationReport } from "@/lib/review/calibration-report";
+import { ValidationError } from "@/lib/errors";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
 import { makeLab, type Lab } from "@/tests/integration/workups/fixtures";
 import { recoveryAt, workupWithOutcome } from "@/tests/integration/jobs/fixtures";
@@ -42,6 +44,20 @@ describeEachDatabase("review queries", (t) => {
     expect(lead.rows.map((r) => r.title)).toEqual(["October shortfall", "September run"]);
     expect(lead.notice).toBeNull();
     expect(lead.chemists.map((c) => c.name).sort()).toEqual([lab.lead.name, lab.member.name, lab.viewer.name].sort());
+  });
+
+  it("reports how often the intervals held at each level, from the same rows the page shows, and refuses bad filters", async () => {
+    const report = await calibrationReport(t.db, viewer("member"), {});
+    // Three judged outcomes: the two at the stated log K sit near the predictive median, the shortfall far below it.
+    expect(report.n).toBe(3);
+    expect(report.levels.map((l) => l.level)).toEqual([0.5, 0.8, 0.9, 0.95, 0.99]);
+    const at95 = report.levels.find((l) => l.level === 0.95)!;
+    expect(at95.inside).toBe(2);
+    expect(report.levels.map((l) => l.inside)).toEqual([...report.levels.map((l) => l.inside)].sort((a, b) => a - b));
+    expect(report.flagged).toBe(1);
+    const error = await calibrationReport(t.db, viewer("member"), { from: "yesterday" }).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ValidationError);
+    expect((error as ValidationError).fieldErrors["from"]).toContain("from must be a date written YYYY-MM-DD");
   });
 
   it("never shows another group's workups, even when asked for its chemist", async () => {
