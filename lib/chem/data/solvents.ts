@@ -4,7 +4,8 @@
  * Collander lines log K(solvent/water) = a·log P(octanol/water) + b are given separately for H-bond-donor
  * solutes (acids, phenols, alcohols) and for the rest, following Leo, Hansch & Elkins 1971. Only the ether,
  * chloroform, benzene and n-butanol lines are recalled from that paper (memory); the others are assumptions by
- * analogy and carry a wide standard error that the uncertainty engine propagates.
+ * analogy and carry a wide standard error that the uncertainty engine propagates. They are the fallback: a
+ * component with Abraham descriptors is partitioned by the solvation equations of data/abraham-solvents.ts.
  */
 import { type Confidence, type Sourced } from "./sources";
 
