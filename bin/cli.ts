@@ -1,5 +1,5 @@
 /**
- * `layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S]`
+ * `layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S] [--ideal-phases] [--no-salting-out] [--no-ion-partition]`
  * `layerwise plan FILE.json [--json] [--product KEY] [--target-recovery F] [--max-impurity F]`
  * `layerwise fit FILE.json --component KEY --recovery F [--recovery-se F] [--solvent NAME]`
  * FILE may be "-" for standard input. Exit codes: 0 done, 2 bad usage or invalid input, 1 anything else.
@@ -17,9 +17,13 @@ import { explainPlan } from "./explain-plan";
 export class InputError extends Error {}
 
 const USAGE = `Usage:
-  layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S]
+  layerwise predict FILE.json [--explain] [--uncertainty N] [--seed S] [IDEALISATIONS]
   layerwise plan FILE.json [--json] [--product KEY] [--target-recovery F] [--max-impurity F]
   layerwise fit FILE.json --component KEY --recovery F [--recovery-se F] [--solvent NAME]
+IDEALISATIONS (for comparisons with textbook arithmetic; the same as the input's "options"):
+  --ideal-phases      solvent and water mutually insoluble
+  --no-salting-out    salts do not change partition coefficients
+  --no-ion-partition  charged forms stay in the water
 FILE may be - to read standard input. The input format is described in README.md (section "Command line").`;
 
 function readJson(file: string): unknown {
@@ -30,6 +34,8 @@ function readJson(file: string): unknown {
     const code = (error as NodeJS.ErrnoException).code;
     throw new InputError(`cannot read ${file}: ${code === "ENOENT" ? "no such file" : (error as Error).message}`);
   }
+  // A byte-order mark (some Windows editors write one) is not part of the JSON text (RFC 8259 §8.1 lets a parser ignore it).
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   try {
     return JSON.parse(text) as unknown;
   } catch (error) {
@@ -42,10 +48,34 @@ function formatPath(path: string): string {
   return path.replace(/\.(\d+)(?=\.|$)/g, "[$1]") || "(top level)";
 }
 
+/** One line per issue; an unknown key, whose message starts with its name, is reported at the object holding it. */
+function issueLine(path: string, message: string): string {
+  const parts = path.split(".");
+  const last = parts.at(-1) ?? "";
+  if (last !== "" && message.startsWith(`\`${last}\`:`)) return `  ${formatPath(parts.slice(0, -1).join("."))}: ${message}`;
+  return `  ${formatPath(path)}: ${message}`;
+}
+
+const IDEALISATION_FLAGS = {
+  "ideal-phases": { type: "boolean" }, "no-salting-out": { type: "boolean" }, "no-ion-partition": { type: "boolean" },
+} as const;
+
+/** The input with the idealisations named on the command line switched on in its `options`. */
+function withIdealisations(raw: unknown, values: Partial<Record<keyof typeof IDEALISATION_FLAGS, boolean | undefined>>): unknown {
+  const on = {
+    ...(values["ideal-phases"] ? { idealPhases: true } : {}),
+    ...(values["no-salting-out"] ? { noSaltingOut: true } : {}),
+    ...(values["no-ion-partition"] ? { noIonPartition: true } : {}),
+  };
+  if (Object.keys(on).length === 0 || typeof raw !== "object" || raw === null || Array.isArray(raw)) return raw;
+  const given = (raw as { options?: unknown }).options;
+  return { ...raw, options: { ...(typeof given === "object" && given !== null ? given : {}), ...on } };
+}
+
 function parseWorkup(file: string, raw: unknown): WorkupInput {
   const v = validateWorkup(raw);
   if (v.success) return v.data;
-  const lines = v.issues.slice(0, 20).map((i) => `  ${formatPath(i.path)}: ${i.message}`);
+  const lines = v.issues.slice(0, 20).map((i) => issueLine(i.path, i.message));
   throw new InputError(`${file}: invalid work-up description\n${lines.join("\n")}`);
 }
 
@@ -59,11 +89,11 @@ function numberOption(name: string, value: string | undefined, check: (x: number
 function predict(args: string[]): string {
   const { values, positionals } = parseArgs({
     args, allowPositionals: true, strict: true,
-    options: { explain: { type: "boolean" }, uncertainty: { type: "string" }, seed: { type: "string" } },
+    options: { explain: { type: "boolean" }, uncertainty: { type: "string" }, seed: { type: "string" }, ...IDEALISATION_FLAGS },
   });
   const file = positionals[0];
   if (!file || positionals.length > 1) throw new InputError(`predict needs exactly one FILE\n${USAGE}`);
-  const input = parseWorkup(file, readJson(file));
+  const input = parseWorkup(file, withIdealisations(readJson(file), values));
   const draws = numberOption("uncertainty", values.uncertainty, (x) => Number.isInteger(x) && x >= 2 && x <= 100_000, "a whole number from 2 to 100000");
   const seed = numberOption("seed", values.seed, Number.isInteger, "a whole number");
   if (seed !== undefined && draws === undefined) throw new InputError("--seed only applies with --uncertainty N");
@@ -93,7 +123,7 @@ function plan(args: string[]): string {
     ...(values["max-impurity"] !== undefined ? { maxImpurityLeft: Number(values["max-impurity"]) } : {}),
   });
   if (!options.success) {
-    throw new InputError(`${file}: invalid plan options\n${options.error.issues.map((i) => `  plan.${formatPath(i.path.map(String).join("."))}: ${i.message}`).join("\n")}`);
+    throw new InputError(`${file}: invalid plan options\n${options.error.issues.map((i) => issueLine(["plan", ...i.path.map(String)].join("."), i.message)).join("\n")}`);
   }
   const result = planWorkup(input, options.data, simulateWorkup);
   return values.json ? JSON.stringify(result, null, 2) : explainPlan(result);

@@ -187,5 +187,6 @@ export interface EngineLibraryOptions extends LibraryOverrides {
 /** The library a work-up runs against, and its compiled form over the work-up's solvents. */
 export function libraryForWorkup(w: WorkupInput, options: EngineLibraryOptions): { library: Library; lib: CompiledLibrary } {
   const library = resolveLibrary(options);
-  return { library, lib: compileLibrary(options.idealPhases ? idealLibrary(library) : library, workupSolvents(w)) };
+  const ideal = options.idealPhases ?? w.options.idealPhases;
+  return { library, lib: compileLibrary(ideal ? idealLibrary(library) : library, workupSolvents(w)) };
 }

@@ -5,7 +5,7 @@
  * capacity and pH drift are only visible there. Recommendations are prompts, not instructions: local rules and
  * the group's procedures govern.
  */
-import { z } from "zod";
+import { type z } from "zod";
 import { SOLVENTS } from "./data/solvents";
 import { DEFAULT_LIBRARY, compileLibrary } from "./library";
 import { planExtraction, type ExtractionPlan } from "./planner-extraction";
@@ -22,16 +22,9 @@ export type { PhWindow, WashGroupPlan } from "./planner-washes";
 export type { AqueousWashPlan } from "./planner-aqueous";
 export type { PlanChange } from "./planner-revise";
 
-export const planOptionsSchema = z.object({
-  /** Component to recover; default the first with role "product". */
-  product: z.string().trim().min(1, { error: "product must name a component key" }).optional(),
-  targetRecovery: z.number({ error: "targetRecovery must be a number" }).gt(0, { error: "targetRecovery must be > 0" }).lt(1, { error: "targetRecovery must be < 1" }).default(0.95),
-  maxImpurityLeft: z.number({ error: "maxImpurityLeft must be a number" }).gt(0, { error: "maxImpurityLeft must be > 0" }).lt(1, { error: "maxImpurityLeft must be < 1" }).default(0.01),
-  /** Organic solvent (library key); default the first water-immiscible solvent of the mixture or extraction. */
-  solvent: z.string().trim().min(1).optional(),
-  maxPortions: z.number().int().min(1).max(10, { error: "maxPortions must be ≤ 10" }).default(5),
-});
-export type PlanOptions = z.input<typeof planOptionsSchema>;
+import { planOptionsSchema, type PlanOptions } from "./schema-plan";
+
+export { planOptionsSchema, type PlanOptions };
 
 export interface PlanCheck {
   /** Predicted recovery of every component after the revised sequence. */

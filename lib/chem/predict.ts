@@ -7,10 +7,12 @@ import { evaluateCautions } from "./cautions";
 import { evaluateFlags, type FlagContext } from "./flags";
 import { lossesByBucket } from "./losses";
 import { libraryForWorkup, resolveLibrary, type CompiledLibrary, type Library, type LibraryOverrides } from "./library";
+import { checkLayerSequence } from "./layer-sequence";
 import { RETAINED_SOLVENT_BP_C } from "./operations";
 import { readParameters } from "./parameters";
 import { contactResult, sideStream, summarize } from "./report";
 import { workupInputSchema, type WorkupInput, type WorkupInputRaw } from "./schema";
+import { suggestKey, withoutUnknownKeys } from "./schema-strict";
 import { acquireSimulator, releaseSimulator, type Simulator } from "./simulator";
 import { type ComponentOutcome, type ContactResult, type StepResult, type WorkupPrediction } from "./types";
 import { ENGINE_VERSION } from "./version";
@@ -39,13 +41,26 @@ export class WorkupValidationError extends Error {
 
 export type ValidationResult = { success: true; data: WorkupInput } | { success: false; issues: ValidationIssue[] };
 
+export interface ValidateOptions extends LibraryOverrides {
+  /**
+   * A description the app stored itself, read again (a saved version, the group's own export): keys the schema
+   * does not know are dropped instead of refused, and so are log K values for solvents no longer in the library.
+   * Neither ever changed a prediction; a stored record must stay readable after the schema tightened.
+   */
+  stored?: boolean;
+}
+
 /** Schema check plus every solvent, reagent and drying agent named must exist in the library. */
-export function validateWorkup(input: unknown, options: LibraryOverrides = {}): ValidationResult {
-  const parsed = workupInputSchema.safeParse(input);
+export function validateWorkup(input: unknown, options: ValidateOptions = {}): ValidationResult {
+  const parsed = workupInputSchema.safeParse(options.stored ? withoutUnknownKeys(workupInputSchema, input).value : input);
   if (!parsed.success) {
     return { success: false, issues: parsed.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })) };
   }
-  const issues = checkLibraryReferences(parsed.data, resolveLibrary(options));
+  const lib = resolveLibrary(options);
+  if (options.stored) {
+    for (const c of parsed.data.components) for (const key of Object.keys(c.logK)) if (!lib.solvents[key]) delete c.logK[key];
+  }
+  const issues = checkLibraryReferences(parsed.data, lib);
   return issues.length > 0 ? { success: false, issues } : { success: true, data: parsed.data };
 }
 
@@ -81,7 +96,14 @@ export function checkLibraryReferences(w: WorkupInput, lib: Library): Validation
     }
     if ((op.type === "dry" || op.type === "filter") && op.rinse) solvent(`${p}.rinse.solvent`, op.rinse.solvent);
   });
+  if (issues.length === 0) issues.push(...checkLayerSequence(w, lib));
+  const solventKeys = Object.keys(lib.solvents);
   w.components.forEach((c, i) => {
+    for (const key of Object.keys(c.logK)) {
+      if (lib.solvents[key]) continue;
+      const near = suggestKey(key, solventKeys);
+      issues.push({ path: `components.${i}.logK.${key}`, message: `log K for unknown solvent '${key}'${near ? `; did you mean '${near}'?` : ""}` });
+    }
     if (!c.logP && Object.keys(c.logK).length === 0) issues.push({ path: `components.${i}.logP`, message: `component '${c.key}' needs logP or a logK for a solvent` });
   });
   return issues;

@@ -5,6 +5,7 @@
  * Parsed (output) fields carry their canonical unit in the name: volumeMl, massG, amountMmol, temperatureC.
  */
 import { z } from "zod";
+import { strictObject } from "./schema-strict";
 import { amountSchema, massSchema, pHSchema, pressureSchema, temperatureSchema, volumeSchema } from "./schema-quantities";
 
 const key = (label: string) => z.string({ error: `${label} is required` }).trim().min(1, { error: `${label} is required` });
@@ -17,8 +18,7 @@ const portions = z
   .default(1);
 const liquidLayer = z.enum(["organic", "aqueous"], { error: () => "keep must be 'organic' or 'aqueous'" });
 
-export const observationSchema = z
-  .object({
+export const observationSchema = strictObject({
     pH: pHSchema("observed pH").optional(),
     volumeOrganic: volumeSchema("observed organic volume").optional(),
     volumeAqueous: volumeSchema("observed aqueous volume").optional(),
@@ -45,17 +45,17 @@ function withCommon<T extends { temperature?: number | undefined }>(o: T) {
   return { ...rest, temperatureC: temperature };
 }
 
-const charge = z.object({ type: z.literal("charge"), solvent: key("solvent"), volume: volumeSchema(), ...common })
+const charge = strictObject({ type: z.literal("charge"), solvent: key("solvent"), volume: volumeSchema(), ...common })
   .transform(({ volume, ...o }) => ({ ...withCommon(o), volumeMl: volume }));
 
-const reactiveSpecies = z.object({
+const reactiveSpecies = strictObject({
   name: key("reactive species name"),
   amount: amountSchema("reactive species amount"),
   /** mol of gas (H₂ for hydrides and active metals) released per mol quenched; omitted = not estimated. */
   gasPerMol: z.number().min(0).max(10).optional(),
 }).transform(({ amount, ...r }) => ({ ...r, amountMmol: amount }));
 
-const quench = z.object({
+const quench = strictObject({
   type: z.literal("quench"),
   reagent: key("reagent"),
   volume: volumeSchema().optional(),
@@ -66,55 +66,55 @@ const quench = z.object({
 }).refine((o) => o.volume !== undefined || o.amount !== undefined, { error: "quench needs a volume or an amount of reagent", path: ["volume"] })
   .transform(({ volume, amount, ...o }) => ({ ...withCommon(o), volumeMl: volume, amountMmol: amount }));
 
-const wash = z.object({
+const wash = strictObject({
   type: z.literal("wash"), reagent: key("reagent"), volume: volumeSchema("volume per portion"), portions,
   keep: liquidLayer.default("organic"), saveAs: streamName.optional(), ...common,
 }).transform(({ volume, ...o }) => ({ ...withCommon(o), volumeMl: volume }));
 
-const extract = z.object({
+const extract = strictObject({
   type: z.literal("extract"), solvent: key("solvent"), volume: volumeSchema("volume per portion"), portions,
   keep: liquidLayer.default("organic"), saveAs: streamName.optional(), ...common,
 }).transform(({ volume, ...o }) => ({ ...withCommon(o), volumeMl: volume }));
 
-const backExtract = z.object({
+const backExtract = strictObject({
   type: z.literal("back_extract"), reagent: key("reagent"), volume: volumeSchema("volume per portion"), portions,
   keep: liquidLayer.default("aqueous"), saveAs: streamName.optional(), ...common,
 }).transform(({ volume, ...o }) => ({ ...withCommon(o), volumeMl: volume }));
 
-const separate = z.object({ type: z.literal("separate"), keep: liquidLayer, saveAs: streamName.optional(), ...common })
+const separate = strictObject({ type: z.literal("separate"), keep: liquidLayer, saveAs: streamName.optional(), ...common })
   .transform(withCommon);
 
-const combine = z.object({
+const combine = strictObject({
   type: z.literal("combine"),
   streams: z.array(streamName).min(1, { error: "combine needs at least one saved stream" }),
   ...common,
 }).transform(withCommon);
 
-const adjustPh = z.object({
+const adjustPh = strictObject({
   type: z.literal("adjust_ph"), reagent: key("reagent"), volume: volumeSchema().optional(), amount: amountSchema().optional(),
   targetPh: pHSchema("targetPh").optional(), ...common,
 }).refine((o) => [o.volume, o.amount, o.targetPh].filter((v) => v !== undefined).length === 1, {
   error: "adjust_ph needs exactly one of volume, amount or targetPh", path: ["volume"],
 }).transform(({ volume, amount, ...o }) => ({ ...withCommon(o), volumeMl: volume, amountMmol: amount }));
 
-const addSalt = z.object({
+const addSalt = strictObject({
   type: z.literal("add_salt"), salt: key("salt"), mass: massSchema().optional(), saturate: z.boolean().optional(), ...common,
 }).refine((o) => (o.mass !== undefined) !== (o.saturate === true), { error: "add_salt needs either a mass or saturate: true", path: ["mass"] })
   .transform(({ mass, ...o }) => ({ ...withCommon(o), massG: mass, saturate: o.saturate ?? false }));
 
-const removeCosolvent = z.object({
+const removeCosolvent = strictObject({
   type: z.literal("remove_cosolvent"), solvent: key("solvent"),
   fractionRemoved: z.number().gt(0, { error: "fractionRemoved must be > 0" }).max(1, { error: "fractionRemoved must be ≤ 1" }).default(0.95),
   ...common,
 }).transform(withCommon);
 
-const rinse = z.object({ solvent: key("rinse solvent"), volume: volumeSchema("rinse volume") })
+const rinse = strictObject({ solvent: key("rinse solvent"), volume: volumeSchema("rinse volume") })
   .transform(({ volume, solvent }) => ({ solvent, volumeMl: volume }));
 
-const dry = z.object({ type: z.literal("dry"), agent: key("agent"), mass: massSchema().optional(), rinse: rinse.optional(), ...common })
+const dry = strictObject({ type: z.literal("dry"), agent: key("agent"), mass: massSchema().optional(), rinse: rinse.optional(), ...common })
   .transform(({ mass, ...o }) => ({ ...withCommon(o), massG: mass }));
 
-const filter = z.object({
+const filter = strictObject({
   type: z.literal("filter"),
   keep: z.enum(["filtrate", "solid"], { error: () => "keep must be 'filtrate' or 'solid'" }).default("filtrate"),
   /** Components the chemist saw (or expects) as a solid; they go to the solid fraction. */
@@ -125,7 +125,7 @@ const filter = z.object({
   ...common,
 }).transform(({ cakeMass, ...o }) => ({ ...withCommon(o), cakeMassG: cakeMass }));
 
-const concentrate = z.object({
+const concentrate = strictObject({
   type: z.literal("concentrate"),
   method: z.enum(["rotavap", "high_vacuum", "n2_stream", "distillation"]).default("rotavap"),
   bath: temperatureSchema("bath temperature").optional(),

@@ -4,6 +4,7 @@
  * show them beside it ("volume must be > 0").
  */
 import { z } from "zod";
+import { strictObject } from "./schema-strict";
 import { toCanonical, unitsOf, type UnitName } from "./units";
 
 function unitEnum(dimension: Parameters<typeof unitsOf>[0]) {
@@ -15,8 +16,7 @@ const finite = (label: string) =>
   z.number({ error: `${label} must be a number` }).refine(Number.isFinite, { error: `${label} must be finite` });
 
 function quantity(dimension: Parameters<typeof unitsOf>[0], label: string, check: (canonical: number) => string | null) {
-  return z
-    .object({ value: finite(label), unit: unitEnum(dimension) })
+  return strictObject({ value: finite(label), unit: unitEnum(dimension) })
     .transform((q, ctx) => {
       const canonical = toCanonical(q.value, q.unit);
       const problem = check(canonical);
@@ -45,10 +45,20 @@ export const temperatureSchema = (label = "temperature") =>
 export const pressureSchema = (label = "pressure") =>
   quantity("pressure", label, (mbar) => (mbar <= 0 || mbar > 1100 ? `${label} must be > 0 and ≤ 1100 mbar` : null));
 
+/** Largest component amount accepted: 10 kmol or 1,000 kg (far beyond a bench or kilo-lab work-up). */
+export const MAX_COMPONENT_MMOL = 1e7;
+export const MAX_COMPONENT_G = 1e6;
+
 /** A component amount may be given as an amount (mmol, mol) or a mass (mg, g); converted with the molar mass. */
-export const componentAmountSchema = z.object({
+export const componentAmountSchema = strictObject({
   value: finite("amount").refine((v) => v >= 0, { error: "amount must be ≥ 0" }),
   unit: z.enum(["umol", "mmol", "mol", "mg", "g"], { error: () => "amount unit must be one of umol, mmol, mol, mg, g" }),
+}).superRefine((a, ctx) => {
+  const mass = a.unit === "mg" || a.unit === "g";
+  const canonical = toCanonical(a.value, a.unit);
+  if (mass ? canonical > MAX_COMPONENT_G : canonical > MAX_COMPONENT_MMOL) {
+    ctx.addIssue({ code: "custom", path: ["value"], message: `amount must be ≤ ${mass ? "1000 kg" : "10 kmol"} (got ${a.value} ${a.unit})` });
+  }
 });
 
 export const pHSchema = (label = "pH") =>

@@ -8,6 +8,8 @@ import { componentAmountSchema, finiteNumber, pHSchema, massSchema, temperatureS
 import { operationSchema } from "./schema-operations";
 import { COUNTER_ION_KEYS, saltMolarMass } from "./data/counter-ions";
 import { parentMolarMass, saltFromSmiles } from "./salt-smiles";
+import { planOptionsSchema } from "./schema-plan";
+import { strictObject } from "./schema-strict";
 import { toMmol } from "./units";
 
 export const PROVENANCES = ["measured", "literature", "estimated", "group"] as const;
@@ -21,7 +23,7 @@ export const COMPONENT_TAGS = [
 const provenance = z.enum(PROVENANCES, { error: () => `provenance must be one of ${PROVENANCES.join(", ")}` });
 const standardError = z.number().positive({ error: "se must be > 0" }).max(5, { error: "se must be ≤ 5" });
 
-export const logValueSchema = z.object({
+export const logValueSchema = strictObject({
   value: finiteNumber("log value").refine((v) => v >= -15 && v <= 15, { error: "log value must be between −15 and 15" }),
   provenance,
   source: z.string().max(500).optional(),
@@ -30,7 +32,7 @@ export const logValueSchema = z.object({
   n: z.number().int().min(1).optional(),
 });
 
-export const pKaSchema = z.object({
+export const pKaSchema = strictObject({
   value: finiteNumber("pKa").refine((v) => v >= -12 && v <= 30, { error: "pKa must be between −12 and 30" }),
   /** "acid": HA ⇌ A⁻ + H⁺. "base": the value is the pKa of the conjugate acid BH⁺. */
   kind: z.enum(["acid", "base"], { error: () => "pKa kind must be 'acid' or 'base'" }),
@@ -41,14 +43,14 @@ export const pKaSchema = z.object({
 
 const descriptor = (name: string, min: number, max: number) =>
   finiteNumber(name).refine((v) => v >= min && v <= max, { error: `${name} must be between ${min} and ${max}` });
-export const abrahamDescriptorsSchema = z.object({
+export const abrahamDescriptorsSchema = strictObject({
   E: descriptor("E", -2, 6), S: descriptor("S", -1, 10), A: descriptor("A", 0, 3), B: descriptor("B", 0, 6),
   V: descriptor("V", 0.1, 10), L: descriptor("L", -2, 40).optional(),
   provenance,
   source: z.string().max(500).optional(),
 });
 
-export const componentSchema = z.object({
+export const componentSchema = strictObject({
   key: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, { error: "key must be 1–64 letters, digits, '_', '-' or '.'" }),
   name: z.string().trim().min(1, { error: "name is required" }).max(200),
   role: z.enum(ROLES, { error: () => `role must be one of ${ROLES.join(", ")}` }),
@@ -77,7 +79,7 @@ export const componentSchema = z.object({
    * hydrochloride, { counterIon: "sodium" } for a sodium carboxylate, perParent 2 for a dihydrochloride).
    * Without it, a multi-fragment `smiles` naming a known counter-ion ("NCc1ccccc1.Cl") sets it, and `molarMass`
    * is then read as the whole salt's (salt-smiles.ts). */
-  salt: z.object({
+  salt: strictObject({
     counterIon: z.enum(COUNTER_ION_KEYS, { error: () => `counterIon must be one of ${COUNTER_ION_KEYS.join(", ")}` }),
     perParent: z.number().positive({ error: "perParent must be > 0" }).max(4, { error: "perParent must be ≤ 4" }).default(1),
   }).optional(),
@@ -85,7 +87,7 @@ export const componentSchema = z.object({
   setschenowK: z.number().min(-0.5).max(1).optional(),
   bpC: z.number().min(-200).max(800).optional(),
   /** Intrinsic solubility of the neutral form in water, and solubility in the organic solvent, mg/mL. */
-  solubility: z.object({ water: z.number().positive().optional(), organic: z.number().positive().optional() }).optional(),
+  solubility: strictObject({ water: z.number().positive().optional(), organic: z.number().positive().optional() }).optional(),
   labile: z.array(z.enum(["acid", "base"])).default([]),
   chelating: z.boolean().default(false),
   surfactant: z.boolean().default(false),
@@ -105,16 +107,16 @@ export const componentSchema = z.object({
   };
 });
 
-const mixtureSchema = z.object({
+const mixtureSchema = strictObject({
   /** Reaction solvents (and water) present at the start of the work-up. */
-  solvents: z.array(z.object({ solvent: z.string().trim().min(1, { error: "solvent is required" }), volume: volumeSchema() })
+  solvents: z.array(strictObject({ solvent: z.string().trim().min(1, { error: "solvent is required" }), volume: volumeSchema() })
     .transform(({ solvent, volume }) => ({ solvent, volumeMl: volume }))).default([]),
   /** Aqueous reagents already in the mixture (e.g. the base of a saponification). */
-  reagents: z.array(z.object({ reagent: z.string().trim().min(1), volume: volumeSchema() })
+  reagents: z.array(strictObject({ reagent: z.string().trim().min(1), volume: volumeSchema() })
     .transform(({ reagent, volume }) => ({ reagent, volumeMl: volume }))).default([]),
 });
 
-const outcomeSchema = z.object({
+const outcomeSchema = strictObject({
   crudeMass: massSchema("crude mass").optional(),
   purityPct: z.number().min(0).max(100, { error: "purityPct must be ≤ 100" }).optional(),
   purityMethod: z.enum(["qnmr_internal_standard", "hplc_calibrated", "hplc_area", "nmr_no_standard", "none"]).optional(),
@@ -123,7 +125,21 @@ const outcomeSchema = z.object({
   observedPh: pHSchema().optional(),
 }).transform(({ crudeMass, ...o }) => ({ ...o, crudeMassG: crudeMass }));
 
-export const workupInputSchema = z.object({
+/**
+ * Idealisations for comparisons with textbook arithmetic; every default is the full model.
+ * - idealPhases: solvent and water mutually insoluble (no volume change, no solvent carried across).
+ * - noSaltingOut: salts leave every component's partition coefficient unchanged (Setschenow constant 0).
+ * - noIonPartition: charged forms stay in the water (only the neutral form partitions).
+ */
+export const idealisationsSchema = strictObject({
+  idealPhases: z.boolean({ error: "idealPhases must be true or false" }).default(false),
+  noSaltingOut: z.boolean({ error: "noSaltingOut must be true or false" }).default(false),
+  noIonPartition: z.boolean({ error: "noIonPartition must be true or false" }).default(false),
+});
+
+export type Idealisations = z.output<typeof idealisationsSchema>;
+
+export const workupInputSchema = strictObject({
   name: z.string().max(200).optional(),
   temperature: temperatureSchema().optional(),
   components: z.array(componentSchema).min(1, { error: "at least one component is required" }).max(50),
@@ -132,6 +148,9 @@ export const workupInputSchema = z.object({
   /** Separatory funnel capacity, for the gas-headspace check (F13). */
   funnel: volumeSchema("funnel volume").optional(),
   outcome: outcomeSchema.optional(),
+  /** Options for the planner (`layerwise plan`); kept with the spec, not used by a prediction. */
+  plan: planOptionsSchema.optional(),
+  options: idealisationsSchema.optional(),
 }).superRefine((w, ctx) => {
   const seen = new Set<string>();
   w.components.forEach((c, i) => {
@@ -159,7 +178,15 @@ export const workupInputSchema = z.object({
   if (w.mixture.solvents.length === 0 && w.mixture.reagents.length === 0 && w.operations[0]?.type !== "charge") {
     ctx.addIssue({ code: "custom", path: ["mixture", "solvents"], message: "the mixture needs a solvent, or the first operation must charge one" });
   }
-}).transform(({ temperature, funnel, ...w }) => ({ ...w, temperatureC: temperature ?? 20, funnelMl: funnel }));
+}).transform(({ temperature, funnel, options, ...w }) => {
+  const o = options ?? { idealPhases: false, noSaltingOut: false, noIonPartition: false };
+  // Applied here, once, so the simulator and the Monte-Carlo draws compute on the idealised components as given:
+  // a Setschenow constant of 0 removes salting out; an ion offset of −∞ gives the charged forms K = 0.
+  const components = o.noSaltingOut || o.noIonPartition
+    ? w.components.map((c) => ({ ...c, ...(o.noSaltingOut ? { setschenowK: 0 } : {}), ...(o.noIonPartition ? { ionLogKOffset: -Infinity } : {}) }))
+    : w.components;
+  return { ...w, components, options: o, temperatureC: temperature ?? 20, funnelMl: funnel };
+});
 
 export type WorkupInputRaw = z.input<typeof workupInputSchema>;
 export type WorkupInput = z.output<typeof workupInputSchema>;

@@ -54,7 +54,7 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
   for (const w of workups) {
     await yieldToEventLoop();
     try {
-      const computed = computePrediction(w.spec, { library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {} });
+      const computed = computePrediction(w.spec, { library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {}, stored: true });
       const flags = computed.result.prediction.flags;
       const analysis = w.outcome
         ? analyzeOutcome({ outcome: w.outcome, header: w, spec: computed.parsed, library, prediction: { ...computed, workupVersion: w.version, flags } })

@@ -47,7 +47,7 @@ export async function planInferences(db: Db, groupId: string, workupIds: readonl
     const analysis = w.outcome?.analysis as Partial<OutcomeAnalysis> | undefined;
     let spec;
     try {
-      spec = applyGroupValues(parseSpec(w.spec, library), values.get(w.id));
+      spec = applyGroupValues(parseSpec(w.spec, library, "spec", true), values.get(w.id));
     } catch {
       plans.push({ workupId: w.id, compoundId: null, temperatureC: 25, inference: null, details: {} });
       continue;

@@ -2,7 +2,8 @@
  * A stored workup (header, the spec as saved, compound links) as editor state. Read defensively: a spec saved by an
  * older version, an import or a script may not fit today's schema, and the editor is where it gets fixed.
  */
-import { PROVENANCES, ROLES, type ComponentRole, type OperationType, type Provenance } from "@/lib/chem/schema";
+import { PROVENANCES, ROLES, workupInputSchema, type ComponentRole, type OperationType, type Provenance } from "@/lib/chem/schema";
+import { withoutUnknownKeys } from "@/lib/chem/schema-strict";
 import type { JsonObject, JsonValue, SnapshotHeader } from "@/lib/workups/record";
 import { stepIdOf, withStepIds } from "@/lib/workups/step-ids";
 import { newClientId } from "./ids";
@@ -101,7 +102,10 @@ export function headerOf(h: SnapshotHeader): HeaderState {
   };
 }
 
-export function editorStateOf(header: SnapshotHeader, spec: JsonObject, links: { key: string; compoundId: string | null }[]): EditorState {
+export function editorStateOf(header: SnapshotHeader, stored: JsonObject, links: { key: string; compoundId: string | null }[]): EditorState {
+  // Keys the schema does not know (accepted by an older version) are left behind: a save would refuse them, and no
+  // field of the editor could show or remove them.
+  const spec = asRecord(withoutUnknownKeys(workupInputSchema, stored).value as JsonValue);
   const linkMap = new Map(links.map((l) => [l.key, l.compoundId]));
   const mixture = asRecord(spec.mixture);
   const { components: _c, mixture: _m, operations: _o, name, temperature, funnel, ...extra } = spec;

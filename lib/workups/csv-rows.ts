@@ -1,5 +1,7 @@
 // Reading one CSV row (columns: csv-columns.ts) into the shared schemas' inputs: header, spec (as JSON or from a
 // template workup), compound links and outcome, with every problem named by its CSV column.
+import { workupInputSchema } from "@/lib/chem/schema";
+import { withoutUnknownKeys } from "@/lib/chem/schema-strict";
 import { type Db } from "@/lib/db/client";
 import { ValidationError } from "@/lib/errors";
 import { createWorkupSchema, outcomeInputSchema, type CreateWorkup, type OutcomeInput } from "./schemas";
@@ -71,7 +73,8 @@ function readSpec(cells: Record<string, string>, context: RowContext, fail: (col
     return found && found !== "ambiguous" ? found : none;
   }
   try {
-    return { spec: JSON.parse(specText) as unknown, links: [] };
+    // A byte-order mark pasted in with the JSON (from a file saved by a Windows editor) is not part of it.
+    return { spec: JSON.parse(specText.replace(/^\uFEFF/, "")) as unknown, links: [] };
   } catch (e) {
     fail("spec_json", `not valid JSON (${e instanceof Error ? e.message : "parse error"})`);
     return none;
@@ -118,7 +121,8 @@ export async function templateLookup(db: Db, groupId: string, names: string[]): 
   });
   const map = new Map<string, Template>();
   for (const w of rows) {
-    const template = { spec: w.spec, links: w.components.filter((c) => c.compoundId !== null).map((c) => ({ key: c.key, compoundId: c.compoundId })) };
+    // A stored spec may carry keys an older version accepted; the template reuses only what the schema knows.
+    const template = { spec: withoutUnknownKeys(workupInputSchema, w.spec).value, links: w.components.filter((c) => c.compoundId !== null).map((c) => ({ key: c.key, compoundId: c.compoundId })) };
     map.set(w.id, template);
     if (wanted.includes(w.title)) map.set(w.title, map.has(w.title) ? "ambiguous" : template);
   }

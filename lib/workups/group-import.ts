@@ -8,6 +8,7 @@ import { createHash } from "node:crypto";
 import { type Db } from "@/lib/db/client";
 import { isThumbnail, sniffType } from "@/lib/attachments/content";
 import { workupInputSchema } from "@/lib/chem/schema";
+import { withoutUnknownKeys } from "@/lib/chem/schema-strict";
 import { ConflictError, ValidationError, parseInput, type FieldErrors } from "@/lib/errors";
 import { audit } from "./audit";
 import { LONG_TRANSACTION, type Actor } from "./context";
@@ -59,7 +60,9 @@ function checkConsistency(doc: GroupExport): void {
     w.components.forEach((c, j) => {
       if (c.compound !== null && !compounds.has(c.compound)) complain(`workups.${i}.components.${j}.compound`, `no compound with ref '${c.compound}'`);
     });
-    const spec = workupInputSchema.safeParse(w.spec);
+    // The specs are the exporting app's stored records: keys an older version accepted are dropped, as on every
+    // re-read of stored data (validateWorkup's `stored`), not refused.
+    const spec = workupInputSchema.safeParse(withoutUnknownKeys(workupInputSchema, w.spec).value);
     if (!spec.success) for (const issue of spec.error.issues) complain(`workups.${i}.spec.${issue.path.join(".")}`, issue.message);
     if (!w.versions.some((v) => v.version === w.version)) complain(`workups.${i}.versions`, `no snapshot of the current version ${w.version}`);
   });

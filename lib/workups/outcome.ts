@@ -62,7 +62,7 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
     if (!workup) throw new NotFoundError("workup");
     const library = await groupLibrary(db, actor.groupId);
     // The causes are re-runs of the prediction, so they start from the same input: the group's values overlaid.
-    const spec = applyGroupValues(parseSpec(workup.spec, library), await groupValuesForLinks(db, actor.groupId, workup.components));
+    const spec = applyGroupValues(parseSpec(workup.spec, library, "spec", true), await groupValuesForLinks(db, actor.groupId, workup.components));
     checkAssays(outcome, spec);
     const stored = workup.predictions[0];
     const prediction: PredictionFacts | null = stored

@@ -55,9 +55,13 @@ export function seedFromId(id: string): number {
   return (hash % 0x7ffffffe) + 1;
 }
 
-/** Validates a raw spec against the schema and the group's library; problems become 422 field errors under `spec.`. */
-export function parseSpec(spec: unknown, library: LibraryOverrides, prefix = "spec"): WorkupInput {
-  const checked = validateWorkup(spec, library);
+/**
+ * Validates a raw spec against the schema and the group's library; problems become 422 field errors under `spec.`.
+ * `stored`: the spec is one the app saved earlier, read tolerantly (validateWorkup's `stored`); input from a
+ * person or a client is always read strictly.
+ */
+export function parseSpec(spec: unknown, library: LibraryOverrides, prefix = "spec", stored = false): WorkupInput {
+  const checked = validateWorkup(spec, { ...library, stored });
   if (checked.success) return checked.data;
   const fields: FieldErrors = {};
   for (const issue of checked.issues) (fields[issue.path ? `${prefix}.${issue.path}` : prefix] ??= []).push(issue.message);
@@ -72,11 +76,13 @@ export interface PredictionOptions {
   groupValues?: GroupValues;
   /** Flags found outside the engine (site-flags.ts: N–H/O–H groups no site class recognised), shown with the engine's. */
   extraFlags?: Flag[];
+  /** The spec was stored by the app (a saved version re-predicted): read tolerantly, see parseSpec. */
+  stored?: boolean;
 }
 
 /** Point prediction (with steps, flags and cautions) and, when draws > 0, the Monte Carlo interval. */
 export function computePrediction(spec: unknown, options: PredictionOptions): ComputedPrediction {
-  const parsed = applyGroupValues(parseSpec(spec, options.library), options.groupValues);
+  const parsed = applyGroupValues(parseSpec(spec, options.library, "spec", options.stored ?? false), options.groupValues);
   const engine: PredictOptions = { ...options.library };
   const simulated = simulateWorkup(parsed, engine);
   const prediction = options.extraFlags?.length ? { ...simulated, flags: [...simulated.flags, ...options.extraFlags] } : simulated;

@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { workupInputSchema } from "@/lib/chem/schema";
+import { strictObject } from "@/lib/chem/schema-strict";
 
 export const PURITY_METHODS = ["qnmr", "hplc", "gc", "weight_only"] as const;
 export type PurityMethodName = (typeof PURITY_METHODS)[number];
@@ -29,7 +30,7 @@ const recordId = (label: string) =>
 export const isoDateSchema = (label: string) =>
   z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` }).transform((day) => new Date(`${day}T00:00:00.000Z`));
 
-export const workupHeaderSchema = z.object({
+export const workupHeaderSchema = strictObject({
   title: z.string({ error: "title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "title must be ≤ 200 characters" }),
   performedOn: isoDateSchema("performedOn"),
   /** A member of the group; null or omitted when not recorded. */
@@ -45,7 +46,7 @@ export const workupHeaderSchema = z.object({
 });
 
 /** Which registered compound each spec component is (by the component's key in the spec). */
-export const componentLinkSchema = z.object({
+export const componentLinkSchema = strictObject({
   key: z.string({ error: "key is required" }).trim().min(1, { error: "key is required" }).max(64),
   compoundId: recordId("compoundId").nullable(),
 });
@@ -70,11 +71,10 @@ function linksMatchSpec(
 }
 
 /** Body of a create: header, the engine's spec (units at every quantity) and compound links. */
-export const createWorkupSchema = z.object(saveFields).superRefine(linksMatchSpec);
+export const createWorkupSchema = strictObject(saveFields).superRefine(linksMatchSpec);
 
 /** Body of an update: the same, plus the version the editor opened (a stale one is refused with 409). */
-export const updateWorkupSchema = z
-  .object({
+export const updateWorkupSchema = strictObject({
     ...saveFields,
     baseVersion: z.number({ error: "baseVersion must be the version number you opened" }).int().min(1, { error: "baseVersion must be ≥ 1" }),
   })
@@ -83,7 +83,7 @@ export const updateWorkupSchema = z
 export const LAYER_PHASES = ["organic", "aqueous", "emulsion", "solid"] as const;
 
 /** Assay of the product (or another component) in one stream of one step, to locate losses (workup-practice §5.1). */
-export const layerAssaySchema = z.object({
+export const layerAssaySchema = strictObject({
   step: z.number({ error: "step must be a number" }).int({ error: "step must be a whole number" }).min(1, { error: "step must be ≥ 1" }).max(200),
   phase: z.enum(LAYER_PHASES, { error: () => `phase must be one of ${LAYER_PHASES.join(", ")}` }),
   /** Spec component key; the product when omitted. */
@@ -93,8 +93,7 @@ export const layerAssaySchema = z.object({
   portion: z.number().int().min(1).max(50).optional(),
 });
 
-export const outcomeInputSchema = z
-  .object({
+export const outcomeInputSchema = strictObject({
     isolatedMassMg: z
       .number({ error: "isolatedMassMg must be a number (mg)" })
       .min(0, { error: "isolatedMassMg must be ≥ 0 mg" })
@@ -137,7 +136,7 @@ export const workupListFilterFields = z
 export const workupListFilterSchema = workupListFilterFields.refine((f) => !f.from || !f.to || f.from <= f.to, { error: "the start date must not be after the end date", path: ["to"] });
 
 /** Prediction without saving (POST /api/v1/predict). */
-export const predictRequestSchema = z.object({
+export const predictRequestSchema = strictObject({
   spec: workupInputSchema,
   /** Monte Carlo draws for the interval; 0 skips the interval. */
   draws: z.number().int().min(0).max(2000, { error: "draws must be ≤ 2000" }).default(400),

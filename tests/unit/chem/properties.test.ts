@@ -30,6 +30,28 @@ const op: fc.Arbitrary<Op> = fc.oneof(
   fc.record({ type: fc.constant("filter" as const), cakeMass: fc.double({ min: 0.1, max: 5, noNaN: true }).map((value) => ({ value, unit: "g" as const })) }),
 );
 
+/**
+ * A step on a layer an earlier step removed is refused (lib/chem/layer-sequence.ts), so the generated sequence gets
+ * the missing layer charged back first: water before an extraction, ethyl acetate before a wash, separation or drying.
+ */
+function withLayers(ops: Op[]): Op[] {
+  const out: Op[] = [];
+  let organic = true, aqueous = true;
+  const keepOnly = (keep: "organic" | "aqueous") => { organic = keep === "organic"; aqueous = keep === "aqueous"; };
+  for (const op of ops) {
+    const needsOrganic = op.type === "wash" || op.type === "back_extract" || op.type === "separate" || op.type === "dry";
+    if (needsOrganic && !organic) { out.push({ type: "charge", solvent: "etoac", volume: mL(30) }); organic = true; }
+    if ((op.type === "extract" || op.type === "separate") && !aqueous) { out.push({ type: "charge", solvent: "water", volume: mL(30) }); aqueous = true; }
+    out.push(op);
+    if (op.type === "wash" || op.type === "extract") keepOnly(op.keep ?? "organic");
+    else if (op.type === "back_extract") keepOnly(op.keep ?? "aqueous");
+    else if (op.type === "separate") keepOnly(op.keep);
+    else if (op.type === "charge") { if (op.solvent === "water") aqueous = true; else organic = true; }
+    else if (op.type === "adjust_ph") aqueous = true;
+  }
+  return out;
+}
+
 const workupArb = fc.record({
   components: fc.integer({ min: 1, max: 4 }).chain((n) => fc.tuple(...Array.from({ length: n }, (_, i) => component(i)))),
   solvents: fc.subarray(["etoac", "dcm", "thf", "water", "dmf", "et2o"], { minLength: 1 }).chain((keys) => fc.tuple(...keys.map((k) => volume.map((v) => ({ solvent: k, volume: v }))))),
@@ -37,11 +59,9 @@ const workupArb = fc.record({
   save: fc.boolean(),
   concentrate: fc.boolean(),
 }).map(({ components, solvents, ops, save, concentrate }): WorkupInputRaw => {
-  const operations: Op[] = [...ops];
-  if (save) {
-    operations.unshift({ type: "wash", reagent: "water", volume: mL(20), saveAs: "kept aside" });
-    operations.push({ type: "combine", streams: ["kept aside"] });
-  }
+  const operations: Op[] = save ? [{ type: "wash", reagent: "water", volume: mL(20), saveAs: "kept aside" }, ...ops] : [...ops];
+  operations.splice(0, operations.length, ...withLayers(operations));
+  if (save) operations.push({ type: "combine", streams: ["kept aside"] });
   if (concentrate) operations.push({ type: "concentrate" });
   return { components, mixture: { solvents }, operations };
 });
