@@ -158,6 +158,7 @@ const adjustPh: Handler<"adjust_ph"> = (sim, op, step) => {
     const found = volumeForTargetPh(sim, r, target);
     v = found.volumeMl;
     if (found.outcome === "already") details.alreadyAtTarget = true;
+    else if (found.outcome === "wrong_direction") Object.assign(details, { wrongDirection: true, startPh: found.startPh });
     else details.targetReached = found.outcome === "reached";
   }
   const fresh = sim.freshReagent(r, v);

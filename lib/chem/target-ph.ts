@@ -11,9 +11,17 @@ import { type Simulator } from "./simulator";
 
 export interface TargetPhVolume {
   volumeMl: number;
-  /** "already": the stream is at or past the target; "short": even the largest volume does not reach it. */
-  outcome: "already" | "reached" | "short";
+  /**
+   * "already": the stream is within AT_TARGET_PH of the target; "wrong_direction": the reagent moves the pH away
+   * from the target (nothing is added); "short": even the largest volume does not reach it.
+   */
+  outcome: "already" | "reached" | "short" | "wrong_direction";
+  /** pH of the stream before any reagent. */
+  startPh: number;
 }
+
+/** A stream this close to the target pH needs no adjustment (the reading of a calibrated meter, ±0.05; common practice). */
+export const AT_TARGET_PH = 0.05;
 
 export function volumeForTargetPh(sim: Simulator, r: CompiledReagent, target: number): TargetPhVolume {
   const mixWith = (vol: number) => {
@@ -31,7 +39,8 @@ export function volumeForTargetPh(sim: Simulator, r: CompiledReagent, target: nu
   const least = 1e-9;
   const start = phWith(least);
   const raising = reagentPh(r) > start;
-  if (!((raising ? target - start : start - target) > 0)) return { volumeMl: 0, outcome: "already" };
+  if (Math.abs(target - start) <= AT_TARGET_PH) return { volumeMl: 0, outcome: "already", startPh: start };
+  if (raising !== target > start) return { volumeMl: 0, outcome: "wrong_direction", startPh: start };
   // Still short of the target at volume `vol` when positive.
   const byCharge = (sim.current.sys[CARBONATE] as number) === 0 && (r.systems[CARBONATE] as number) === 0;
   const shortfall = byCharge
@@ -39,8 +48,8 @@ export function volumeForTargetPh(sim: Simulator, r: CompiledReagent, target: nu
     : (vol: number) => (raising ? target - phWith(vol) : phWith(vol) - target);
   const most = Math.max(1, sim.current.totalVolume()) * 10;
   const sMost = shortfall(most);
-  if (sMost > 0) return { volumeMl: most, outcome: "short" };
-  return { volumeMl: volumeToTarget(shortfall, least, shortfall(least), most, sMost, !byCharge), outcome: "reached" };
+  if (sMost > 0) return { volumeMl: most, outcome: "short", startPh: start };
+  return { volumeMl: volumeToTarget(shortfall, least, shortfall(least), most, sMost, !byCharge), outcome: "reached", startPh: start };
 }
 
 /**

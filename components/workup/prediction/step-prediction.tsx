@@ -92,5 +92,6 @@ const DETAIL_WORDS: Record<string, (v: number) => string> = {
 function StepDetails({ details }: { details: StepResult["details"] }) {
   const lines = Object.entries(details).flatMap(([k, v]) => (typeof v === "number" && DETAIL_WORDS[k] ? [DETAIL_WORDS[k](v)] : [])).filter(Boolean);
   if (details.targetReached === false) lines.unshift("the target pH could not be reached with this reagent");
+  if (details.wrongDirection === true) lines.unshift("this reagent moves the pH away from the target, so none was added");
   return lines.length > 0 ? <p className="text-stone-600">{lines.join("; ")}.</p> : null;
 }

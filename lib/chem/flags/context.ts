@@ -78,3 +78,32 @@ export function flag(code: string, severity: Severity, title: string, cause: str
 export function effectivePh(ctx: FlagContext, t: ContactTrace): number {
   return operationOf(ctx, t.step)?.observed?.pH ?? t.pH;
 }
+
+/**
+ * Where an ampholyte (an acidic and a basic site) is best extracted: the pH range at least two units from both sites
+ * (the two-unit rule, common practice), around the isoelectric point pI = (pKa + pKaH)/2, the pH of the largest
+ * uncharged share (Atkins & de Paula, Physical Chemistry, "isoelectric point"). Null unless the product has both.
+ * `low > high` when the sites are closer than four units: then only the isoelectric point itself is worth naming.
+ */
+export interface IsoelectricWindow {
+  pI: number;
+  low: number;
+  high: number;
+  /** The acid's pKa lies below the base's pKaH: the neutral form is a zwitterion at every pH. */
+  zwitterion: boolean;
+}
+
+export function isoelectricWindow(p: ProductInfo): IsoelectricWindow | null {
+  if (p.acidPka === null || p.basePka === null) return null;
+  return { pI: (p.acidPka + p.basePka) / 2, low: p.basePka + 2, high: p.acidPka - 2, zwitterion: p.acidPka < p.basePka };
+}
+
+/** "pH 6.0–7.5 (isoelectric point ≈ 6.8)", or "pH ≈ 6.8, its isoelectric point" when no range is two units clear. */
+export function describeWindow(w: IsoelectricWindow): string {
+  return w.low <= w.high ? `pH ${w.low.toFixed(1)}–${w.high.toFixed(1)} (isoelectric point ≈ ${w.pI.toFixed(1)})` : `pH ≈ ${w.pI.toFixed(1)}, its isoelectric point`;
+}
+
+/** True when `pH` is inside the ampholyte's best window (or within half a unit of pI when there is no range). */
+export function insideWindow(w: IsoelectricWindow, pH: number): boolean {
+  return w.low <= w.high ? pH >= w.low && pH <= w.high : Math.abs(pH - w.pI) <= 0.5;
+}

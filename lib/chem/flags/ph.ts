@@ -1,13 +1,14 @@
 /** pH-driven failure modes: F1, F2, F3, F4, F16, F18 (workup-practice §3). */
 import { logDistributionRatio, isZwitterionic, type IonizableSite } from "../speciation";
 import { solventLogK } from "../partition";
-import { effectivePh, flag, pct, ph, productInfo, stepName, type Rule } from "./context";
+import { describeWindow, effectivePh, flag, insideWindow, isoelectricWindow, pct, ph, productInfo, stepName, type Rule } from "./context";
 
 /** F1/F2: a wash on the wrong side of the product's pKa, with > 5 % cumulative predicted loss. */
 export const washNearPka: Rule = (ctx) => {
   const p = productInfo(ctx);
   if (!p || p.startMmol <= 0) return [];
   const out = [];
+  const window = isoelectricWindow(p);
   for (const [code, pKa, acid] of [["F1", p.acidPka, true], ["F2", p.basePka, false]] as const) {
     if (pKa === null) continue;
     const hits = ctx.contacts.filter((t) => t.keep === "organic" && t.twoPhase && t.opType !== "extract"
@@ -19,7 +20,10 @@ export const washNearPka: Rule = (ctx) => {
       acid ? "Basic wash too close to the product's acidic pKa" : "Acidic wash too close to the product's basic pKa",
       `In ${stepName(ctx, first.step)} the aqueous layer is at pH ${ph(effectivePh(ctx, first))}, ${acid ? "above" : "below"} ${pKa - (acid ? 1.5 : -1.5)} ` +
       `(pKa${acid ? "" : "H"} ${pKa.toFixed(1)}), so part of ${p.component.name} is ${acid ? "deprotonated" : "protonated"} and leaves with the washes: about ${pct(loss)} predicted lost.`,
-      acid ? "Use a weaker or buffered base (bicarbonate rather than hydroxide), fewer or smaller washes, or acidify the combined washes and back-extract them."
+      // An ampholyte is recovered in its isoelectric window: acidifying it far below its acidic pKa, or basifying far
+      // above its basic pKaH, only charges its other site.
+      window ? `Use a milder wash (its pH nearer ${describeWindow(window)}), fewer or smaller washes, or bring the combined washes to ${describeWindow(window)} and back-extract them.`
+        : acid ? "Use a weaker or buffered base (bicarbonate rather than hydroxide), fewer or smaller washes, or acidify the combined washes and back-extract them."
         : "Skip the strong-acid wash or use a milder one; basify the combined acid washes to pH ≥ pKaH + 2 and re-extract them.",
       { step: first.step, component: p.component.key }));
   }
@@ -30,15 +34,20 @@ export const washNearPka: Rule = (ctx) => {
 export const extractionWrongPh: Rule = (ctx) => {
   const p = productInfo(ctx);
   if (!p) return [];
-  const t = ctx.contacts.find((c) => c.opType === "extract" && c.keep === "organic" && c.twoPhase && (
-    (p.acidPka !== null && effectivePh(ctx, c) > p.acidPka - 2) || (p.basePka !== null && effectivePh(ctx, c) < p.basePka + 2)));
+  const window = isoelectricWindow(p);
+  const wrong = (pH: number) => (window ? !insideWindow(window, pH)
+    : (p.acidPka !== null && pH > p.acidPka - 2) || (p.basePka !== null && pH < p.basePka + 2));
+  const t = ctx.contacts.find((c) => c.opType === "extract" && c.keep === "organic" && c.twoPhase && wrong(effectivePh(ctx, c)));
   if (!t) return [];
-  const acid = p.acidPka !== null && effectivePh(ctx, t) > p.acidPka - 2;
+  const pH = effectivePh(ctx, t);
+  const acid = p.acidPka !== null && pH > p.acidPka - 2;
   const neutral = t.fractionNeutral[p.index] as number;
+  const sites = window ? `pKa ${(p.acidPka ?? 0).toFixed(1)} and pKaH ${(p.basePka ?? 0).toFixed(1)}` : `pKa${acid ? "" : "H"} ${(acid ? p.acidPka : p.basePka)?.toFixed(1)}`;
+  const target = window ? describeWindow(window) : `pH ${acid ? `≤ ${((p.acidPka ?? 0) - 2).toFixed(1)}` : `≥ ${((p.basePka ?? 0) + 2).toFixed(1)}`}`;
   return [flag("F3", neutral < 0.5 ? "danger" : "warning", "Extraction at the wrong pH",
-    `In ${stepName(ctx, t.step)} the aqueous layer is at pH ${ph(effectivePh(ctx, t))}; ${p.component.name} (pKa${acid ? "" : "H"} ${(acid ? p.acidPka : p.basePka)?.toFixed(1)}) ` +
-    `is only ${pct(neutral)} neutral there, so it stays in water.`,
-    `Bring the aqueous layer to pH ${acid ? `≤ ${((p.acidPka ?? 0) - 2).toFixed(1)}` : `≥ ${((p.basePka ?? 0) + 2).toFixed(1)}`} and check it with paper or a meter after mixing (reaction salts buffer), then re-extract.`,
+    `In ${stepName(ctx, t.step)} the aqueous layer is at pH ${ph(pH)}; ${p.component.name} (${sites}) is only ${pct(neutral)} neutral there, so it stays in water.`,
+    `Bring the aqueous layer to ${target} and check it with paper or a meter after mixing (reaction salts buffer), then re-extract.` +
+      (window ? " Further from that window either site charges: acid makes it a cation, base an anion." : ""),
     { step: t.step, component: p.component.key })];
 };
 
@@ -52,6 +61,7 @@ export const capacity: Rule = (ctx) => {
       "Use more portions, a larger volume or a stronger reagent, and check the pH of every aqueous output.", { step: t.step }));
   }
   for (const s of ctx.steps) {
+    if (s.type === "adjust_ph" && s.details.wrongDirection === true) out.push(wrongDirection(ctx, s.index, s.details));
     if (s.type === "adjust_ph" && s.details.targetReached === false) {
       out.push(flag("F4", "warning", "Target pH not reached",
         `The reagent in ${stepName(ctx, s.index)} cannot bring the aqueous layer to the target pH, even in large volume.`,
@@ -60,6 +70,20 @@ export const capacity: Rule = (ctx) => {
   }
   return out;
 };
+
+/** An adjust_ph whose reagent moves the pH away from its target: nothing is added, and the chemist is told why. */
+function wrongDirection(ctx: Parameters<Rule>[0], step: number, details: Record<string, number | string | boolean>) {
+  const op = ctx.input.operations[step - 1];
+  const start = Number(details.startPh);
+  const target = op?.type === "adjust_ph" ? (op.targetPh ?? Number.NaN) : Number.NaN;
+  const above = start > target;
+  return flag("F4", "warning", "pH adjustment goes the wrong way",
+    `In ${stepName(ctx, step)} the aqueous layer is at pH ${ph(start)}, ${above ? "above" : "below"} the target pH ${ph(target)}, and the reagent ${above ? "raises" : "lowers"} the pH further: ` +
+      "it cannot reach the target, so none was added in the prediction.",
+    `To bring the layer to pH ${ph(target)} use ${above ? "an acid (e.g. 1 M HCl or 10% citric acid)" : "a base (e.g. saturated NaHCO₃ or 1 M NaOH)"}; ` +
+      `if the target was meant as a bound (pH ${above ? "≥" : "≤"} ${ph(target)}), the layer already meets it and the step can go.`,
+    { step });
+}
 
 /** F16: acid- or base-labile product meeting pH ≤ 2 or ≥ 12. */
 export const degradation: Rule = (ctx) => {

@@ -22,12 +22,17 @@ export const crudeMassSuspect: Rule = (ctx) => {
 
 const LIPOPHILIC_HINT = "trifluoroacetate, triflate, tosylate, iodide, BF₄⁻ or PF₆⁻";
 
-/** F19: cation with a lipophilic counter-ion meeting a chlorinated solvent. */
+/** Share of a component that must be charged at a contact before its ion pair is worth a flag (5 %, a judgement). */
+export const ION_PAIR_MIN_CHARGED = 0.05;
+
+/** F19: cation with a lipophilic counter-ion meeting a chlorinated solvent while it is (at least 5 %) charged. */
 export const ionPair: Rule = (ctx) => {
   for (const [ci, c] of ctx.input.components.entries()) {
     const cationic = c.fixedCharge > 0 || c.tags.includes("quaternary_ammonium") || c.pKas.some((p) => p.kind === "base");
     if (!cationic || (c.counterIon !== "lipophilic" && !c.tags.includes("quaternary_ammonium"))) continue;
-    const t = ctx.contacts.find((x) => x.twoPhase && x.organicSolvents.some((k) => ctx.library.solvents[k]?.ionPairCapable) && (x.amounts[ci] as number) > 0);
+    // Only where the cation is there to pair: a free amine at pH 12 is neutral and extracts as such (F1/F2's concern).
+    const t = ctx.contacts.find((x) => x.twoPhase && x.organicSolvents.some((k) => ctx.library.solvents[k]?.ionPairCapable)
+      && (x.amounts[ci] as number) > 0 && 1 - (x.fractionNeutral[ci] as number) >= ION_PAIR_MIN_CHARGED);
     if (!t) continue;
     return [flag("F19", "warning", "Ion pair may extract into the chlorinated layer",
       `${c.name} is a cation with a lipophilic counter-ion (${LIPOPHILIC_HINT}); in ${stepName(ctx, t.step)} it meets a chlorinated solvent, where such ion pairs dissolve — an acid wash may not remove it, or an ionic product may stay in the organic layer.`,
