@@ -145,8 +145,9 @@ describe("idealisations from the input's options", () => {
   });
 
   it("noIonPartition keeps every charged form in the water", () => {
-    // A permanent cation (quaternary ammonium) with a large log P: K_ion = 0 by the idealisation's definition.
-    const quat = { ...neutral("q", 4), fixedCharge: 1 };
+    // A permanent cation (quaternary ammonium) with a lipophilic counter-ion and a large log P, which the full model
+    // lets pair into DCM; the idealisation sets K_ion = 0 by definition, so none may stay in the organic layer.
+    const quat = { ...neutral("q", 4), fixedCharge: 1, counterIon: "lipophilic" as const };
     const ideal = workup([quat], [["dcm", 50]], [wash("water", 50)], { options: { noIonPartition: true } });
     expect(predictWorkup(ideal).recovery.q).toBeLessThan(1e-12);
     const full = workup([quat], [["dcm", 50]], [wash("water", 50)]);
