@@ -137,6 +137,38 @@ describe("layerwise plan and fit", () => {
   }, TIMEOUT);
 });
 
+describe("layerwise strict input", () => {
+  it("reads a file that starts with a UTF-8 byte-order mark (RFC 8259 §8.1: a parser may ignore it)", () => {
+    const text = readFileSync(path.join(ROOT, "examples", "acid-base-separation.json"), "utf8");
+    const withMark = writeTemp("bom.json", `\uFEFF${text}`);
+    // Before: "is not valid JSON: Unexpected token '﻿'".
+    const p = json<WorkupPrediction>("predict", withMark);
+    expect(p.recovery).toEqual(json<WorkupPrediction>("predict", "examples/acid-base-separation.json").recovery);
+  }, TIMEOUT);
+
+  it("refuses misspelt keys at the object holding them, with the nearest allowed key", () => {
+    const raw = exampleRaw("acid-base-separation");
+    (raw.operations[0] as Record<string, unknown>).portion = 3;
+    (raw.components as Array<Record<string, unknown>>)[0] = { ...(raw.components as Array<Record<string, unknown>>)[0], pKa: [] };
+    const r = run("predict", writeTemp("typo.json", JSON.stringify(raw)));
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("components[0]: `pKa`: unknown key; did you mean `pKas`?");
+    expect(r.stderr).toContain("operations[0]: `portion`: unknown key; did you mean `portions`?");
+  }, TIMEOUT);
+
+  it("switches the idealisations on from flags, the same as from the input's options", () => {
+    const flags = json<WorkupPrediction>("predict", "examples/acid-base-separation.json", "--ideal-phases", "--no-salting-out", "--no-ion-partition");
+    const raw = exampleRaw("acid-base-separation");
+    const fromFile = json<WorkupPrediction>("predict", writeTemp("ideal.json", JSON.stringify({ ...raw, options: { idealPhases: true, noSaltingOut: true, noIonPartition: true } })));
+    expect(flags.recovery).toEqual(fromFile.recovery);
+    // Mutually insoluble phases: no organic solvent leaves with the washes, so every wash's organic layer keeps its
+    // volume (ideal-phase arithmetic of textbook extraction problems).
+    const organic = (p: WorkupPrediction) => p.steps[0]?.contacts[0]?.phases.find((x) => x.kind === "organic")?.volumeMl ?? Number.NaN;
+    expect(organic(flags)).toBeCloseTo(50, 6);
+    expect(organic(json<WorkupPrediction>("predict", "examples/acid-base-separation.json"))).not.toBeCloseTo(50, 1);
+  }, TIMEOUT);
+});
+
 describe("layerwise errors", () => {
   it("exits 2 and names the problem for malformed JSON, invalid fields, unknown names and bad options", () => {
     const malformed = run("predict", writeTemp("bad.json", "{ \"components\": [ }"));
