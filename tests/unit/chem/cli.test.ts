@@ -141,7 +141,7 @@ describe("layerwise strict input", () => {
   it("reads a file that starts with a UTF-8 byte-order mark (RFC 8259 §8.1: a parser may ignore it)", () => {
     const text = readFileSync(path.join(ROOT, "examples", "acid-base-separation.json"), "utf8");
     const withMark = writeTemp("bom.json", `\uFEFF${text}`);
-    // Before: "is not valid JSON: Unexpected token '﻿'".
+    // Before: "is not valid JSON: Unexpected token (the mark)".
     const p = json<WorkupPrediction>("predict", withMark);
     expect(p.recovery).toEqual(json<WorkupPrediction>("predict", "examples/acid-base-separation.json").recovery);
   }, TIMEOUT);
