@@ -35,13 +35,16 @@ export const observationSchema = strictObject({
   }));
 
 const common = {
+  /** The step's stable id, kept with it so merges and the history follow it (lib/workups/step-ids.ts); unused by the engine. */
+  id: z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, { error: "id must be 1–64 letters, digits, '_' or '-'" }).optional(),
   label: z.string().max(200).optional(),
   temperature: temperatureSchema("temperature").optional(),
   observed: observationSchema.optional(),
 };
 
-function withCommon<T extends { temperature?: number | undefined }>(o: T) {
-  const { temperature, ...rest } = o;
+/** The step id stays with the stored spec; the parsed operation the engine reads has no use for it. */
+function withCommon<T extends { temperature?: number | undefined; id?: string | undefined }>(o: T) {
+  const { temperature, id: _id, ...rest } = o;
   return { ...rest, temperatureC: temperature };
 }
 
