@@ -5,6 +5,7 @@ import { randomUUID } from "node:crypto";
 import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
 import { isRecordNotFound, isUniqueViolation } from "@/lib/db/errors";
+import { findUnsafeText } from "@/lib/validation/safe-text";
 
 export type FieldErrors = Record<string, string[]>;
 
@@ -52,6 +53,12 @@ export class ConflictError extends AppError {
 export class PayloadTooLargeError extends AppError {
   readonly status = 413;
   readonly code = "payload_too_large";
+}
+
+/** The client stopped sending its request body (a stalled upload holds a connection and memory). */
+export class RequestTimeoutError extends AppError {
+  readonly status = 408;
+  readonly code = "request_timeout";
 }
 
 export class BadRequestError extends AppError {
@@ -152,9 +159,19 @@ export function actionFailure(error: unknown, where = "server action"): ActionRe
 
 /** Parses input with a zod schema, throwing ValidationError (422, messages by field) when it does not fit. */
 export function parseInput<S extends z.ZodType>(schema: S, input: unknown): z.output<S> {
+  refuseUnsafeText(input);
   const result = schema.safeParse(input);
   if (!result.success) throw ValidationError.fromZod(result.error);
   return result.data;
+}
+
+/** NUL characters and broken UTF-16 cannot be stored: 422 naming each field, before the schema or any query runs. */
+export function refuseUnsafeText(input: unknown): void {
+  const problems = findUnsafeText(input);
+  if (problems.length === 0) return;
+  const fieldErrors: FieldErrors = {};
+  for (const p of problems) (fieldErrors[p.path.length > 0 ? p.path.map(String).join(".") : "_form"] ??= []).push(p.message);
+  throw new ValidationError(fieldErrors);
 }
 
 /** A form's fields as a plain object (files and repeated names are not used by our forms). */

@@ -1,6 +1,27 @@
 // Reading request bodies for the JSON API: a size limit enforced while streaming (a missing or false Content-Length
 // does not get past it), and clear messages for an empty body, malformed JSON (400) and an oversized one (413).
-import { BadRequestError, PayloadTooLargeError } from "@/lib/errors";
+import { BadRequestError, PayloadTooLargeError, RequestTimeoutError } from "@/lib/errors";
+
+/** A body that sends nothing for this long is dropped (the README states it). */
+export const BODY_IDLE_TIMEOUT_MS = 30_000;
+
+export interface BodyOptions {
+  /** Longest pause between two chunks of the body. Default BODY_IDLE_TIMEOUT_MS. */
+  idleTimeoutMs?: number;
+}
+
+/** The next chunk, or RequestTimeoutError when none comes within `ms`. */
+async function readWithin(reader: ReadableStreamDefaultReader<Uint8Array>, ms: number): Promise<ReadableStreamReadResult<Uint8Array>> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const stalled = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new RequestTimeoutError(`The request body stalled: nothing arrived for ${Math.round(ms / 1000)} s. Send it again.`)), ms);
+  });
+  try {
+    return await Promise.race([reader.read(), stalled]);
+  } finally {
+    clearTimeout(timer);
+  }
+}
 
 /** Default limit for JSON bodies: a workup with 50 components and 200 steps is well under 200 kB. */
 export const JSON_BODY_LIMIT = 1024 * 1024;
@@ -14,7 +35,7 @@ function tooLarge(limit: number): PayloadTooLargeError {
 }
 
 /** The body's bytes, refusing it as soon as it passes `limit` bytes. */
-export async function readBodyBytes(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
+export async function readBodyBytes(request: Request, limit: number, options: BodyOptions = {}): Promise<Uint8Array<ArrayBuffer>> {
   const declared = request.headers.get("content-length");
   if (declared !== null && /^\d+$/.test(declared) && Number(declared) > limit) throw tooLarge(limit);
   if (!request.body) return new Uint8Array(0);
@@ -22,7 +43,14 @@ export async function readBodyBytes(request: Request, limit: number): Promise<Ui
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    let chunk: ReadableStreamReadResult<Uint8Array>;
+    try {
+      chunk = await readWithin(reader, options.idleTimeoutMs ?? BODY_IDLE_TIMEOUT_MS);
+    } catch (error) {
+      await reader.cancel().catch(() => undefined);
+      throw error;
+    }
+    const { done, value } = chunk;
     if (done) break;
     size += value.byteLength;
     if (size > limit) {
@@ -41,8 +69,8 @@ export async function readBodyBytes(request: Request, limit: number): Promise<Ui
 }
 
 /** The body as text, refusing it as soon as it passes `limit` bytes. */
-export async function readBodyText(request: Request, limit: number): Promise<string> {
-  const joined = await readBodyBytes(request, limit);
+export async function readBodyText(request: Request, limit: number, options: BodyOptions = {}): Promise<string> {
+  const joined = await readBodyBytes(request, limit, options);
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(joined);
   } catch {
@@ -51,8 +79,8 @@ export async function readBodyText(request: Request, limit: number): Promise<str
 }
 
 /** Parses a JSON body. The value is unknown: validate it with the route's zod schema. */
-export async function readJsonBody(request: Request, limit = JSON_BODY_LIMIT): Promise<unknown> {
-  const text = await readBodyText(request, limit);
+export async function readJsonBody(request: Request, limit = JSON_BODY_LIMIT, options: BodyOptions = {}): Promise<unknown> {
+  const text = await readBodyText(request, limit, options);
   if (text.trim() === "") throw new BadRequestError("The request body is empty: send a JSON object.");
   try {
     return JSON.parse(text) as unknown;

@@ -85,7 +85,7 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/api/v1/compounds", summary: "List or search the group's compounds (mode=similarity|substructure|text)", permission: "data:read",
     query: listCompoundsSchema, success: { status: 200, schema: looseObject, description: "compounds or search hits" }, errors: [403, 422] },
   { method: "post", path: "/api/v1/compounds", summary: "Register compounds from SMILES, SDF or MOL text, all or nothing", permission: "data:write",
-    body: { name: "RegisterCompounds", schema: registerCompoundsSchema, limit: "20 MB" },
+    body: { name: "RegisterCompounds", schema: registerCompoundsSchema, limit: "10 MB" },
     success: { status: 201, schema: looseObject, description: "created and skipped" }, errors: [400, 403, 422] },
   { method: "get", path: "/api/v1/compounds/{id}", summary: "A compound with its properties, partition data and workups", permission: "data:read",
     success: { status: 200, schema: looseObject, description: "the compound" }, errors: readErrors },

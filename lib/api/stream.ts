@@ -17,6 +17,22 @@ export function textStream(chunks: AsyncIterable<string>): ReadableStream<Uint8A
 }
 
 /**
+ * Like textStream, but the first chunk is produced before the stream is returned, so the route can still answer
+ * an error (a 4xx with its message) instead of sending 200 and its headers and then breaking the connection.
+ */
+export async function primedTextStream(chunks: AsyncIterable<string>): Promise<ReadableStream<Uint8Array>> {
+  const iterator = chunks[Symbol.asyncIterator]();
+  const first = await iterator.next();
+  async function* rest(): AsyncGenerator<string> {
+    if (first.done) return;
+    yield first.value;
+    for (let next = await iterator.next(); !next.done; next = await iterator.next()) yield next.value;
+  }
+  const stream = textStream(rest());
+  return stream;
+}
+
+/**
  * Runs `task` while streaming each object it sends as one JSON line. A failure ends the stream with
  * {"type":"error", ...} carrying the same body the API answers errors with.
  */

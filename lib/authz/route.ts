@@ -2,7 +2,7 @@
 // cannot forget the check, and every error leaves through errorResponse (401/403/404/409/415/422/429, or 500 + id).
 // A state-changing request carried by the session cookie must also come from our own pages (./csrf.ts).
 import { env } from "@/lib/env";
-import { errorResponse } from "@/lib/errors";
+import { errorResponse, refuseUnsafeText } from "@/lib/errors";
 import { requireMember } from "@/lib/authz/index";
 import { assertSameOriginWrite } from "@/lib/authz/csrf";
 import { type GuardOptions, type MemberContext } from "@/lib/authz/guard";
@@ -29,7 +29,9 @@ export function memberRoute<P = Record<string, never>>(
     try {
       const member = await requireMember(permission, options);
       if (member.via === "session") assertSameOriginWrite(request, { bodyTypes: options.bodyTypes, publicUrl: env().nextAuthUrl });
-      return await handler(request, { member, params: await context.params });
+      const params = await context.params;
+      refuseUnsafeText(params); // a NUL or broken character in a path segment: 422, not a failed query
+      return await handler(request, { member, params });
     } catch (error) {
       return errorResponse(error, `${request.method} ${new URL(request.url).pathname}`);
     }

@@ -2,8 +2,8 @@
 // routes (app/api/v1/compounds), so the two sides never disagree. Free of server imports: forms use it too.
 import { z } from "zod";
 
-/** Largest pasted SMILES list or uploaded MOL/SDF text, characters (about 20 MB of ASCII). */
-export const MAX_REGISTER_TEXT = 20_000_000;
+/** Largest pasted SMILES list or uploaded MOL/SDF text, characters (about 10 MB of ASCII, the limit the README states). */
+export const MAX_REGISTER_TEXT = 10_000_000;
 /** Most structures one registration may hold; a larger library is split into several files. */
 export const MAX_REGISTER_RECORDS = 5_000;
 

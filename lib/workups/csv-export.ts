@@ -42,9 +42,14 @@ function cells(w: ExportRecord, people: Map<string, { name: string; email: strin
 /** Validates the filters first (so a bad filter is a 422, not a broken download), then yields the CSV. */
 export function exportWorkupsCsv(db: Db, groupId: string, input: unknown): AsyncGenerator<string> {
   const filter = parseInput(workupListFilterSchema, input);
+  const rowsOf = async (batch: ExportRecord[]): Promise<string> => {
+    const ids = [...new Set(batch.map((w) => w.chemistId).filter((id): id is string => id !== null))];
+    const people = new Map((await db.user.findMany({ where: { id: { in: ids } }, select: { id: true, name: true, email: true } })).map((u) => [u.id, u]));
+    return batch.map((w) => { const c = cells(w, people); return csvLine(CSV_EXPORT_COLUMNS.map((name) => c[name])); }).join("");
+  };
   return (async function* () {
     const where = await resolveWhere(db, groupId, filter);
-    yield csvLine(CSV_EXPORT_COLUMNS);
+    let header: string | null = csvLine(CSV_EXPORT_COLUMNS);
     let after: { performedOn: Date; id: string } | null = null;
     for (;;) {
       const batch: ExportRecord[] = await db.workup.findMany({
@@ -53,10 +58,21 @@ export function exportWorkupsCsv(db: Db, groupId: string, input: unknown): Async
         take: BATCH,
         select: exportSelect,
       });
+      // The header goes out with the first batch, so the first query has run before anything is sent.
+      if (header !== null) {
+        const first: string = header;
+        header = null;
+        if (batch.length === 0) {
+          yield first;
+          return;
+        }
+        yield first + (await rowsOf(batch));
+        if (batch.length < BATCH) return;
+        after = batch.at(-1)!;
+        continue;
+      }
       if (batch.length === 0) return;
-      const ids = [...new Set(batch.map((w) => w.chemistId).filter((id): id is string => id !== null))];
-      const people = new Map((await db.user.findMany({ where: { id: { in: ids } }, select: { id: true, name: true, email: true } })).map((u) => [u.id, u]));
-      yield batch.map((w) => { const c = cells(w, people); return csvLine(CSV_EXPORT_COLUMNS.map((name) => c[name])); }).join("");
+      yield await rowsOf(batch);
       if (batch.length < BATCH) return;
       after = batch.at(-1)!;
     }

@@ -10,7 +10,7 @@ import { type OutcomeAnalysis } from "./analysis";
 import { type DeviationStatus } from "./deviation";
 import { type StoredPredictionResult } from "./prediction";
 import { dayOf, type JsonObject, type SnapshotHeader } from "./record";
-import { workupListFilterSchema, type WorkupListFilter } from "./schemas";
+import { EARLIEST_DAY, LATEST_DAY, workupListFilterSchema, type WorkupListFilter } from "./schemas";
 
 export interface ListCursor {
   performedOn: Date;
@@ -24,7 +24,8 @@ export function encodeCursor(c: ListCursor): string {
 export function decodeCursor(raw: string): ListCursor {
   const match = /^(\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z)\|([A-Za-z0-9_-]{1,64})$/.exec(Buffer.from(raw, "base64url").toString());
   const performedOn = match?.[1] ? new Date(match[1]) : null;
-  if (!match?.[2] || !performedOn || Number.isNaN(performedOn.getTime())) {
+  const day = match?.[1]?.slice(0, 10) ?? "";
+  if (!match?.[2] || !performedOn || Number.isNaN(performedOn.getTime()) || day < EARLIEST_DAY || day > LATEST_DAY) {
     throw new ValidationError({ cursor: ["this page link is not valid; start again from the first page"] });
   }
   return { performedOn, id: match[2] };

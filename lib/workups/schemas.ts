@@ -26,9 +26,16 @@ const optionalMmol = (label: string) =>
 const recordId = (label: string) =>
   z.string({ error: `${label} must be an id` }).trim().min(1, { error: `${label} must not be empty` }).max(64, { error: `${label} is too long` });
 
+/** Dates the databases store without surprises (PostgreSQL has no year 0; the year 10000 needs five digits). */
+export const EARLIEST_DAY = "1800-01-01";
+export const LATEST_DAY = "9999-12-31";
+
 /** A calendar date as YYYY-MM-DD (the day the workup was run), stored as midnight UTC. */
 export const isoDateSchema = (label: string) =>
-  z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` }).transform((day) => new Date(`${day}T00:00:00.000Z`));
+  z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` })
+    .refine((day) => day >= EARLIEST_DAY && day <= LATEST_DAY, { error: `${label} must be between ${EARLIEST_DAY} and ${LATEST_DAY}` })
+    .transform((day) => new Date(`${day}T00:00:00.000Z`));
+
 
 export const workupHeaderSchema = strictObject({
   title: z.string({ error: "title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "title must be ≤ 200 characters" }),
@@ -143,8 +150,10 @@ export const predictRequestSchema = strictObject({
   seed: z.number().int().min(1).max(2 ** 31 - 1).optional(),
 });
 
+/** Versions are a 32-bit integer column: a larger number is refused here, not by the database. */
 const versionNumber = (label: string) =>
-  z.coerce.number({ error: `${label} must be a version number` }).int({ error: `${label} must be a whole number` }).min(1, { error: `${label} must be ≥ 1` });
+  z.coerce.number({ error: `${label} must be a version number` }).int({ error: `${label} must be a whole number` }).min(1, { error: `${label} must be ≥ 1` })
+    .max(2_147_483_647, { error: `${label} is larger than any version` });
 
 /** Two versions to compare (GET /workups/{id}/diff?from=&to=). */
 export const versionPairSchema = z.object({ from: versionNumber("from"), to: versionNumber("to") });

@@ -1,5 +1,5 @@
 // Sends a registration from the browser. Small inputs go through the server action; large MOL/SD files go to the
-// REST route instead, because server actions accept bodies up to Next's 1 MB default and the route takes 20 MB.
+// REST route instead, because server actions accept bodies up to Next's 1 MB default and the route takes 10 MB.
 // Both run the same schema and service and come back as the same ActionResult.
 import { registerCompoundsAction } from "@/lib/compounds/actions";
 import type { RegisterOutcome } from "@/lib/compounds/actions";

@@ -23,11 +23,11 @@ export const GET = memberRoute("data:read", async (request, { member }) => {
 });
 
 /** A JSON body holding the largest accepted text (MAX_REGISTER_TEXT characters) with room for escaping. */
-const REGISTER_BODY_LIMIT = 20 * 1024 * 1024 + 64 * 1024;
+const REGISTER_BODY_LIMIT = 10 * 1024 * 1024 + 64 * 1024;
 
 /**
  * POST /api/v1/compounds  { format: "smiles" | "sdf" | "mol", text, tags?, onDuplicate?: "reject" | "skip" }
- * 201 { created, skipped }; 413 over 20 MB; 422 with `records` naming every record that stopped the batch (nothing is written).
+ * 201 { created, skipped }; 413 over 10 MB; 422 with `records` naming every record that stopped the batch (nothing is written).
  */
 export const POST = memberRoute("data:write", async (request, { member }) => {
   const input = parseInput(registerCompoundsSchema, await readJsonBody(request, REGISTER_BODY_LIMIT));
