@@ -41,7 +41,7 @@ export function ChartFrame({ title, description, csv, fileBase, image = true, cl
         </div>
       </div>
       {description ? <p className="mb-3 max-w-3xl text-sm text-stone-600">{description}</p> : null}
-      <div ref={chart}>{children}</div>
+      <div ref={chart} className="chart-fit">{children}</div>
     </section>
   );
 }

@@ -24,9 +24,14 @@ function keepFocus(): void {
   if (id) requestAnimationFrame(() => document.getElementById(id)?.focus());
 }
 
-export function OperationCard({ op, index, count, capacityMl, components, startMmol, announce }: {
+export function OperationCard({ op, index, count, capacityMl, components, startMmol, announce, folded = false, onFold, summary = "" }: {
   op: OperationState; index: number; count: number; capacityMl: number; components: ComponentName[]; startMmol: Record<string, number>;
   announce: (text: string) => void;
+  /** Folded to its one-line summary (at the hood, on a small screen). */
+  folded?: boolean;
+  onFold?: (folded: boolean) => void;
+  /** The step in words, shown when folded. */
+  summary?: string;
 }) {
   const { apply, messages, touch, problemCount, live, library } = useEditor();
   const n = index + 1;
@@ -73,10 +78,17 @@ export function OperationCard({ op, index, count, capacityMl, components, startM
         <div className="mb-1 flex gap-0.5" role="group" aria-label={`Step ${n} actions`}>
           <ToolButton id={`${fieldId(base)}-up`} label={`Move step ${n} up`} onClick={() => move(-1)} disabled={index === 0}>↑</ToolButton>
           <ToolButton id={`${fieldId(base)}-down`} label={`Move step ${n} down`} onClick={() => move(1)} disabled={index === count - 1}>↓</ToolButton>
+          {onFold ? <ToolButton label={`${folded ? "Unfold" : "Fold"} step ${n}`} onClick={() => onFold(!folded)}>{folded ? "Unfold" : "Fold"}</ToolButton> : null}
           <ToolButton label={`Duplicate step ${n}`} onClick={duplicate}>Duplicate</ToolButton>
           <ToolButton label={`Remove step ${n}`} tone="danger" onClick={() => { apply((s) => removeOperation(s, op.id), null); announce(`Step ${n} removed. Ctrl+Z brings it back.`); }}>Remove</ToolButton>
         </div>
       </div>
+      {folded ? (
+        <p className="px-3 py-2 text-sm text-stone-700" data-testid="step-summary">
+          {summary}{problems > 0 ? <span className="text-red-700"> · {problems} field{problems === 1 ? " needs" : "s need"} attention</span> : null}
+          {flags.length > 0 ? <span className="text-amber-800"> · {flags.length} flag{flags.length === 1 ? "" : "s"}</span> : null}
+        </p>
+      ) : (
       <div className="space-y-3 px-3 py-3">
         <p className="text-xs text-stone-500">{meta.purpose}</p>
         {messages(base).map((m) => <p key={m} className="text-xs text-red-700">{m}</p>)}
@@ -98,6 +110,7 @@ export function OperationCard({ op, index, count, capacityMl, components, startM
           </section>
         ) : null}
       </div>
+      )}
     </li>
   );
 }

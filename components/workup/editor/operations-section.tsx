@@ -6,7 +6,8 @@ import { type OperationType } from "@/lib/chem/schema";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { insertOperation } from "@/lib/workups-client/editor-actions";
-import { parseNumber } from "@/lib/workups-client/to-spec";
+import { parseNumber, specInput } from "@/lib/workups-client/to-spec";
+import { describeOperation } from "@/lib/workups-client/describe";
 import { OPERATION_TYPES, newOperation } from "@/lib/workups-client/operation-forms";
 import { drawingCapacityMl } from "@/lib/workups-client/funnel-geometry";
 import { type ComponentName } from "@/components/workup/prediction/phase-bars";
@@ -24,6 +25,10 @@ export function focusFirstField(opId: string): void {
 export function OperationsSection({ announce }: { announce: (text: string) => void }) {
   const { state, apply, live, library, messages } = useEditor();
   const [type, setType] = useState<OperationType>("wash");
+  const [folded, setFolded] = useState<ReadonlySet<string>>(new Set());
+  const fold = (id: string, on: boolean) => setFolded((f) => { const next = new Set(f); if (on) next.add(id); else next.delete(id); return next; });
+  const specOps = specInput(state).operations;
+  const words = (i: number) => (Array.isArray(specOps) && specOps[i] !== undefined ? describeOperation(specOps[i], library) : "");
   const prediction = live.prediction;
   const funnel = parseNumber(state.settings.funnel.value);
   const capacityMl = prediction ? drawingCapacityMl(prediction.steps, state.settings.funnel.unit === "mL" ? funnel : undefined) : 100;
@@ -39,11 +44,18 @@ export function OperationsSection({ announce }: { announce: (text: string) => vo
     <div className="space-y-3">
       <div id={fieldId("operations")} tabIndex={-1}>{messages("operations").map((m) => <p key={m} className="text-xs text-red-700">{m}</p>)}</div>
       {state.operations.length === 0 ? <p className="text-sm text-stone-500">No steps yet. Add them in the order they were done.</p> : (
-        <ol className="space-y-3" aria-label="Steps of the workup">
-          {state.operations.map((op, i) => (
-            <OperationCard key={op.id} op={op} index={i} count={state.operations.length} capacityMl={capacityMl} components={components} startMmol={startMmol} announce={announce} />
-          ))}
-        </ol>
+        <>
+          <div className="flex justify-end gap-2 text-xs">
+            <button type="button" className="text-teal-800 underline" onClick={() => setFolded(new Set(state.operations.map((o) => o.id)))}>Fold all steps</button>
+            <button type="button" className="text-teal-800 underline" onClick={() => setFolded(new Set())}>Unfold all</button>
+          </div>
+          <ol className="space-y-3" aria-label="Steps of the workup">
+            {state.operations.map((op, i) => (
+              <OperationCard key={op.id} op={op} index={i} count={state.operations.length} capacityMl={capacityMl} components={components} startMmol={startMmol} announce={announce}
+                folded={folded.has(op.id)} onFold={(on) => fold(op.id, on)} summary={words(i)} />
+            ))}
+          </ol>
+        </>
       )}
       <div className="flex flex-wrap items-end gap-2 rounded-md border border-dashed border-stone-300 bg-stone-50/60 p-3">
         <div>

@@ -6,7 +6,7 @@
 // page offers them back, merged three-way with whatever was saved meanwhile.
 import { useRouter } from "next/navigation";
 import Link from "next/link";
-import { useEffect, useMemo, useRef, useState, useTransition, type ReactNode } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, useTransition, type ReactNode } from "react";
 import { getWorkupAction } from "@/lib/workups/actions";
 import { type LibraryOverrides, resolveLibrary } from "@/lib/chem/library";
 import { Button, buttonClass } from "@/components/ui/button";
@@ -28,6 +28,7 @@ import { CompoundPicker } from "./compound-picker";
 import { MixtureSection } from "./mixture-section";
 import { OperationsSection } from "./operations-section";
 import { PredictionPanel } from "./prediction-panel";
+import { PredictionSheet, PredictionSummaryBar } from "./prediction-summary";
 import { ConflictPanel, type TheirVersion } from "./conflict-panel";
 import { ShortcutsHelp } from "./shortcuts-help";
 import { snapshotOfDetail, snapshotOfState } from "./snapshot";
@@ -75,6 +76,8 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   const groupValues = useGroupValues(input.links ?? []);
   const live = useLivePrediction(input.spec, library, { groupValues });
   const [version, setVersion] = useState(baseVersion);
+  const [sheetOpen, setSheetOpen] = useState(false);
+  const closeSheet = useCallback(() => setSheetOpen(false), []);
   const [opened, setOpened] = useState(base);
   const [baseline, setBaseline] = useState(() => JSON.stringify(input));
   const [failure, setFailure] = useState<string | null>(null);
@@ -215,6 +218,7 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   };
   return (
     <EditorContext.Provider value={api}>
+      <PredictionSummaryBar open={sheetOpen} onToggle={() => setSheetOpen((o) => !o)} />
       <div data-editor className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] xl:grid-cols-[minmax(0,1fr)_26rem]">
         <div role="form" aria-label={workupId ? "Edit workup" : "New workup"} className="min-w-0 space-y-5">
           <Section title="Record" id="record"><HeaderFields members={members} /></Section>
@@ -227,9 +231,9 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
           <Section title="Starting mixture" id="mixture"><MixtureSection /></Section>
           <Section title="Steps" id="steps"><OperationsSection announce={setAnnouncement} /></Section>
         </div>
-        <aside className="min-w-0 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto">
+        <PredictionSheet open={sheetOpen} onClose={closeSheet}>
           <PredictionPanel />
-        </aside>
+        </PredictionSheet>
       </div>
       <p className="sr-only" aria-live="polite">{announcement}</p>
       <div className="sticky bottom-0 z-10 -mx-4 mt-6 border-t border-stone-200 bg-white/95 px-4 py-3 backdrop-blur">
