@@ -9,6 +9,8 @@ import { strictObject } from "@/lib/chem/schema-strict";
 
 export const PURITY_METHODS = ["qnmr", "hplc", "gc", "weight_only"] as const;
 export type PurityMethodName = (typeof PURITY_METHODS)[number];
+/** How each purity method is named on screen and in messages. */
+export const PURITY_METHOD_WORDS: Record<PurityMethodName, string> = { qnmr: "qNMR", hplc: "HPLC", gc: "GC", weight_only: "weight only" };
 export const OUTCOME_STATUSES = ["as_expected", "below", "above", "inconclusive", "unknown"] as const;
 export type OutcomeStatusName = (typeof OUTCOME_STATUSES)[number];
 
@@ -38,18 +40,18 @@ export const isoDateSchema = (label: string) =>
 
 
 export const workupHeaderSchema = strictObject({
-  title: z.string({ error: "title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "title must be ≤ 200 characters" }),
-  performedOn: isoDateSchema("performedOn"),
+  title: z.string({ error: "Title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "Title must be ≤ 200 characters" }),
+  performedOn: isoDateSchema("Date run"),
   /** A member of the group; null or omitted when not recorded. */
-  chemistId: recordId("chemistId").nullable().optional(),
+  chemistId: recordId("Chemist").nullable().optional(),
   /** Notebook book/page or electronic page id. */
-  notebookRef: z.string().trim().max(100, { error: "notebookRef must be ≤ 100 characters" }).default(""),
+  notebookRef: z.string().trim().max(100, { error: "Notebook reference must be ≤ 100 characters" }).default(""),
   /** Reaction scale: mmol of the limiting reagent. */
-  scaleMmol: optionalMmol("scaleMmol"),
+  scaleMmol: optionalMmol("Reaction scale"),
   /** Theoretical product amount. */
-  expectedProductMmol: optionalMmol("expectedProductMmol"),
+  expectedProductMmol: optionalMmol("Expected product"),
   /** Product present before the workup by an in-process assay (qNMR/HPLC), when one was taken. */
-  assayedProductMmol: optionalMmol("assayedProductMmol"),
+  assayedProductMmol: optionalMmol("Product assayed before the workup"),
 });
 
 /** Which registered compound each spec component is (by the component's key in the spec). */
@@ -102,18 +104,18 @@ export const layerAssaySchema = strictObject({
 
 export const outcomeInputSchema = strictObject({
     isolatedMassMg: z
-      .number({ error: "isolatedMassMg must be a number (mg)" })
-      .min(0, { error: "isolatedMassMg must be ≥ 0 mg" })
-      .max(1e9, { error: "isolatedMassMg must be ≤ 1000 kg" }),
+      .number({ error: "Isolated mass must be a number (mg)" })
+      .min(0, { error: "Isolated mass must be ≥ 0 mg" })
+      .max(1e9, { error: "Isolated mass must be ≤ 1000 kg" }),
     /** Mass % of product in the isolated material; required unless the method is weight_only (then taken as 100 %). */
-    purityPct: z.number({ error: "purityPct must be a number" }).gt(0, { error: "purityPct must be > 0" }).max(100, { error: "purityPct must be ≤ 100" }).nullable().optional(),
-    purityMethod: z.enum(PURITY_METHODS, { error: () => `purityMethod must be one of ${PURITY_METHODS.join(", ")}` }),
+    purityPct: z.number({ error: "Purity must be a number (mass %)" }).gt(0, { error: "Purity must be > 0 %" }).max(100, { error: "Purity must be ≤ 100 %" }).nullable().optional(),
+    purityMethod: z.enum(PURITY_METHODS, { error: () => `Purity measured by must be one of ${PURITY_METHODS.map((m) => PURITY_METHOD_WORDS[m]).join(", ")}` }),
     layerAssays: z.array(layerAssaySchema).max(100, { error: "at most 100 layer assays" }).default([]),
-    notes: z.string().max(5000, { error: "notes must be ≤ 5000 characters" }).default(""),
+    notes: z.string().max(5000, { error: "Notes must be ≤ 5000 characters" }).default(""),
   })
   .superRefine((o, ctx) => {
     if (o.purityMethod !== "weight_only" && (o.purityPct === null || o.purityPct === undefined)) {
-      ctx.addIssue({ code: "custom", path: ["purityPct"], message: `purityPct is required when the purity was measured by ${o.purityMethod}` });
+      ctx.addIssue({ code: "custom", path: ["purityPct"], message: `Purity is required when it was measured by ${PURITY_METHOD_WORDS[o.purityMethod]}` });
     }
   });
 
@@ -130,7 +132,7 @@ export const workupListFilterFields = z
     compoundId: recordId("compoundId").optional(),
     /** Solvent key as used in specs (e.g. etoac, dcm). */
     solvent: z.string().trim().toLowerCase().min(1).max(64).optional(),
-    chemistId: recordId("chemistId").optional(),
+    chemistId: recordId("Chemist").optional(),
     from: isoDateSchema("from").optional(),
     to: isoDateSchema("to").optional(),
     flagged: booleanParam.optional(),

@@ -17,6 +17,13 @@ test("a lead invites a viewer by link; the newcomer creates an account and joins
   await expect(invited.getByRole("heading", { name: `Join ${GROUP_A.name}` })).toBeVisible();
   await invited.getByLabel("Your name").fill("Wren Calloway");
   await invited.getByLabel("Email").fill("wren.calloway@heron.example");
+  // Passwords that differ are refused, and the name and email typed so far stay in the form.
+  await invited.getByLabel("Password", { exact: true }).fill("layers-settle-slowly");
+  await invited.getByLabel("Password again").fill("layers-settle-quickly");
+  await invited.getByRole("button", { name: "Create account and join" }).click();
+  await expect(invited.getByText(/do not match|must match|differ/i)).toBeVisible();
+  await expect(invited.getByLabel("Your name")).toHaveValue("Wren Calloway");
+  await expect(invited.getByLabel("Email")).toHaveValue("wren.calloway@heron.example");
   await invited.getByLabel("Password", { exact: true }).fill("layers-settle-slowly");
   await invited.getByLabel("Password again").fill("layers-settle-slowly");
   await invited.getByRole("button", { name: "Create account and join" }).click();

@@ -43,6 +43,10 @@ export function JoinWithNewAccount({ token }: { token: string }) {
   const [state, action] = useActionState(joinWithNewAccountAction.bind(null, token), null);
   const credentials = useRef<{ email: string; password: string } | null>(null);
   const [signInFailed, setSignInFailed] = useState(false);
+  // Controlled, so that a refused attempt (say, passwords that differ) keeps what was typed: React resets
+  // uncontrolled fields once a form action finishes. The passwords are typed again on purpose.
+  const [name, setName] = useState("");
+  const [email, setEmail] = useState("");
   useEffect(() => {
     if (!state?.ok || !credentials.current) return;
     const { email, password } = credentials.current;
@@ -70,8 +74,8 @@ export function JoinWithNewAccount({ token }: { token: string }) {
           Welcome to {state.data.groupName}. {signInFailed ? <a className="underline" href="/sign-in">Sign in</a> : "Signing you in…"}
         </Notice>
       ) : null}
-      <Field label="Your name" name="name" autoComplete="name" required errors={errors?.name} />
-      <Field label="Email" name="email" type="email" autoComplete="email" required errors={errors?.email} />
+      <Field label="Your name" name="name" autoComplete="name" required errors={errors?.name} value={name} onChange={(e) => setName(e.target.value)} />
+      <Field label="Email" name="email" type="email" autoComplete="email" required errors={errors?.email} value={email} onChange={(e) => setEmail(e.target.value)} />
       <Field
         label="Password"
         name="password"

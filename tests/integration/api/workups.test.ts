@@ -140,7 +140,7 @@ describeWithAppDatabase("workup API", (t) => {
         run: () => callRoute(outcome.POST, "POST", `/api/v1/workups/${ownId}/outcome`, { token: tokens.member, params: { id: ownId }, rawBody: "isolatedMassMg=3" }) },
       { name: "malformed JSON (predict)", status: 400, message: /^The request body is not valid JSON/,
         run: () => callRoute(predict.POST, "POST", "/api/v1/predict", { token: tokens.member, rawBody: "[1, 2" }) },
-      { name: "wrong types (create)", status: 422, field: ["header.scaleMmol", "scaleMmol must be a number (mmol)"],
+      { name: "wrong types (create)", status: 422, field: ["header.scaleMmol", "Reaction scale must be a number (mmol)"],
         run: () => callRoute(workups.POST, "POST", "/api/v1/workups", { token: tokens.member, body: { header: header({ scaleMmol: "five" }), spec: exampleSpec() } }) },
       { name: "wrong types in the spec (update)", status: 422, field: ["spec.operations.0.portions", "portions must be a number"],
         run: () => {
@@ -150,7 +150,7 @@ describeWithAppDatabase("workup API", (t) => {
         } },
       { name: "missing baseVersion (update)", status: 422, field: ["baseVersion", "baseVersion must be the version number you opened"],
         run: () => callRoute(workup.PUT, "PUT", `/api/v1/workups/${ownId}`, { token: tokens.member, params: { id: ownId }, body: { header: header(), spec: exampleSpec() } }) },
-      { name: "wrong types (outcome)", status: 422, field: ["isolatedMassMg", "isolatedMassMg must be a number (mg)"],
+      { name: "wrong types (outcome)", status: 422, field: ["isolatedMassMg", "Isolated mass must be a number (mg)"],
         run: () => callRoute(outcome.POST, "POST", `/api/v1/workups/${ownId}/outcome`, { token: tokens.member, params: { id: ownId }, body: { ...outcomeBody, isolatedMassMg: "300 mg" } }) },
       { name: "a JSON array where an object belongs (predict)", status: 422, field: ["_form", "Invalid input: expected object, received array"],
         run: () => callRoute(predict.POST, "POST", "/api/v1/predict", { token: tokens.member, body: [] }) },

@@ -154,10 +154,10 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
     const theirs = await createWorkup(t.db, other.member, { header: header(), spec: measuredSpec() });
     const before = await footprint(t.db);
     const cases: [unknown, string, string][] = [
-      [{ isolatedMassMg: -1, purityPct: 90, purityMethod: "qnmr" }, "isolatedMassMg", "isolatedMassMg must be ≥ 0 mg"],
-      [{ isolatedMassMg: 100, purityMethod: "hplc" }, "purityPct", "purityPct is required when the purity was measured by hplc"],
-      [{ isolatedMassMg: 100, purityPct: 101, purityMethod: "qnmr" }, "purityPct", "purityPct must be ≤ 100"],
-      [{ isolatedMassMg: 100, purityPct: 90, purityMethod: "tlc" }, "purityMethod", "purityMethod must be one of qnmr, hplc, gc, weight_only"],
+      [{ isolatedMassMg: -1, purityPct: 90, purityMethod: "qnmr" }, "isolatedMassMg", "Isolated mass must be ≥ 0 mg"],
+      [{ isolatedMassMg: 100, purityMethod: "hplc" }, "purityPct", "Purity is required when it was measured by HPLC"],
+      [{ isolatedMassMg: 100, purityPct: 101, purityMethod: "qnmr" }, "purityPct", "Purity must be ≤ 100 %"],
+      [{ isolatedMassMg: 100, purityPct: 90, purityMethod: "tlc" }, "purityMethod", "Purity measured by must be one of qNMR, HPLC, GC, weight only"],
       [{ isolatedMassMg: 100, purityPct: 90, purityMethod: "qnmr", layerAssays: [{ step: 9, phase: "aqueous", amountMmol: 0.1 }] }, "layerAssays.0.step", "the workup has 3 steps"],
     ];
     for (const [input, field, message] of cases) {

@@ -102,7 +102,7 @@ describeEachDatabase("saving workups", (t) => {
     unknownSolvent.mixture.solvents![0]!.solvent = "unobtainium";
     const cases: [unknown, string, string][] = [
       [{ header: header({ title: "" }), spec: exampleSpec() }, "header.title", "Give the workup a title"],
-      [{ header: header({ performedOn: "3/11/2026" }), spec: exampleSpec() }, "header.performedOn", "performedOn must be a date written YYYY-MM-DD"],
+      [{ header: header({ performedOn: "3/11/2026" }), spec: exampleSpec() }, "header.performedOn", "Date run must be a date written YYYY-MM-DD"],
       [{ header: header(), spec: badVolume }, "spec.operations.0.volume.value", "volume per portion must be > 0"],
       [{ header: header(), spec: unknownSolvent }, "spec.mixture.solvents.0.solvent", "unknown solvent 'unobtainium'"],
       [{ header: header({ chemistId: other.member.userId }), spec: exampleSpec() }, "header.chemistId", "the chemist must be a member of this group"],

@@ -154,10 +154,10 @@ describeEachDatabase("import and export", (t) => {
       [4, 5, "purity_pct"],
       [5, 6, "spec_json"],
     ]);
-    expect(result.errors[0]!.message).toBe("performedOn must be a date written YYYY-MM-DD");
+    expect(result.errors[0]!.message).toBe("Date run must be a date written YYYY-MM-DD");
     expect(result.errors[1]!.message).toBe("no member of this group has the email nobody@example.org");
     expect(result.errors[2]!.message).toMatch(/^not valid JSON \(/);
-    expect(result.errors[3]!.message).toBe("purityPct is required when the purity was measured by hplc");
+    expect(result.errors[3]!.message).toBe("Purity is required when it was measured by HPLC");
     expect(result.errors[4]!.message).toBe("give either spec_json or template (one of the two)");
     expect(await footprint(t.db)).toEqual(before);
   });
