@@ -14,7 +14,7 @@ test("a member attaches a photo; another group's member gets not-found for it", 
   await expect(page.getByRole("status").filter({ hasText: "tlc-plate.png: attached." })).toBeVisible();
   const item = page.getByTestId("attachments").getByRole("listitem").filter({ hasText: "tlc-plate.png" });
   await expect(item.getByRole("img", { name: "Preview of tlc-plate.png" })).toBeVisible();
-  const href = await item.getByRole("link", { name: "tlc-plate.png" }).getAttribute("href");
+  const href = await item.getByRole("link", { name: "tlc-plate.png", exact: true }).getAttribute("href");
   const fileUrl = (href ?? "").replace(/\?download=1$/, "");
   const own = await page.request.get(fileUrl);
   expect(own.status()).toBe(200);

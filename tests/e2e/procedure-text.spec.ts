@@ -18,8 +18,10 @@ async function pasteAndRead(page: Page, text: string): Promise<string[]> {
 test("a pasted procedure becomes steps, saves, and its written-back paragraph reads in to the same steps", async ({ page, context }) => {
   await context.grantPermissions(["clipboard-read", "clipboard-write"]);
   await signIn(page, PEOPLE.memberA);
-  await page.getByRole("link", { name: "New workup" }).click();
-  await page.getByLabel("Title").fill(`Pasted procedure ${Date.now()}`);
+  const title = `Pasted procedure ${Date.now()}`;
+  await page.goto("/workups/new");
+  await expect(page.getByLabel("Add a step")).toBeVisible();
+  await page.getByLabel("Title").fill(title);
   // Anisole, log P 2.11 (Hansch, Leo & Hoekman 1995; from memory), 108.14 g/mol.
   await page.getByRole("button", { name: "Type one in by hand" }).click();
   const card = page.getByTestId("component-card").last();
@@ -35,6 +37,7 @@ test("a pasted procedure becomes steps, saves, and its written-back paragraph re
   await page.getByRole("button", { name: "Add 6 steps to the workup" }).click();
   await expect(page.getByTestId("step-card")).toHaveCount(6);
 
+  await expect(page.getByLabel("Title")).toHaveValue(title);
   await page.getByRole("button", { name: "Save workup" }).click();
   await expect(page).toHaveURL(/\/workups\/(?!new$)[A-Za-z0-9_-]+$/);
   const paragraph = page.getByTestId("procedure-paragraph");
