@@ -2,7 +2,7 @@
  * Objects that refuse keys they do not know. A misspelt key is not dropped silently (a `"portion": 5` would run
  * one portion, a `"pKa"` would make the compound neutral): each unknown key gets its own issue at its own path,
  * with the nearest allowed key as a suggestion. Stored records the app wrote itself are read with
- * `withoutUnknownKeys`, which drops such keys instead (see DEVELOPERS.md, "Input and stored data").
+ * `withoutUnknownKeys`, which drops such keys instead (README, "Input: a workup description").
  */
 import { z } from "zod";
 
