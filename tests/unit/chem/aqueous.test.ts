@@ -10,7 +10,7 @@ const fresh = (key: string) => {
   return reagentPh(r);
 };
 
-// "Ideal pH" targets: activity coefficients 1, computed from the pKa values (reference-data §4c, derived).
+// "Ideal pH" targets: activity coefficients 1, computed from the pKa values (charge balance with the cited pKa values; derived).
 describe("buffer and reagent pH by charge balance", () => {
   it.each([
     ["saturated NaHCO₃ → ½(6.35 + 10.33) = 8.34", "nahco3_sat", 8.34, 0.02],

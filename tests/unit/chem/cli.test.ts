@@ -42,7 +42,7 @@ describe("layerwise predict", () => {
     expect(p.engineVersion).toMatch(/\d+\.\d+/);
     expect(p.steps).toHaveLength(5);
     expect(Object.keys(p.recovery).sort()).toEqual(["aniline", "benzanilide", "benzoic-acid", "triethylamine"]);
-    // Amines go into the acid wash and the acid into the bicarbonate (two-unit rule, workup-practice §2.2).
+    // Amines go into the acid wash and the acid into the bicarbonate (two-unit rule: “Strategies for optimization of LLE protocols”, LCGC N. Am. 2021, 39(4), 198).
     expect(p.recovery.benzanilide).toBeGreaterThan(0.9);
     for (const impurity of ["aniline", "triethylamine", "benzoic-acid"]) expect(p.recovery[impurity]).toBeLessThan(0.05);
     // Mass balance: isolated plus every side stream gives back the starting amount.
@@ -53,9 +53,9 @@ describe("layerwise predict", () => {
     const aqueousPh = (step: number) => p.steps[step]?.contacts.map((c) => c.phases.find((x) => x.kind === "aqueous")?.pH ?? NaN) ?? [];
     for (const pH of aqueousPh(0)) expect(pH).toBeLessThan(1.5); // 1 M HCl stays strongly acidic
     for (const pH of aqueousPh(1)) { expect(pH).toBeGreaterThan(6); expect(pH).toBeLessThan(9); } // bicarbonate buffer
-    // EtOAc (0.90 g/mL, reference-data §1a) floats on every aqueous wash.
+    // EtOAc (0.90 g/mL, CRC Handbook 95th ed., Physical Constants of Organic Compounds) floats on every aqueous wash.
     for (const step of p.steps) for (const c of step.contacts) expect(c.phases.find((x) => x.kind === "organic")?.position).toBe("top");
-    // Neutralizing benzoic acid with bicarbonate releases CO2 (workup-practice §2.7).
+    // Neutralizing benzoic acid with bicarbonate releases CO2 (HCO₃⁻ + HA → A⁻ + H₂O + CO₂; common practice).
     expect(p.steps[1]?.contacts.reduce((s, c) => s + c.co2Mmol, 0)).toBeGreaterThan(0);
     for (const f of p.flags) { expect(f.cause.length).toBeGreaterThan(10); expect(f.remedy.length).toBeGreaterThan(10); }
   }, TIMEOUT);
@@ -87,7 +87,7 @@ describe("layerwise predict", () => {
   }, TIMEOUT);
 
   it("predicts the stoichiometric ceiling when too little acid is added before extraction", () => {
-    // workup-practice §2.12: 5 mmol of carboxylate with 5 mmol excess hydroxide; 8 mL of 1 M HCl protonates only
+    // Stoichiometry, illustrative numbers (common practice): 5 mmol of carboxylate with 5 mmol excess hydroxide; 8 mL of 1 M HCl protonates only
     // 3 mmol, so recovery is capped near 60 %, while 12 mL (pH 1–2) recovers nearly all.
     const raw = exampleRaw("saponification-ph-swing");
     const acidify = raw.operations.find((op) => op.type === "adjust_ph");

@@ -21,7 +21,7 @@ describe("fitLogK against a closed-form simulator", () => {
   it.each([0.3, 1.0, 1.7])("recovers log K = %s from a recovery generated with it", (truth) => {
     const input = workup(4, 50);
     const observed = simulate(withLogK(input, "p", "etoac", truth)).recovery.p ?? 0;
-    // Sanity: the textbook wash-loss formula (workup-practice §2.3): kept = (1 + V_w/(K·V_org))^−n.
+    // Sanity: the textbook wash-loss formula (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”): kept = (1 + V_w/(K·V_org))^−n.
     expect(observed).toBeCloseTo((1 + 50 / (10 ** truth * 50)) ** -4, 12);
     const fit = fitLogK(input, simulate, { component: "p", observedRecovery: observed, solvent: "etoac" });
     expect(fit.kind).toBe("value");

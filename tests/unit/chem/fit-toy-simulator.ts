@@ -2,7 +2,7 @@
  * A closed-form stand-in for the engine, for testing the fit and uncertainty algorithms apart from the engine:
  * one organic layer (the mixture's first solvent) washed by each `wash` operation at a fixed pH; each
  * component's kept fraction per portion is 1/(1 + V_w/(D·V_org)) with D from log K (or log P) and, for an
- * acid, D = K/(1 + 10^(pH − pKa)) (Henderson–Hasselbalch, workup-practice §2.2). Volumes are taken as given.
+ * acid, D = K/(1 + 10^(pH − pKa)) (Henderson–Hasselbalch; Scherrer & Howard, J. Med. Chem. 1977, 20, 53). Volumes are taken as given.
  */
 import type { WorkupInput } from "@/lib/chem/schema";
 import type { WorkupPrediction } from "@/lib/chem/types";

@@ -17,7 +17,7 @@ export const naphthalene = (role: ComponentRaw["role"] = "product"): ComponentRa
 /** Benzoic acid: log P 1.88 (CRC logP table), pKa 4.204 (IUPAC digitized dataset, Reliable). */
 export const benzoicAcid = (role: ComponentRaw["role"] = "impurity"): ComponentRaw =>
   ({ key: "benzoic", name: "Benzoic acid", role, molarMass: 122.12, amount: mmol(5), logP: { value: 1.88, provenance: "literature" }, pKas: [{ value: 4.204, kind: "acid", provenance: "literature" }] });
-/** Lidocaine: log P 2.44 (PhysProp), pKaH 7.9 (book chapter, reference-data §3). */
+/** Lidocaine: log P 2.44 (PhysProp), pKaH 7.9 (M. H. Bekhit, "Lidocaine for neural blockade", Cambridge University Press). */
 export const lidocaine = (role: ComponentRaw["role"] = "impurity"): ComponentRaw =>
   ({ key: "lidocaine", name: "Lidocaine", role, molarMass: 234.34, amount: mmol(5), logP: { value: 2.44, provenance: "literature" }, pKas: [{ value: 7.9, kind: "base", provenance: "literature" }] });
 /** Glycine: log P −3.21 (PhysProp), pKa 2.350 and 9.780 (IUPAC dataset). */

@@ -1,5 +1,5 @@
 /**
- * F4 on pH adjustments (workup-practice §3 F4: too few equivalents of titrant, or a final pH on the wrong side of
+ * F4 on pH adjustments (common practice: too few equivalents of titrant, or a final pH on the wrong side of
  * the target). An adjustment that reaches its target, or that adds a stated volume with no target, has not run
  * out of acid or base even though the pH ends far from the fresh reagent's.
  */

@@ -17,8 +17,8 @@ function expectFlag(raw: WorkupInputRaw, code: string): Flag {
 }
 const codes = (raw: WorkupInputRaw) => flagsOf(raw).map((f) => f.code);
 
-// Thresholds are the suggested defaults of workup-practice §3; scenarios use literature log P / pKa values from
-// reference-data §3 (see fixtures.ts).
+// Thresholds are our own defaults (a judgement, documented beside each rule in lib/chem/flags); scenarios use
+// literature log P / pKa values whose sources are named in fixtures.ts.
 const acidProduct = () => benzoicAcid("product");
 const amineProduct = () => ({ ...neutral("amine", 2), pKas: [{ value: 9.8, kind: "base" as const, provenance: "estimated" as const }] });
 

@@ -48,7 +48,7 @@ describe("the dry step rinses the spent agent", () => {
     expect(holdUp).toBeCloseTo(Number(d.agentUsedG) * (DRYING_AGENTS.mgso4?.holdUpMlPerG.value ?? NaN), 9);
     expect(d.rinsePortions).toBe(2);
     expect(Number(d.rinseMl)).toBeCloseTo(4 * holdUp, 9);
-    // single mixing cell per portion (workup-practice §2.10): (V_h/(V_h + 2V_h))² = 1/9 of the unrinsed share
+    // single mixing cell per portion (hold-up rinse arithmetic, derived): (V_h/(V_h + 2V_h))² = 1/9 of the unrinsed share
     expect(Number(d.fractionHeldUp)).toBeLessThan(0.02);
   });
 

@@ -15,7 +15,7 @@ describe("Collander lines", () => {
     expect(collanderLogK(2.5, solvent("octanol"), false)).toBe(2.5);
   });
   it("uses the donor line for acids and the acceptor line for the rest (Leo, Hansch & Elkins 1971, from memory)", () => {
-    // chloroform donors: 1.126·logP − 1.343; acceptors: 1.276·logP + 0.171 (reference-data §2a, memory)
+    // chloroform donors: 1.126·logP − 1.343; acceptors: 1.276·logP + 0.171 (Leo, Hansch & Elkins, Chem. Rev. 1971, 71, 525, Collander equations; from memory)
     expect(collanderLogK(2, solvent("chcl3"), true)).toBeCloseTo(1.126 * 2 - 1.343, 10);
     expect(collanderLogK(2, solvent("chcl3"), false)).toBeCloseTo(1.276 * 2 + 0.171, 10);
     // diethyl ether donors: 1.130·logP − 0.170 (memory, moderate)
@@ -44,14 +44,14 @@ describe("Collander lines", () => {
 
 describe("salting out (Setschenow)", () => {
   it.each([
-    // Ks(NaCl) = 0.04·log Kow + 0.114 ([Ks-code]); worked values in reference-data §5 (derived)
+    // Ks(NaCl) = 0.04·log Kow + 0.114 (Ni & Yalkowsky, Int. J. Pharm. 2003, 254, 167; attribution from memory); worked values derived
     ["benzene, log P 2.13", 2.13, 0.199],
     ["naphthalene, log P 3.34", 3.34, 0.248],
     ["phenol, log P 1.48", 1.48, 0.173],
   ])("%s", (_n, logP, ks) => {
     expect(setschenowConstant(logP)).toBeCloseTo(ks, 3);
   });
-  it("brine (≈5.4 M) with Ks 0.2 raises log K by ≈1.1 (reference-data §5, derived)", () => {
+  it("brine (≈5.4 M) with Ks 0.2 raises log K by ≈1.1 (Setschenow equation with the cited Ks; derived)", () => {
     expect(saltingOutShift(0.2, 5.42)).toBeCloseTo(1.08, 2);
   });
   it("caps the gain where the linear form is unreliable", () => {

@@ -10,13 +10,13 @@ const density = (k: string) => SOLVENTS[k]?.density.value ?? NaN;
 
 describe("handbook values in the tables", () => {
   it.each([
-    // CRC Handbook 95th ed., Physical Constants of Organic Compounds (digitized; reference-data §1a)
+    // CRC Handbook 95th ed., Physical Constants of Organic Compounds (digitized)
     ["etoac", 0.9003], ["et2o", 0.7138], ["dcm", 1.3266], ["chcl3", 1.4788], ["toluene", 0.8623], ["hexane", 0.6606], ["thf", 0.8833], ["dmso", 1.101],
   ])("density of %s is %f g/mL", (k, rho) => {
     expect(density(k)).toBeCloseTo(rho, 4);
   });
   it.each([
-    // mutual solubilities (reference-data §1b): Merck Index EtOAc; OSHA DCM; IUPAC-NIST chloroform and 1-butanol
+    // mutual solubilities: Merck Index EtOAc; OSHA DCM; IUPAC-NIST chloroform and 1-butanol
     ["etoac", 8.3, 3.3], ["dcm", 1.3, 0.2], ["chcl3", 0.79, 0.0758], ["nbuoh", 7.4, 20.3], ["toluene", 0.067, 0.04],
   ])("%s: %f wt% in water, %f wt% water in solvent", (k, sInW, wInS) => {
     expect(SOLVENTS[k]?.solventInWaterWtPct?.value).toBeCloseTo(sInW, 4);
@@ -28,7 +28,7 @@ describe("handbook values in the tables", () => {
     expect(REAGENTS.licl_5pct?.basis.value).toBeCloseTo(1.211, 3);
     expect(REAGENTS.citric_10pct?.density?.value).toBeCloseTo(1.0402, 4);
   });
-  it("drying-agent capacities are hydrate stoichiometry (reference-data §7)", () => {
+  it("drying-agent capacities are hydrate stoichiometry (hydrate formulas, derived)", () => {
     // MgSO₄·7H₂O: 7·18.015/120.37 = 1.048; Na₂SO₄·10H₂O: 180.15/142.04 = 1.268
     expect(DRYING_AGENTS.mgso4?.capacityGPerG.value).toBeCloseTo(1.048, 2);
     expect(DRYING_AGENTS.na2so4?.capacityGPerG.value).toBeCloseTo(1.268, 2);
@@ -39,7 +39,7 @@ describe("handbook values in the tables", () => {
   });
 });
 
-describe("layer densities and order (workup-practice §2.6)", () => {
+describe("layer densities and order (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.4 “Which Layer is Which?”)", () => {
   it("DCM : hexane 1:1 ≈ 0.995 g/mL, essentially water: marginal", () => {
     const rho = mixtureDensity({ dcm: 1, hexane: 1 }, density);
     expect(rho).toBeCloseTo(0.994, 2);

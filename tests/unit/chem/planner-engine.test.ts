@@ -16,7 +16,7 @@ const ideal: WorkupSimulator = (input, options) => simulateWorkup(input, { ...op
 
 describe("planWorkup with the simulated check", () => {
   it("turns one 100 mL extraction of a K = 4 solute into several smaller ones (textbook 80 % vs 92 %)", () => {
-    // workup-practice §2.3; reference-data §6a: K = 4, 100 mL water, 1 × 100 mL → 80 %, 3 × 33.3 mL → 92.1 %.
+    // Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”; arithmetic derived: K = 4, 100 mL water, 1 × 100 mL → 80 %, 3 × 33.3 mL → 92.1 %.
     const raw: WorkupInputRaw = {
       components: [{ key: "p", name: "Neutral product", role: "product", molarMass: 150, amount: { value: 2, unit: "mmol" },
         logK: { etoac: { value: Math.log10(4), provenance: "group" } } }],

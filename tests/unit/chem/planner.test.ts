@@ -6,26 +6,26 @@ import { workupInputSchema, type WorkupInputRaw } from "@/lib/chem/schema";
 
 describe("stage arithmetic the planner reasons with", () => {
   it("reproduces the textbook single versus multiple extraction (K = 4)", () => {
-    // workup-practice §2.3 and reference-data §6a [notetube]: K = 4, 100 mL aqueous; one 100 mL portion
+    // multi-portion extraction, Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”; arithmetic derived: K = 4, 100 mL aqueous; one 100 mL portion
     // extracts 80.0 %, three 33.3 mL portions 92.1 %.
     const split = splitComparison(4, 100, 100, 3);
     expect(split[0]?.recovery).toBeCloseTo(0.8, 10);
     expect(split[2]?.recovery).toBeCloseTo(0.921, 3);
-    // K = 2 under the same split: 67 % versus 78 % (workup-practice §2.3).
+    // K = 2 under the same split: 67 % versus 78 % (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”; derived).
     const k2 = splitComparison(2, 100, 100, 3);
     expect(k2[0]?.recovery).toBeCloseTo(0.667, 3);
     expect(k2[2]?.recovery).toBeCloseTo(0.78, 2);
   });
 
   it("reproduces the Harris extraction-efficiency example (K = 3, 100 mL water)", () => {
-    // reference-data §6a (Harris, Quantitative Chemical Analysis; numbers confirmed on a problem page):
+    // Harris, Quantitative Chemical Analysis, “Extraction efficiency” example (attribution from memory; arithmetic derived):
     // one 500 mL extraction leaves 6.25 %; five 100 mL extractions leave 0.098 %.
     expect(1 - fractionExtractedAfter(3, 100, 500, 1)).toBeCloseTo(0.0625, 10);
     expect(1 - fractionExtractedAfter(3, 100, 100, 5)).toBeCloseTo(0.000977, 6);
   });
 
   it("gives the wash-loss figure for a moderately polar product", () => {
-    // workup-practice §2.3 / F6: K = 10, four equal-volume washes keep (10/11)^4 ≈ 68 %.
+    // wash-loss formula (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”), derived: K = 10, four equal-volume washes keep (10/11)^4 ≈ 68 %.
     expect(fractionKeptAfterWashes(10, 50, 50, 4)).toBeCloseTo(0.683, 3);
   });
 

@@ -75,7 +75,7 @@ describe("acid–base separation of a neutral compound from an amine and a carbo
   });
 });
 
-describe("ester saponification worked example (workup-practice §2.12, illustrative numbers)", () => {
+describe("ester saponification worked example (stoichiometry, illustrative numbers; common practice)", () => {
   const run = (hclMl: number) => predictWorkup({
     components: [{ key: "acid", name: "Aryl carboxylic acid", role: "product", molarMass: 200, amount: mmol(5),
       logP: { value: 2, provenance: "estimated" }, logK: { etoac: { value: 2, provenance: "estimated" } }, pKas: [{ value: 4.2, kind: "acid", provenance: "estimated" }] }],

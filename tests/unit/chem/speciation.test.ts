@@ -24,7 +24,7 @@ describe("distribution ratio of monoprotic acids and bases", () => {
     expect(logDistributionRatio(pH, [{ pKa, kind: "base" }], logP, noIon)).toBeCloseTo(expected, 10);
   });
 
-  it("two units on the wrong side of the pKa costs a factor of about 100 (workup-practice §2.2)", () => {
+  it("two units on the wrong side of the pKa costs a factor of about 100 (two-unit rule: “Strategies for optimization of LLE protocols”, LCGC N. Am. 2021, 39(4), 198)", () => {
     const at = distributionRatio(6.2, [{ pKa: 4.2, kind: "acid" }], 2, noIon);
     expect(100 / at).toBeCloseTo(101, 6);
   });
@@ -34,7 +34,7 @@ describe("distribution ratio of monoprotic acids and bases", () => {
     expect(Math.log10(d)).toBeCloseTo(-1.5, 6);
   });
 
-  it("reaches 99% ionized two units past the pKa (reference-data §4c, derived)", () => {
+  it("reaches 99% ionized two units past the pKa (Henderson–Hasselbalch, derived)", () => {
     expect(1 - fractionNeutral(6.2, [{ pKa: 4.2, kind: "acid" }])).toBeCloseTo(100 / 101, 12);
     expect(1 - fractionNeutral(8.72, [{ pKa: 10.72, kind: "base" }])).toBeCloseTo(100 / 101, 12);
   });
@@ -86,12 +86,12 @@ describe("several sites", () => {
 describe("fraction extracted", () => {
   // IUPAC Gold Book "fraction extracted": E_n = 1 − (rD + 1)^−n, r = V(solvent)/V(feed) (PAC 65, 2373, 1993, p. 2384)
   it.each([
-    // case, D, V_org per portion, V_aq, n, expected fraction remaining (reference-data §6a)
+    // case, D, V_org per portion, V_aq, n, expected fraction remaining (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”; derived)
     ["K = 3, 100 mL water, one 500 mL portion (Harris example, problem page)", 3, 500, 100, 1, 0.0625],
     ["K = 3, five 100 mL portions", 3, 100, 100, 5, 0.25 ** 5],
     ["K = 4, one 100 mL portion (80.0% extracted, study page)", 4, 100, 100, 1, 0.2],
     ["K = 4, three 33.3 mL portions (92.1% extracted)", 4, 100 / 3, 100, 3, 1 - 0.921],
-    ["K = 2, three 33.3 mL portions (78%, workup-practice §2.3)", 2, 100 / 3, 100, 3, 0.22],
+    ["K = 2, three 33.3 mL portions (78%, Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5 “Extraction Theory”)", 2, 100 / 3, 100, 3, 0.22],
   ])("%s", (_n, d, vo, va, n, remaining) => {
     expect(1 - fractionExtracted(d, vo, va, n)).toBeCloseTo(remaining, 2);
   });
