@@ -1,7 +1,7 @@
 /**
- * Work-up operations (workup-practice §1.2). Each separation says which stream is kept (`keep`); the other can be
+ * Work-up operations. Each separation says which stream is kept (`keep`); the other can be
  * saved under a name (`saveAs`) for a later combine or back-extraction, otherwise it goes to waste. Wash, extract
- * and back-extract are the same physics with different defaults for the kept stream (§1.1).
+ * and back-extract are the same physics with different defaults for the kept stream.
  * Parsed (output) fields carry their canonical unit in the name: volumeMl, massG, amountMmol, temperatureC.
  */
 import { z } from "zod";
@@ -135,7 +135,7 @@ const concentrate = strictObject({
   pressure: pressureSchema().optional(),
   /** Total time on the evaporator, min; omitted: until the solvent is gone plus a few minutes (evaporation.ts). */
   minutes: z.number({ error: "minutes must be a number" }).gt(0, { error: "minutes must be > 0" }).max(10080, { error: "minutes must be ≤ 10080 (one week)" }).optional(),
-  /** Whether the stream was tested for peroxides before concentration (asked for ether streams, §4.3). */
+  /** Whether the stream was tested for peroxides before concentration (asked for ether streams: peroxide-forming ethers, common practice). */
   peroxideTested: z.boolean().optional(),
   ...common,
 }).transform(({ bath, pressure, ...o }) => ({ ...withCommon(o), bathC: bath ?? 40, pressureMbar: pressure }));

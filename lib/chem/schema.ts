@@ -14,7 +14,7 @@ import { toMmol } from "./units";
 
 export const PROVENANCES = ["measured", "literature", "estimated", "group"] as const;
 export const ROLES = ["product", "starting_material", "reagent", "byproduct", "impurity", "catalyst", "other"] as const;
-/** Reagent and structure classes the failure-mode and safety checks look for (§3 F16, F20, F28, F29; §4). */
+/** Reagent and structure classes the failure-mode and safety checks look for (failure modes F16, F20, F28, F29 in flags/, and the safety cautions). */
 export const COMPONENT_TAGS = [
   "oxidant", "peroxide", "cyanide", "azide", "hf_source", "hydride", "organometallic",
   "aluminium", "tin", "copper", "zinc", "boron", "titanium", "palladium", "nickel", "iron", "quaternary_ammonium",

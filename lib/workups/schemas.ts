@@ -91,7 +91,7 @@ export const updateWorkupSchema = strictObject({
 
 export const LAYER_PHASES = ["organic", "aqueous", "emulsion", "solid"] as const;
 
-/** Assay of the product (or another component) in one stream of one step, to locate losses (workup-practice §5.1). */
+/** Assay of the product (or another component) in one stream of one step, to locate losses. */
 export const layerAssaySchema = strictObject({
   step: z.number({ error: "step must be a number" }).int({ error: "step must be a whole number" }).min(1, { error: "step must be ≥ 1" }).max(200),
   phase: z.enum(LAYER_PHASES, { error: () => `phase must be one of ${LAYER_PHASES.join(", ")}` }),

@@ -1,4 +1,4 @@
-/** Handling failure modes: F13, F14, F15, F17, F23 (workup-practice §3). */
+/** Handling failure modes: F13, F14, F15, F17, F23. */
 import { DRYING_AGENT_EXCESS_LOAD, DRYING_AGENT_MAX_LOAD } from "../data/drying-agents";
 import { gasMolarVolumeMl } from "../units";
 import { flag, operationOf, pct, productInfo, stepName, type Rule } from "./context";
@@ -137,7 +137,7 @@ export const wetOrganic: Rule = (ctx) => {
   const conc = ctx.steps.find((s) => s.type === "concentrate");
   if (conc && dried.length === 0) {
     const water = Number(conc.details.waterMl ?? 0);
-    // Solvents that hold > 1 wt% water (EtOAc, ether, 2-MeTHF, BuOH; §3 F23): dissolved water above 0.5 vol%.
+    // Solvents that hold > 1 wt% water (EtOAc, ether, 2-MeTHF, BuOH; F23, common practice): dissolved water above 0.5 vol%.
     if (water > 0.005 * Number(conc.details.volumeMl ?? Infinity)) {
       return [flag("F23", "warning", "Organic layer not dried before concentration",
         `About ${water.toFixed(2)} mL of water is predicted in the organic solution concentrated in ${stepName(ctx, conc.index)}: it inflates the crude mass and carries salts into it.`,

@@ -1,5 +1,5 @@
 /**
- * Failure-mode flags (workup-practice §3). Each rule reads the simulation and returns flags with a plain-language
+ * Failure-mode flags. Each rule reads the simulation and returns flags with a plain-language
  * cause and a remedy. Thresholds are the document's suggested defaults. Flags are prompts to look, not verdicts.
  */
 import { type Flag } from "../types";
@@ -19,7 +19,7 @@ const RULES: Rule[] = [
   solventTooNonPolar, noInProcessAssay, measurementArtefact, chelation, oxidantNotQuenched,
 ];
 
-/** Codes of the failure modes of workup-practice §3 that the engine evaluates. */
+/** Codes of the failure modes that the engine evaluates. */
 export const IMPLEMENTED_FAILURE_MODES = [
   "F1", "F2", "F3", "F4", "F5", "F6", "F7", "F8", "F9", "F10", "F11", "F12", "F13", "F14", "F15",
   "F16", "F17", "F18", "F19", "F20", "F22", "F23", "F24", "F25", "F26", "F27", "F28", "F29",

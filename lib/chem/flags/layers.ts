@@ -1,4 +1,4 @@
-/** Layer and separation failure modes: F10, F11, F12, F22 (workup-practice §3). */
+/** Layer and separation failure modes: F10, F11, F12, F22. */
 import { MARGINAL_DENSITY_DIFFERENCE } from "../phases";
 import { type ComponentTag } from "../schema";
 import { flag, operationOf, pct, productInfo, stepName, type Rule } from "./context";

@@ -1,4 +1,4 @@
-/** Partition and solvent failure modes: F5, F6, F7, F8, F24, F25 (workup-practice §3). */
+/** Partition and solvent failure modes: F5, F6, F7, F8, F24, F25. */
 import { solventLogK } from "../partition";
 import { flag, pct, productInfo, stepName, type Rule } from "./context";
 

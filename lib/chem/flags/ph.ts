@@ -1,4 +1,4 @@
-/** pH-driven failure modes: F1, F2, F3, F4, F16, F18 (workup-practice §3). */
+/** pH-driven failure modes: F1, F2, F3, F4, F16, F18. */
 import { logDistributionRatio, isZwitterionic, type IonizableSite } from "../speciation";
 import { solventLogK } from "../partition";
 import { describeWindow, effectivePh, flag, insideWindow, isoelectricWindow, pct, ph, productInfo, stepName, type Rule } from "./context";

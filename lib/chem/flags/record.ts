@@ -1,4 +1,4 @@
-/** Record, reagent and measurement failure modes: F9, F19, F20, F26, F27, F28, F29 (workup-practice §3). */
+/** Record, reagent and measurement failure modes: F9, F19, F20, F26, F27, F28, F29. */
 import { type ComponentTag } from "../schema";
 import { flag, productInfo, stepName, type Rule } from "./context";
 

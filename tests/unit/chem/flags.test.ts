@@ -51,7 +51,7 @@ describe("failure-mode flags (one per implemented mode)", () => {
   });
   it("F6: K = 10, four equal-volume water washes lose ≈32%", () => {
     const k10 = { key: "p", name: "Amide", role: "product" as const, molarMass: 150, amount: mmol(2), logK: { etoac: { value: 1, provenance: "group" as const } } };
-    // (10/11)⁴ keeps 68% with immiscible layers (§2.3); EtOAc dissolving in each wash (8.3 wt%) loses a little more.
+    // (10/11)⁴ keeps 68% with immiscible layers (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5); EtOAc dissolving in each wash (8.3 wt%) loses a little more.
     const f = expectFlag(workup([k10], [["etoac", 50]], [wash("water", 50, 4)]), "F6");
     expect(f.cause).toMatch(/(3[2-9]|4\d)%/);
     expect(f.severity).toBe("danger");

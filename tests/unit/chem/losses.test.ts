@@ -65,7 +65,7 @@ describe("the dry step rinses the spent agent", () => {
 });
 
 describe("drying flags agree", () => {
-  // 50 mL EtOAc after a water wash holds ≈2.7 g water per 100 mL (§2.4): about 1.4 g here. MgSO₄ capacity 1.05 g/g.
+  // 50 mL EtOAc after a water wash holds ≈2.7 g water per 100 mL (EtOAc mutual solubility, Merck Index; derived): about 1.4 g here. MgSO₄ capacity 1.05 g/g.
   const withMass = (g: number, rinseMl?: number) => predictWorkup(workup([naphthalene()], [["etoac", 50]], [wash("water", 30),
     { type: "dry", agent: "mgso4", mass: { value: g, unit: "g" }, ...(rinseMl ? { rinse: { solvent: "etoac", volume: mL(rinseMl) } } : {}) }]));
   const load = (g: number) => {

@@ -60,14 +60,14 @@ describe("salting out (Setschenow)", () => {
 });
 
 describe("cosolvency (log-linear model)", () => {
-  it("σ = 4 with 10% cosolvent in water cuts K about 2.5-fold (workup-practice §2.8)", () => {
+  it("σ = 4 with 10% cosolvent in water cuts K about 2.5-fold (log-linear cosolvency model, Yalkowsky & Roseman; derived)", () => {
     expect(10 ** -cosolvencyShift(4, 0.1)).toBeCloseTo(2.51, 2);
   });
   it("σ grows with solute log P and is never negative", () => {
     const thf = solvent("thf");
     expect(cosolvencyPower(4, thf)).toBeGreaterThan(cosolvencyPower(1, thf));
     expect(cosolvencyPower(-5, thf)).toBe(0);
-    // σ of 3–5 is common for lipophilic solutes (§2.8, memory)
+    // σ of 3–5 is common for lipophilic solutes (Yalkowsky, Solubility and Solubilization in Aqueous Media; from memory)
     expect(cosolvencyPower(4, thf)).toBeGreaterThan(3);
     expect(cosolvencyPower(4, thf)).toBeLessThan(5);
   });

@@ -51,7 +51,7 @@ describe("layer densities and order (Nichols, Organic Chemistry Laboratory Techn
     expect(layerOrder(rho, 0.9982).organicOnTop).toBe(false);
     expect(layerOrder(rho, 1.197).organicOnTop).toBe(true);
   });
-  it("water activity of saturated NaCl ≈ 0.75 (§2.4, memory)", () => {
+  it("water activity of saturated NaCl ≈ 0.75 (Robinson & Stokes, Electrolyte Solutions; from memory)", () => {
     expect(waterActivity(2 * 5.42)).toBeCloseTo(0.77, 1);
     expect(waterActivity(0)).toBe(1);
   });
@@ -64,7 +64,7 @@ const twoLayer = (solvent: string, reagent: string, vOrg = 50, vAq = 50): Workup
 });
 
 describe("phases in a wash", () => {
-  it("50 mL EtOAc washed with 50 mL water loses about 4 g (≈4.5 mL) of EtOAc (§2.4 example)", () => {
+  it("50 mL EtOAc washed with 50 mL water loses about 4 g (≈4.5 mL) of EtOAc (from the mutual solubilities above; derived)", () => {
     const c = predictWorkup(twoLayer("etoac", "water")).steps[0]?.contacts[0];
     const lost = c?.phases.find((p) => p.kind === "aqueous")?.solventsMl.etoac ?? 0;
     expect(lost * 0.9003).toBeGreaterThan(3.5);
@@ -75,7 +75,7 @@ describe("phases in a wash", () => {
     const b = predictWorkup(twoLayer("etoac", "brine")).steps[0]?.contacts[0]?.phases.find((p) => p.kind === "aqueous")?.solventsMl.etoac ?? 0;
     expect(b).toBeLessThan(w / 2);
   });
-  it("100 mL EtOAc holds ≈2.7 g water after a water wash (§2.4 example)", () => {
+  it("100 mL EtOAc holds ≈2.7 g water after a water wash (from the mutual solubilities above; derived)", () => {
     const org = predictWorkup(twoLayer("etoac", "water", 100, 100)).steps[0]?.contacts[0]?.phases.find((p) => p.kind === "organic");
     const waterG = (org?.solventsMl.water ?? 0) * 0.9982;
     expect(waterG).toBeGreaterThan(2.4);

@@ -42,7 +42,7 @@ describe("planWorkup with the simulated check", () => {
     const plan = planWorkup(parse(raw), { targetRecovery: 0.9 }, simulateWorkup);
     expect(plan.extraction?.reasons.join(" ")).toMatch(/already reaches the target/);
     expect(plan.changes.some((c) => c.action === "replace" && c.operation?.type === "extract" && c.step === 4)).toBe(false);
-    // The neutral ester is washed out of the basic water by ether portions (pH swing, §2.3). Methyl benzoate's
+    // The neutral ester is washed out of the basic water by ether portions (pH swing, common practice). Methyl benzoate's
     // ether/water log K is 2.07 by the Abraham model (descriptors: Bradley, Acree & Lang 2014; water-saturated
     // ether equation, from memory), so the procedure's two 20 mL portions already leave < 1 % of it; under the
     // old ether line (log K 1.35) the planner asked for more.

@@ -33,7 +33,7 @@ describe("stage arithmetic the planner reasons with", () => {
     for (const d of [0.3, 1, 4, 30]) {
       const r = splitComparison(d, 80, 120, 6).map((o) => o.recovery);
       for (let i = 1; i < r.length; i++) expect(r[i]).toBeGreaterThan(r[i - 1] ?? 1);
-      // The limit exp(−D·V/V_aq) bounds what is left (§2.3).
+      // The limit exp(−D·V/V_aq) bounds what is left (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5).
       expect(1 - (r[5] ?? 0)).toBeGreaterThan(Math.exp(-d * 120 / 80));
     }
   });
@@ -50,7 +50,7 @@ describe("planWorkup (closed form, no simulation)", () => {
     const acidWash = plan.washes.find((w) => w.purpose === "remove_bases");
     const baseWash = plan.washes.find((w) => w.purpose === "remove_acids");
     if (!acidWash?.window || !baseWash?.window || !acidWash.reagent || !baseWash.reagent) throw new Error("expected both washes");
-    // Benzoic acid pKa 4.20 [IUPAC-pKa B91]: removal needs pH ≥ 6.2 at least (§2.2 two-unit rule).
+    // Benzoic acid pKa 4.20 [IUPAC-pKa B91]: removal needs pH ≥ 6.2 at least (two-unit rule, LCGC N. Am. 2021, 39(4), 198).
     expect(baseWash.window.low).toBeGreaterThanOrEqual(6.2);
     expect(baseWash.reagent.pH).toBeGreaterThanOrEqual(baseWash.window.low);
     // Aniline pKaH 4.60 [IUPAC-pKa B65]: removal needs pH ≤ 2.6.
@@ -69,7 +69,7 @@ describe("planWorkup (closed form, no simulation)", () => {
 
   it("recommends several portions to reach a recovery one portion cannot", () => {
     // A neutral product with K = 4 (a group value) in 100 mL of water, extracted once with 100 mL EtOAc
-    // in the procedure: one portion gives 80 %, so ≥ 95 % needs more, smaller portions (§2.3).
+    // in the procedure: one portion gives 80 %, so ≥ 95 % needs more, smaller portions (Nichols, Organic Chemistry Laboratory Techniques, LibreTexts §4.5).
     const raw: WorkupInputRaw = {
       components: [{ key: "p", name: "product", role: "product", molarMass: 150, amount: { value: 2, unit: "mmol" },
         logK: { etoac: { value: Math.log10(4), provenance: "group" } } }],

@@ -103,7 +103,7 @@ describe("ester saponification worked example (stoichiometry, illustrative numbe
 });
 
 describe("heat, capacity, drying and concentration", () => {
-  it("50 mmol strong acid neutralized in ~100 g water warms it ≈7 K (workup-practice §2.7)", () => {
+  it("50 mmol strong acid neutralized in ~100 g water warms it ≈7 K (ΔH of neutralization ≈ −56 kJ/mol, heat capacity of water 4.18 J/(g·K); from memory)", () => {
     const r = predictWorkup({
       components: [naphthalene()], mixture: { solvents: [], reagents: [{ reagent: "hcl_1m", volume: mL(50) }] },
       operations: [{ type: "adjust_ph", reagent: "naoh_1m", volume: mL(50) }],

@@ -41,7 +41,7 @@ describe("distribution ratio of monoprotic acids and bases", () => {
 });
 
 describe("several sites", () => {
-  it("diprotic acid matches the closed form f₀ = 1/(1 + 10^(pH−pKa1) + 10^(2pH−pKa1−pKa2)) (§2.2)", () => {
+  it("diprotic acid matches the closed form f₀ = 1/(1 + 10^(pH−pKa1) + 10^(2pH−pKa1−pKa2)) (standard speciation result, from memory)", () => {
     // independent-site form equals the closed form when the two sites do not interact
     const pK1 = 3, pK2 = 5, pH = 4;
     const independent = fractionNeutral(pH, [{ pKa: pK1, kind: "acid" }, { pKa: pK2, kind: "acid" }]);
