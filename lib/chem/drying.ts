@@ -3,7 +3,7 @@
  * rinsing it with fresh solvent returns most of that. A rinse is part of the step: when the record gives none,
  * the common practice of rinsing the spent agent with two portions of the layer's own solvent, each twice the
  * volume it holds, is assumed (DEFAULT_RINSE_*; the editor's help text says so). Each portion leaves
- * V_h/(V_h + V_r) of the solute in the held solution behind (single mixing cell, workup-practice §2.10).
+ * V_h/(V_h + V_r) of the solute in the held solution behind (single mixing cell, common practice).
  */
 import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
 import { WATER } from "./library";

@@ -1,6 +1,6 @@
 /**
  * Inverse fit: from the observed recovery of one work-up, the neutral log K of one component in one solvent,
- * solved through the whole sequence with the same simulator (workup-practice §5.2). Recovery is monotone in
+ * solved through the whole sequence with the same simulator. Recovery is monotone in
  * log K for a fixed sequence, so a bracketed bisection on log K finds the one value that reproduces the
  * observation. A recovery within the noise of what an infinite (or zero) K gives only bounds K, and a
  * recovery that hardly moves with K (the component ionized, or lost by another path) says nothing about it.
@@ -18,7 +18,7 @@ export interface FitOptions {
   observedRecovery: number;
   /**
    * Standard uncertainty of the observed recovery, as a fraction. Default 0.03 (from memory: qNMR with an
-   * internal standard is good to a few per cent; gravimetric recoveries are worse, workup-practice §5.2).
+   * internal standard is good to a few per cent; gravimetric recoveries are worse; common practice).
    */
   recoverySe?: number;
   /** Solvent whose log K is fitted, as the engine names it. Default: the organic solvent with most volume. */

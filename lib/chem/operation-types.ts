@@ -1,5 +1,5 @@
 /**
- * Editor metadata for the operation types: a label, one line of purpose (workup-practice §1.2) and each field
+ * Editor metadata for the operation types: a label, one line of purpose and each field
  * with its kind and accepted units, so a form can be built without reading the zod schema.
  */
 import { type OperationType } from "./schema";

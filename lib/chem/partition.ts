@@ -6,7 +6,7 @@
  *  - Otherwise Collander-type lines log K_s = a·log P_oct + b (Collander 1951; Leo, Hansch & Elkins 1971), one
  *    line for H-bond-donor solutes and one for the rest; coefficients and their confidence in data/solvents.ts.
  *  - Salting out of neutrals (Setschenow): log K rises by K_s·c_salt; K_s from 0.04·log P + 0.114 L/mol
- *    ([Ks-code], reference-data §5) unless given.
+ *    (correlation attributed to Ni & Yalkowsky, Int. J. Pharm. 2003, 254, 167; from memory) unless given.
  *  - Cosolvency (log-linear model, Yalkowsky & Roseman 1981): a water-miscible solvent at volume fraction f in
  *    the aqueous phase raises aqueous solubility by 10^(σ·f), so log K falls by σ·f; σ = m·log P + n
  *    (form of Li & Yalkowsky 1998).
@@ -79,7 +79,7 @@ export function solventLogK(c: Pick<Component, "logP" | "logK" | "pKas" | "smile
   return { value: collanderLogK(logP.value, solvent, isHBondDonor(c)), se, origin: "collander", provenance: logP.provenance };
 }
 
-/** Setschenow constant in NaCl, L/mol: 0.04·log P + 0.114 ([Ks-code]; attribution to Ni & Yalkowsky 2003 from memory). */
+/** Setschenow constant in NaCl, L/mol: 0.04·log P + 0.114 (the correlation of the Armitage/Kramer in-vitro distribution model; attribution to Ni & Yalkowsky 2003 from memory). */
 export function setschenowConstant(logP: number): number {
   return Math.max(0, 0.04 * logP + 0.114);
 }

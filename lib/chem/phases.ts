@@ -1,5 +1,5 @@
 /**
- * Phase volumes and densities (workup-practice §2.4, §2.6).
+ * Phase volumes and densities (densities and mutual solubilities from the CRC Handbook tables in data/).
  *  - Each immiscible solvent dissolves in the aqueous layer up to its saturation mass fraction (scaled by its
  *    share of the organic layer, and lowered by salt through its own Setschenow constant): solvent lost to water.
  *  - Water dissolves in the organic layer: w_sat·m_org·a_w (§2.4; linear in water activity, an approximation).

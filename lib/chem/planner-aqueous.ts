@@ -1,7 +1,7 @@
 /**
  * Washing an aqueous solution of an ionized product with organic solvent (the middle leg of a pH swing): how many
  * portions carry the neutral impurities away while the product stays in the water. Uses the distribution ratios
- * the simulator computed at that contact, so co-solvent and salt effects are included (workup-practice §2.3, §2.8).
+ * the simulator computed at that contact, so co-solvent and salt effects are included.
  */
 import { SOLVENTS } from "./data/solvents";
 import { type Operation } from "./schema";

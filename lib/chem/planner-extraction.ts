@@ -1,6 +1,6 @@
 /**
  * Extraction of the product out of an aqueous phase: the pH to extract at, and how many portions of which
- * volume reach the recovery target (several small portions beat one large one, workup-practice §2.3).
+ * volume reach the recovery target (several small portions beat one large one; any textbook treatment of multiple extraction).
  */
 import { reagentPh } from "./aqueous";
 import { type CompiledReagent } from "./library";

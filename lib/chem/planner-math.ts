@@ -1,5 +1,5 @@
 /**
- * Closed-form stage arithmetic the planner reasons with (workup-practice §2.1–2.3), and the distribution
+ * Closed-form stage arithmetic the planner reasons with (the multiple-extraction formula of any analytical chemistry textbook, e.g. Harris, Quantitative Chemical Analysis), and the distribution
  * ratio of a component in a solvent at a pH from the engine's own partition and speciation functions.
  */
 import { type SolventProps } from "./data/solvents";

@@ -1,7 +1,7 @@
 /**
  * Acid and base washes of an organic solution: the pH window that removes a group of ionizable impurities
  * while keeping the product, the mildest stock reagent inside it, and the smallest wash that does the job
- * with enough capacity (workup-practice §2.2 two-unit rule, §2.3 wash-loss formula, §2.7 capacity, F4).
+ * with enough capacity (the two-unit pH rule and the wash-loss formula, common practice; capacity from stoichiometry; F4).
  */
 import { reagentPh } from "./aqueous";
 import { type CompiledReagent } from "./library";
@@ -88,7 +88,7 @@ function siteText(c: Component, purpose: WashGroupPlan["purpose"]): string {
 
 export function planWashGroup(ctx: WashContext, purpose: WashGroupPlan["purpose"], impurities: Impurity[]): WashGroupPlan {
   const keys = impurities.map((i) => i.component.key);
-  const reasons = impurities.map((i) => `${siteText(i.component, purpose)} (workup-practice §2.2).`);
+  const reasons = impurities.map((i) => `${siteText(i.component, purpose)} (two pH units past the pKa, common practice).`);
   const window = findWindow(ctx, impurities);
   const empty = { purpose, impurities: keys, window, reagent: null, volumeMl: 0, portions: 0, impurityLeft: {}, productKept: 1 };
   if (!window) {

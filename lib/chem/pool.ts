@@ -1,7 +1,7 @@
 /**
  * Pool several observations of one compound's log K (or log D) in one solvent into a group
  * estimate with a standard error, so that one noisy record does not overwrite a well-established
- * value (workup-practice.md §5.2, "Statistics").
+ * value (inverse-variance pooling with an outlier screen, common practice).
  *
  * Model: y_i = μ + e_i with e_i ~ N(0, φ·v_i), v_i the stated variance of each observation and φ an
  * unknown dispersion (stated errors are often too small or too large by a common factor).

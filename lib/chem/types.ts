@@ -7,7 +7,7 @@ export type Severity = "info" | "warning" | "danger";
 export type LayerKind = "organic" | "aqueous";
 export type LayerPosition = "top" | "bottom" | "single";
 
-/** A risk flag from workup-practice §3: what the model sees, why it matters, what to do. */
+/** A risk flag: what the model sees, why it matters, what to do. */
 export interface Flag {
   code: string;
   severity: Severity;

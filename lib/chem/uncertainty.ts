@@ -1,6 +1,6 @@
 /**
  * Propagates input uncertainty (log P, log K, pKa, volumes, amounts, set pH) to an interval for every
- * component's recovery and purity by seeded Monte Carlo over the simulator (workup-practice §2.11 step 4).
+ * component's recovery and purity by seeded Monte Carlo over the simulator (propagation of distributions, JCGM 101:2008).
  * The same seed gives the same draws, so a stored interval can be reproduced; deviation flags compare an
  * observed recovery with the interval (§2.11 step 5).
  */

@@ -1,6 +1,6 @@
 /**
  * A partition observation inferred from one workup's reported outcome through the engine's inverse fit (lib/chem
- * fit.ts), used only where the record can carry it (workup-practice §5.2 table):
+ * fit.ts), used only where the record can carry it:
  *  - the product's purity must have been measured (weight only: the isolated mass may hold impurities or solvent);
  *  - with an in-process assay as reference, the recovery is the work-up's own and is fitted; with only the expected
  *    amount, the reaction's yield is folded in, so the work-up recovered at least what was reported and K is only

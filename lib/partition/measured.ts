@@ -1,5 +1,5 @@
 /**
- * From a measurement of both layers to the neutral species' log K (workup-practice §5.2):
+ * From a measurement of both layers to the neutral species' log K (shake-flask mass balance, common practice):
  *   D = (n_org / V_org) / (n_aq / V_aq), or C_org / C_aq when concentrations were entered;
  *   log K_N = log D − log(f₀ + (1 − f₀)·10^Δ), with f₀ the neutral fraction at the measured aqueous pH (lib/chem
  *   speciation, independent sites) and Δ the engine's default ion offset (−3.5, common practice, §2.2).

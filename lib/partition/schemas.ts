@@ -2,7 +2,7 @@
  * One zod schema per partition input, shared by the add-measurement form, its server action and the REST route.
  * Browser-safe: zod only. A measurement is the amount (or concentration) of the compound found in each layer after
  * equilibration, with the layer volumes, the aqueous pH measured after equilibration and the temperature
- * (workup-practice §5.2, "Record the conditions that define D").
+ * (record the conditions that define D: common practice).
  */
 import { z } from "zod";
 

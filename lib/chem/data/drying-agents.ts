@@ -1,7 +1,7 @@
 /**
- * Drying agents. Theoretical capacity is the stoichiometry of the highest hydrate (reference-data §7, derived);
+ * Drying agents. Theoretical capacity is the stoichiometry of the highest hydrate (derived from the hydrate formulas);
  * practical capacity is lower (0.2–0.8 g/g, memory), so the engine recommends 3.5× the theoretical need (at least 3×,
- * workup-practice §2.10, common practice; and under the 0.3 load of F23). Hold-up is the solution a gram of spent agent keeps after
+ * common practice; and under the 0.3 load of F23). Hold-up is the solution a gram of spent agent keeps after
  * filtration or decanting (0.5–1 mL/g, memory; better measured once per agent by the group).
  */
 import { type Sourced } from "./sources";

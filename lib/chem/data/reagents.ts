@@ -83,7 +83,7 @@ const list: ReagentProps[] = [
   solution("naoh_10pct", "10% NaOH", "base", src(2.77, "memory", "memory"), src(1.109, "memory", "memory"), { ions: { Na: 1 } }),
   solution("koh_1m", "1 M KOH", "base", src(1.0, "derived", "derived"), src(1.05, "memory", "memory"), { ions: { K: 1 } }),
   solution("lioh_1m", "1 M LiOH", "base", src(1.0, "derived", "derived"), src(1.03, "memory", "memory"), { ions: { Li: 1 } }),
-  // 1 M HCl ≈ 3.6 wt% (CRC lists 3 wt% = 0.833 M and 4 wt% = 1.117 M); density 1.02 (memory in workup-practice §1.3).
+  // 1 M HCl ≈ 3.6 wt% (CRC lists 3 wt% = 0.833 M and 4 wt% = 1.117 M); density 1.02 (from memory).
   solution("hcl_1m", "1 M HCl", "acid", src(1.0, "CRC-conc", "confirmed"), src(1.017, "memory", "memory"), { ions: { Cl: 1 } }),
   solution("hcl_2m", "2 M HCl", "acid", src(2.0, "derived", "derived"), src(1.034, "memory", "memory"), { ions: { Cl: 1 } }),
   solution("hcl_3m", "3 M HCl", "acid", src(3.0, "derived", "derived"), src(1.043, "S3b", "confirmed"), { ions: { Cl: 1 } }),

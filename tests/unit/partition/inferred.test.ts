@@ -8,7 +8,7 @@ const base = (recovery: number, extra: Partial<InferenceInput> = {}): InferenceI
   spec, productKey: PRODUCT, recovery, basis: "assayed", purityMethod: "qnmr", flags: [], ...extra,
 });
 
-describe("which outcomes may teach the group a partition coefficient (workup-practice §5.2)", () => {
+describe("which outcomes may teach the group a partition coefficient", () => {
   const mid = recoveryAt(spec, 0.6);
 
   it("fits a value, at half a measurement's weight, from an assayed recovery in the informative range", () => {

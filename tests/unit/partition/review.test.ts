@@ -12,7 +12,7 @@ const row = (id: string, deviationPct: number | null, extra: Partial<ReviewRow> 
   flagged: false, deviationPct, predicted: 80, low: 70, high: 90, reported: deviationPct === null ? null : 80 + deviationPct, causes: [], dangerFlags: [], ...extra,
 });
 
-describe("residuals by factor (workup-practice §6 view 3)", () => {
+describe("residuals by factor", () => {
   it("gives n, mean, median and the sample standard deviation per group, largest group first", () => {
     const stats = groupStats([row("a", -10), row("b", -20), row("c", 0, { solventSystem: "dcm" }), row("d", -30), row("e", null)], (r) => [r.solventSystem ?? "none"]);
     expect(stats.map((s) => [s.key, s.n])).toEqual([["etoac", 3], ["dcm", 1]]);
@@ -47,7 +47,7 @@ describe("calibration and the flagged list", () => {
   });
 });
 
-describe("per-person views (workup-practice §6: in aggregate, or to the person and the lead)", () => {
+describe("per-person views (in aggregate, or to the person and the lead)", () => {
   const rows = [row("a", -10, { chemistId: "me" }), row("b", -20, { chemistId: "other" }), row("c", 0, { chemistId: "third" }), row("d", 5, { chemistId: null })];
   const names = new Map([["me", "Ines"], ["other", "Oskar"], ["third", "Tove"]]);
 

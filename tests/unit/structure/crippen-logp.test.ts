@@ -1,6 +1,6 @@
 /**
- * Wildman–Crippen log P (RDKit) against experimental octanol–water log P for the reference compounds and workup
- * solvents of shared/domain/reference-data.md §3. Sources per row: [CRC] CRC Handbook "Octanol–water partition
+ * Wildman–Crippen log P (RDKit) against experimental octanol–water log P for common reference compounds and workup
+ * solvents. Sources per row: [CRC] CRC Handbook "Octanol–water partition
  * coefficients" (95th ed., digitized in CalebBell/chemicals, "CRC logP table.tsv"); [PhysProp] Syracuse Research
  * experimental log Kow set (KOWWIN SrcKowData2, digitized in the same repository).
  *

@@ -3,7 +3,6 @@
  * [IUPAC code] IUPAC Digitized pKa Dataset (github.com/IUPAC/Dissociation-Constants; digitizes Perrin 1965/1972 and
  * Serjeant & Dempsey 1979), with the dataset's reference code; values at 25 °C unless noted.
  * [lido] Bekhit, "Lidocaine for neural blockade", Cambridge University Press. "from memory" rows are marked.
- * All collected in shared/domain/reference-data.md §3 except where the IUPAC code is given inline.
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { type EstimatedPKa, estimateIonizableSites, loadRDKit, type RDKitModule } from "@/lib/chem/structure";
