@@ -94,8 +94,14 @@ export interface AcceptedInvite {
  */
 export async function acceptInvite(token: string, acceptor: InviteAcceptor, now = new Date()): Promise<AcceptedInvite> {
   if (!looksLikeInviteToken(token)) throw new InviteUnusableError();
-  const passwordHash = acceptor.kind === "new" ? await hashPassword(acceptor.account.password) : null;
   const db = await getDb();
+  // The token is checked before the password is hashed: an unknown or spent link costs a lookup, not a bcrypt run.
+  // (The transaction below checks it again under the claim, so a link used meanwhile is still refused.)
+  if (acceptor.kind === "new") {
+    const usable = await db.invite.findFirst({ where: { tokenHash: hashInviteToken(token), usedAt: null, expiresAt: { gt: now } }, select: { id: true } });
+    if (!usable) throw new InviteUnusableError();
+  }
+  const passwordHash = acceptor.kind === "new" ? await hashPassword(acceptor.account.password) : null;
   return db.$transaction(async (tx) => {
     const invite = await tx.invite.findUnique({
       where: { tokenHash: hashInviteToken(token) },
