@@ -9,6 +9,13 @@
 //   OIDC_ISSUER, OIDC_CLIENT_ID, OIDC_CLIENT_SECRET   institutional single sign-on: all three or none.
 //   OIDC_NAME               label of the sign-on button (default "Institutional sign-in").
 //   PORT                    HTTP port (default 3000).
+//   HOST                    address `npm start` listens on (default 127.0.0.1: this machine only). Set 0.0.0.0 (or a
+//                           specific address) to serve other machines; such an instance refuses to start while a
+//                           demo account still has the published demo password (scripts/prepare-db.ts).
+//   LAYERWISE_TRUSTED_PROXIES  comma-separated addresses of reverse proxies in front of the app (e.g. 127.0.0.1 for a
+//                           local nginx). Only a hop from one of these may name the client in X-Forwarded-For; by
+//                           default nobody may, and sign-in limits key on the connecting address itself.
+//   LAYERWISE_SHUTDOWN_GRACE_SECONDS  how long a stopping server lets in-flight requests finish (default 10).
 //   LAYERWISE_SEED_ON_EMPTY load the demo data when the database is empty (default: true on the embedded database,
 //                           false on PostgreSQL).
 import { randomBytes } from "node:crypto";
@@ -35,6 +42,11 @@ export interface Env {
   nextAuthUrl: string | undefined;
   oidc: OidcSettings | null;
   port: number;
+  /** Listen address of `npm start`. */
+  host: string;
+  /** Reverse proxies whose X-Forwarded-For entries are believed (lib/auth/rate-limit.ts clientAddressFrom). */
+  trustedProxies: string[];
+  shutdownGraceMs: number;
   seedOnEmpty: boolean;
 }
 
@@ -66,6 +78,16 @@ const schema = z.object({
   OIDC_CLIENT_SECRET: optionalText,
   OIDC_NAME: optionalText,
   PORT: z.preprocess(blankAsUndefined, z.coerce.number().int().min(1).max(65535).default(3000)),
+  HOST: z.preprocess(blankAsUndefined, z.string().trim().regex(/^[\w.:-]+$/, "must be a host name or an IP address").default("127.0.0.1")),
+  LAYERWISE_TRUSTED_PROXIES: z.preprocess(
+    blankAsUndefined,
+    z
+      .string()
+      .transform((v) => v.split(",").map((a) => a.trim()).filter(Boolean))
+      .pipe(z.array(z.union([z.ipv4(), z.ipv6()], "must be IP addresses separated by commas")))
+      .default([]),
+  ),
+  LAYERWISE_SHUTDOWN_GRACE_SECONDS: z.preprocess(blankAsUndefined, z.coerce.number().min(0).max(600).default(10)),
   LAYERWISE_SEED_ON_EMPTY: z.preprocess(blankAsUndefined, z.stringbool().optional()),
 });
 
@@ -126,8 +148,17 @@ export function parseEnv(source: EnvSource, cwd: string = process.cwd()): Env {
     nextAuthUrl: raw.NEXTAUTH_URL,
     oidc,
     port: raw.PORT,
+    host: raw.HOST,
+    trustedProxies: raw.LAYERWISE_TRUSTED_PROXIES,
+    shutdownGraceMs: raw.LAYERWISE_SHUTDOWN_GRACE_SECONDS * 1000,
     seedOnEmpty: raw.LAYERWISE_SEED_ON_EMPTY ?? raw.DATABASE_URL === undefined,
   };
+}
+
+/** True for addresses only this machine can reach (127.0.0.0/8, ::1, localhost); 0.0.0.0 and :: mean every interface. */
+export function isLoopbackHost(host: string): boolean {
+  const h = host.trim().toLowerCase().replace(/^\[|\]$/g, "");
+  return h === "localhost" || h === "::1" || /^127(\.\d{1,3}){3}$/.test(h) || /^::ffff:127(\.\d{1,3}){3}$/.test(h);
 }
 
 let cached: Env | undefined;

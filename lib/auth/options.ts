@@ -27,7 +27,7 @@ function buildAuthOptions(): NextAuthOptions {
     credentials: { email: { label: "Email", type: "email" }, password: { label: "Password", type: "password" } },
     async authorize(input, req) {
       try {
-        return await signInWithPassword(input, clientAddressFrom(req.headers ?? {}));
+        return await signInWithPassword(input, clientAddressFrom(req.headers ?? {}, settings.trustedProxies));
       } catch (error) {
         // next-auth passes a thrown message to the sign-in page; only our own messages may travel that way.
         if (error instanceof RateLimitedError) throw new Error(error.message);

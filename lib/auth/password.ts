@@ -10,16 +10,20 @@ export async function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);
 }
 
-let dummyHash: Promise<string> | undefined;
+/**
+ * A fixed bcrypt hash at BCRYPT_COST (of a throw-away phrase), compared against when there is no stored hash. Fixed
+ * rather than computed on first use, so even the first unknown email costs one comparison and not a hash plus one.
+ */
+export const DUMMY_HASH = "$2b$12$0.RD23Yz5XxiQ5RXTodQmuMWRn9ecgydm3Loz23XG5FvP6tIkTtFy";
 
 /**
  * Compares a password with a stored hash. With no stored hash (unknown email, or an account that only signs in
- * through single sign-on) it still spends one bcrypt comparison, so response time does not tell which emails exist.
+ * through single sign-on) it still spends one bcrypt comparison at the same cost, so response time does not tell
+ * which emails exist.
  */
 export async function verifyPassword(password: string, storedHash: string | null | undefined): Promise<boolean> {
   if (!storedHash) {
-    dummyHash ??= bcrypt.hash("layerwise-timing-equaliser", BCRYPT_COST);
-    await bcrypt.compare(password, await dummyHash);
+    await bcrypt.compare(password, DUMMY_HASH);
     return false;
   }
   return bcrypt.compare(password, storedHash);

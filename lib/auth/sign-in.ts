@@ -6,7 +6,7 @@ import { verifyPassword } from "@/lib/auth/password";
 import { normaliseEmail } from "@/lib/auth/password-rules";
 import { oidcEmail, type OidcProfile } from "@/lib/auth/oidc";
 import { ForbiddenError } from "@/lib/errors";
-import { assertSignInAllowed, recordSignInAttempt } from "@/lib/auth/rate-limit";
+import { reserveSignInAttempt, settleSignInAttempt } from "@/lib/auth/rate-limit";
 
 export interface SignedInUser {
   id: string;
@@ -20,8 +20,10 @@ const credentialsSchema = z.object({
 });
 
 /**
- * Checks an email and password. Returns the user, or null when they do not match; throws RateLimitedError when
- * this email has failed too often. Every outcome is recorded so the limit holds across instances.
+ * Checks an email and password. Returns the user, or null when they do not match; throws RateLimitedError while
+ * this email is held back (lib/auth/rate-limit.ts). The attempt is reserved before the password is hashed, so
+ * parallel guesses are counted before any of them runs; unknown and known emails take the same path and one bcrypt
+ * comparison each, so neither the answer nor its timing tells which emails have accounts.
  */
 export async function signInWithPassword(input: unknown, clientAddress: string): Promise<SignedInUser | null> {
   const parsed = credentialsSchema.safeParse(input);
@@ -29,14 +31,14 @@ export async function signInWithPassword(input: unknown, clientAddress: string):
   const email = normaliseEmail(parsed.data.email);
   if (email === "") return null;
   const db = await getDb();
-  await assertSignInAllowed(db, email, clientAddress);
+  const reservation = await reserveSignInAttempt(db, email, clientAddress);
   const user = await db.user.findUnique({
     where: { email },
     select: { id: true, email: true, name: true, passwordHash: true },
   });
-  const ok = await verifyPassword(parsed.data.password, user?.passwordHash);
-  await recordSignInAttempt(db, email, clientAddress, ok);
-  return ok && user ? { id: user.id, email: user.email, name: user.name } : null;
+  const ok = (await verifyPassword(parsed.data.password, user?.passwordHash)) && user !== null;
+  await settleSignInAttempt(db, reservation, ok);
+  return ok ? { id: user.id, email: user.email, name: user.name } : null;
 }
 
 /**

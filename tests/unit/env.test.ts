@@ -2,7 +2,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { EnvError, env, parseEnv, resetEnv } from "@/lib/env";
+import { EnvError, env, isLoopbackHost, parseEnv, resetEnv } from "@/lib/env";
 
 let cwd: string;
 beforeEach(() => {
@@ -77,6 +77,31 @@ describe("parseEnv", () => {
     expect(parseEnv({ AUTH_SECRET: secret, ...all, OIDC_NAME: "Campus login" }, cwd).oidc?.name).toBe("Campus login");
     expect(() => parseEnv({ AUTH_SECRET: secret, OIDC_ISSUER: all.OIDC_ISSUER }, cwd)).toThrow(/missing OIDC_CLIENT_ID, OIDC_CLIENT_SECRET/);
     expect(() => parseEnv({ AUTH_SECRET: secret, ...all, OIDC_ISSUER: "not a url" }, cwd)).toThrow(/OIDC_ISSUER/);
+  });
+});
+
+describe("listening address and trusted proxies", () => {
+  // Before: `npm start` served every interface (next start's default) and X-Forwarded-For was believed from anyone.
+  it("listens on this machine only and trusts no proxy unless configured", () => {
+    const e = parseEnv({ AUTH_SECRET: secret }, cwd);
+    expect(e.host).toBe("127.0.0.1");
+    expect(isLoopbackHost(e.host)).toBe(true);
+    expect(e.trustedProxies).toEqual([]);
+    expect(e.shutdownGraceMs).toBe(10_000);
+  });
+
+  it("reads HOST, LAYERWISE_TRUSTED_PROXIES and the grace period, and refuses malformed ones", () => {
+    const e = parseEnv({ AUTH_SECRET: secret, HOST: "0.0.0.0", LAYERWISE_TRUSTED_PROXIES: "127.0.0.1, ::1", LAYERWISE_SHUTDOWN_GRACE_SECONDS: "3" }, cwd);
+    expect(e.host).toBe("0.0.0.0");
+    expect(e.trustedProxies).toEqual(["127.0.0.1", "::1"]);
+    expect(e.shutdownGraceMs).toBe(3000);
+    expect(() => parseEnv({ AUTH_SECRET: secret, LAYERWISE_TRUSTED_PROXIES: "10.0.0.0/8" }, cwd)).toThrow(/LAYERWISE_TRUSTED_PROXIES/);
+    expect(() => parseEnv({ AUTH_SECRET: secret, HOST: "a b" }, cwd)).toThrow(/HOST: must be a host name or an IP address/);
+  });
+
+  it("tells loopback addresses from ones other machines reach", () => {
+    for (const h of ["127.0.0.1", "127.1.2.3", "localhost", "::1", "[::1]"]) expect(isLoopbackHost(h)).toBe(true);
+    for (const h of ["0.0.0.0", "::", "192.168.1.20", "lab-server.example.org"]) expect(isLoopbackHost(h)).toBe(false);
   });
 });
 
