@@ -1,6 +1,6 @@
 // One schema per input, shared by the forms (for messages beside the field) and the server actions.
 import { z } from "zod";
-import { emailSchema, passwordSchema } from "@/lib/auth/password-rules";
+import { EMAIL_PASSWORD_MESSAGE, emailSchema, passwordSchema, weakPasswordReason } from "@/lib/auth/password-rules";
 import { ROLES } from "@/lib/authz/roles";
 
 export const roleSchema = z.enum(ROLES, { error: () => "Choose lead, member or viewer." });
@@ -29,7 +29,8 @@ export const newAccountSchema = z
     password: passwordSchema,
     confirmPassword: z.string(),
   })
-  .refine((a) => a.password === a.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." });
+  .refine((a) => a.password === a.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." })
+  .refine((a) => weakPasswordReason(a.password, a.email) === null, { path: ["password"], message: EMAIL_PASSWORD_MESSAGE });
 
 export type CreateInviteInput = z.infer<typeof createInviteSchema>;
 export type NewAccountInput = z.infer<typeof newAccountSchema>;
