@@ -13,7 +13,7 @@ import { listMyGroups } from "@/lib/groups/queries";
 export default async function SignedInLayout({ children }: { children: ReactNode }) {
   let member: MemberContext;
   try {
-    member = await requireMember("data:read");
+    member = await requireMember("data:read", { sessionOnly: true });
   } catch (error) {
     // Signed out: the page redirects to sign-in with its own return path.
     if (error instanceof UnauthenticatedError) return <>{children}</>;

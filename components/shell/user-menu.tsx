@@ -37,6 +37,11 @@ export function UserMenu({ name, email, roleLabel }: { name: string; email: stri
             </Link>
           </li>
           <li>
+            <Link href="/settings/password" className="block rounded-md px-2 py-1.5 text-sm text-stone-700 hover:bg-stone-100 focus-visible:outline-2 focus-visible:outline-teal-600">
+              Settings → Password
+            </Link>
+          </li>
+          <li>
             <button
               type="button"
               onClick={() => void signOut({ callbackUrl: "/sign-in" })}

@@ -7,6 +7,8 @@ declare module "next-auth" {
   interface Session {
     user: { id: string; name: string; email: string };
     activeGroupId: string | null;
+    /** User.sessionVersion when this session began; the guard refuses it once the user's version has moved on. */
+    sessionVersion: number;
   }
 }
 
@@ -14,5 +16,6 @@ declare module "next-auth/jwt" {
   interface JWT {
     uid?: string;
     activeGroupId?: string | null;
+    sv?: number;
   }
 }

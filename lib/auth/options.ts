@@ -5,6 +5,7 @@ import { env } from "@/lib/env";
 import { RateLimitedError, logUnexpected } from "@/lib/errors";
 import { OIDC_PROVIDER_ID, oidcEmail, oidcProvider, type OidcProfile } from "@/lib/auth/oidc";
 import { clientAddressFrom } from "@/lib/auth/rate-limit";
+import { currentSessionVersion, endSessions } from "@/lib/auth/sessions";
 import { firstGroupId, isMemberOf, signInWithPassword, userForSingleSignOn } from "@/lib/auth/sign-in";
 
 export const SESSION_MAX_AGE_SECONDS = 7 * 24 * 60 * 60;
@@ -53,6 +54,7 @@ function buildAuthOptions(): NextAuthOptions {
           token.email = signedIn.email;
           token.name = signedIn.name;
           token.activeGroupId = await firstGroupId(signedIn.id);
+          token.sv = await currentSessionVersion(signedIn.id);
         }
         if (trigger === "update" && token.uid) {
           const wanted = requestedGroupId(session);
@@ -63,7 +65,14 @@ function buildAuthOptions(): NextAuthOptions {
       session({ session, token }) {
         session.user = { id: token.uid ?? "", name: token.name ?? "", email: token.email ?? "" };
         session.activeGroupId = token.activeGroupId ?? null;
+        session.sessionVersion = token.sv ?? 0;
         return session;
+      },
+    },
+    events: {
+      // Signing out ends the session everywhere: a copy of the cookie taken before sign-out no longer opens anything.
+      async signOut({ token }) {
+        if (typeof token?.uid === "string" && token.uid !== "") await endSessions(token.uid);
       },
     },
   };

@@ -10,7 +10,7 @@ export async function memberAction<T>(
   options?: GuardOptions & { where?: string },
 ): Promise<ActionResult<T>> {
   try {
-    const context = await requireMember(permission, options);
+    const context = await requireMember(permission, { ...options, sessionOnly: true });
     return { ok: true, data: await run(context) };
   } catch (error) {
     return actionFailure(error, options?.where ?? `action needing ${permission}`);

@@ -2,13 +2,14 @@
 // (through requireMember in ./index.ts); nothing else decides who may see or change a group's data.
 // This file does not touch the request, so integration tests can call resolveMember with explicit credentials.
 import { getDb } from "@/lib/db/client";
-import { NoMembershipError, NotFoundError, UnauthenticatedError } from "@/lib/errors";
+import { ForbiddenError, NoMembershipError, NotFoundError, UnauthenticatedError } from "@/lib/errors";
 import { hashApiToken, looksLikeApiToken } from "@/lib/authz/api-token-format";
 import { assertRoleCan, roleCan, type Permission, type RoleName } from "@/lib/authz/permissions";
+import { assertMaySeePerson } from "@/lib/authz/people";
 
 /** Who is asking: a signed-in browser session, or a bearer API token. */
 export type Credentials =
-  | { kind: "session"; userId: string; activeGroupId: string | null }
+  | { kind: "session"; userId: string; activeGroupId: string | null; /** User.sessionVersion when the session began (absent = 0). */ sessionVersion?: number }
   | { kind: "token"; token: string };
 
 export interface MemberContext {
@@ -21,6 +22,10 @@ export interface MemberContext {
 export interface GuardOptions {
   /** A group id or slug named by the request; a group the user is not in answers 404. */
   group?: string;
+  /** Pages and server actions: a browser session only. API tokens open the JSON API and nothing else. */
+  sessionOnly?: boolean;
+  /** The request narrows figures to this one person (a chemist filter): only they or a lead may (./people.ts). */
+  person?: string | null;
 }
 
 const memberSelect = {
@@ -37,9 +42,10 @@ async function membershipForToken(token: string, options: GuardOptions) {
   const db = await getDb();
   const found = await db.apiToken.findUnique({
     where: { tokenHash: hashApiToken(token) },
-    select: { id: true, userId: true, groupId: true, revokedAt: true, lastUsedAt: true },
+    select: { id: true, userId: true, groupId: true, revokedAt: true, lastUsedAt: true, expiresAt: true },
   });
   if (!found || found.revokedAt) throw new UnauthenticatedError("This API token is not valid or has been revoked.");
+  if (found.expiresAt && found.expiresAt.getTime() <= Date.now()) throw new UnauthenticatedError("This API token has expired. Create a new one under Settings → API tokens.");
   const membership = await db.membership.findFirst({
     where: {
       userId: found.userId,
@@ -57,7 +63,21 @@ async function membershipForToken(token: string, options: GuardOptions) {
   return membership;
 }
 
-async function membershipForSession(userId: string, activeGroupId: string | null, options: GuardOptions) {
+export const SESSION_ENDED_MESSAGE = "Your session has ended (signed out, password changed or removed from a group). Sign in again.";
+
+/**
+ * Refuses a session token minted before the user's session version was last raised (sign-out, password change,
+ * removal from a group): the JWT itself cannot be recalled, so the guard compares it with the database each time.
+ */
+export async function assertSessionCurrent(userId: string, sessionVersion: number | undefined): Promise<void> {
+  const db = await getDb();
+  const user = await db.user.findUnique({ where: { id: userId }, select: { sessionVersion: true } });
+  if (!user) throw new UnauthenticatedError("Your account no longer exists. Sign in again.");
+  if (user.sessionVersion !== (sessionVersion ?? 0)) throw new UnauthenticatedError(SESSION_ENDED_MESSAGE);
+}
+
+async function membershipForSession(userId: string, activeGroupId: string | null, sessionVersion: number | undefined, options: GuardOptions) {
+  await assertSessionCurrent(userId, sessionVersion);
   const db = await getDb();
   if (options.group) {
     const named = await db.membership.findFirst({
@@ -93,12 +113,17 @@ export async function resolveMember(
   options: GuardOptions = {},
 ): Promise<MemberContext> {
   if (!credentials) throw new UnauthenticatedError();
+  if (credentials.kind === "token" && options.sessionOnly) {
+    throw new ForbiddenError("API tokens open the JSON API (/api/v1) only; pages and forms need a signed-in browser session.");
+  }
   const membership =
     credentials.kind === "token"
       ? await membershipForToken(credentials.token, options)
-      : await membershipForSession(credentials.userId, credentials.activeGroupId, options);
+      : await membershipForSession(credentials.userId, credentials.activeGroupId, credentials.sessionVersion, options);
   assertRoleCan(membership.role, permission);
-  return { user: membership.user, group: membership.group, role: membership.role, via: credentials.kind };
+  const context: MemberContext = { user: membership.user, group: membership.group, role: membership.role, via: credentials.kind };
+  assertMaySeePerson(context, options.person);
+  return context;
 }
 
 /** For showing or hiding controls; the action behind a control checks again through the guard. */

@@ -2,7 +2,7 @@
 import { cache } from "react";
 import { getDb } from "@/lib/db/client";
 import { UnauthenticatedError } from "@/lib/errors";
-import { resolveMember, type GuardOptions, type MemberContext } from "@/lib/authz/guard";
+import { assertSessionCurrent, resolveMember, type GuardOptions, type MemberContext } from "@/lib/authz/guard";
 import { type Permission } from "@/lib/authz/permissions";
 import { requestCredentials } from "@/lib/authz/request";
 
@@ -30,6 +30,7 @@ export interface SignedInUser {
 export async function requireUser(): Promise<SignedInUser> {
   const credentials = await currentCredentials();
   if (credentials?.kind !== "session") throw new UnauthenticatedError();
+  await assertSessionCurrent(credentials.userId, credentials.sessionVersion);
   const db = await getDb();
   const user = await db.user.findUnique({ where: { id: credentials.userId }, select: { id: true, email: true, name: true } });
   if (!user) throw new UnauthenticatedError("Your account no longer exists. Sign in again.");

@@ -34,7 +34,7 @@ export function pageFailure(error: unknown, returnTo?: string): never {
 
 export async function requirePageMember(permission: Permission, options: PageGuardOptions = {}): Promise<MemberContext> {
   try {
-    return await requireMember(permission, options);
+    return await requireMember(permission, { ...options, sessionOnly: true });
   } catch (error) {
     pageFailure(error, options.returnTo);
   }

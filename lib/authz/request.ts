@@ -15,5 +15,5 @@ export async function requestCredentials(): Promise<Credentials | null> {
   }
   const session = await getServerSession(authOptions());
   if (!session?.user.id) return null;
-  return { kind: "session", userId: session.user.id, activeGroupId: session.activeGroupId };
+  return { kind: "session", userId: session.user.id, activeGroupId: session.activeGroupId, sessionVersion: session.sessionVersion };
 }

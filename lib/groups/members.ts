@@ -1,5 +1,6 @@
 // Membership changes. A group must keep at least one lead: the check runs inside the transaction with the group row
 // locked, so two leads demoting each other at the same moment cannot both succeed.
+import { endSessions } from "@/lib/auth/sessions";
 import { getDb } from "@/lib/db/client";
 import { type MemberContext } from "@/lib/authz/guard";
 import { found } from "@/lib/authz/guard";
@@ -84,6 +85,8 @@ export async function removeMember(member: MemberContext, membershipId: string):
     const target = await lockedMembership(tx, member.group.id, membershipId);
     if (target.role === "lead") await assertAnotherLead(tx, member.group.id, target.id);
     await tx.membership.delete({ where: { id: target.id }, select: { id: true } });
+    // A removed person's open sessions end too (signing in again lands them in their remaining groups, if any).
+    if (target.userId !== member.user.id) await endSessions(target.userId, tx);
     // The guard already refuses tokens of non-members; revoking them too keeps the tokens page truthful.
     await tx.apiToken.updateMany({
       where: { groupId: member.group.id, userId: target.userId, revokedAt: null },

@@ -4,6 +4,7 @@ import { Badge } from "@/components/ui/badge";
 import { formatDate } from "@/components/ui/format";
 import { Card, PageHeader } from "@/components/ui/page-header";
 import { InviteForm } from "@/lib/groups/components/invite-form";
+import { LiftSignInDelayForm } from "@/lib/auth/components/lift-delay-form";
 import { RemoveMemberForm, RevokeInviteForm, RoleForm } from "@/lib/groups/components/member-controls";
 import { listPendingInvites } from "@/lib/groups/invites";
 import { listMembers } from "@/lib/groups/members";
@@ -35,6 +36,7 @@ export default async function MembersPage() {
                   <div className="flex flex-wrap items-start gap-2">
                     <RoleForm membershipId={m.membershipId} role={m.role} name={m.name} />
                     <RemoveMemberForm membershipId={m.membershipId} name={m.name} isSelf={m.userId === member.user.id} />
+                    {m.userId === member.user.id ? null : <LiftSignInDelayForm membershipId={m.membershipId} />}
                   </div>
                 ) : (
                   <Badge tone={m.role === "lead" ? "accent" : "neutral"}>{ROLE_LABELS[m.role]}</Badge>

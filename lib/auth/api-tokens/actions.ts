@@ -2,15 +2,15 @@
 import { revalidatePath } from "next/cache";
 import { memberAction } from "@/lib/authz/action";
 import { formFields, parseInput, type ActionResult } from "@/lib/errors";
-import { createApiToken, createApiTokenSchema, revokeApiToken } from "@/lib/auth/api-tokens/tokens";
+import { createApiToken, createApiTokenSchema, revokeApiToken, tokenExpiry } from "@/lib/auth/api-tokens/tokens";
 import { z } from "zod";
 
 const PAGE = "/settings/api-tokens";
 
 export async function createApiTokenAction(_prev: ActionResult<{ token: string; name: string }> | null, form: FormData): Promise<ActionResult<{ token: string; name: string }>> {
   return memberAction("tokens:manage", async (member) => {
-    const { name } = parseInput(createApiTokenSchema, formFields(form));
-    const { token, row } = await createApiToken(member, name);
+    const { name, expiresInDays } = parseInput(createApiTokenSchema, formFields(form));
+    const { token, row } = await createApiToken(member, name, tokenExpiry(expiresInDays));
     revalidatePath(PAGE);
     return { token, name: row.name };
   });

@@ -1,7 +1,7 @@
 "use client";
 import { useActionState } from "react";
 import { CopyField } from "@/components/ui/copy-field";
-import { Field } from "@/components/ui/field";
+import { Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { createApiTokenAction, revokeApiTokenAction } from "@/lib/auth/api-tokens/actions";
@@ -14,6 +14,17 @@ export function CreateApiTokenForm() {
       <form action={action} className="flex flex-wrap items-end gap-3">
         <div className="min-w-64 flex-1">
           <Field label="Token name" name="name" placeholder="e.g. plate-reader export script" maxLength={80} required errors={errors?.name} />
+        </div>
+        <div>
+          <label htmlFor="token-expiry" className="block text-sm font-medium text-stone-700">Expires</label>
+          <select id="token-expiry" name="expiresInDays" defaultValue="90" className={`${inputClass} mt-1 w-40`}>
+            <option value="7">after 7 days</option>
+            <option value="30">after 30 days</option>
+            <option value="90">after 90 days</option>
+            <option value="365">after a year</option>
+            <option value="never">never (until revoked)</option>
+          </select>
+          {errors?.expiresInDays ? <p role="alert" className="mt-1 text-sm text-red-700">{errors.expiresInDays[0]}</p> : null}
         </div>
         <SubmitButton pendingLabel="Creating…">Create token</SubmitButton>
       </form>

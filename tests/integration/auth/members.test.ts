@@ -1,6 +1,6 @@
 import { beforeEach, expect, it } from "vitest";
 import { createApiToken } from "@/lib/auth/api-tokens/tokens";
-import { resolveMember, type MemberContext } from "@/lib/authz/guard";
+import { SESSION_ENDED_MESSAGE, resolveMember, type MemberContext } from "@/lib/authz/guard";
 import { ConflictError, ForbiddenError, NotFoundError, UnauthenticatedError } from "@/lib/errors";
 import { LAST_LEAD_MESSAGE, changeRole, listMembers, removeMember } from "@/lib/groups/members";
 import { describeWithAppDatabase } from "./app-database";
@@ -71,7 +71,9 @@ describeWithAppDatabase("members, roles and the last lead", (t) => {
     const asMember = await resolveMember(sessionOf(memberCtx.user.id, memberCtx.group.id), "tokens:manage");
     const { token, row } = await createApiToken(asMember, "script");
     await removeMember(lead, memberMembershipId);
-    await expect(resolveMember(sessionOf(memberCtx.user.id, memberCtx.group.id), "data:read")).rejects.toThrow(
+    // The session they had ends (removal raises their session version); signed in afresh, they belong nowhere.
+    await expect(resolveMember(sessionOf(memberCtx.user.id, memberCtx.group.id), "data:read")).rejects.toThrow(SESSION_ENDED_MESSAGE);
+    await expect(resolveMember({ kind: "session", userId: memberCtx.user.id, activeGroupId: memberCtx.group.id, sessionVersion: 1 }, "data:read")).rejects.toThrow(
       "You are not a member of any group yet",
     );
     await expect(resolveMember({ kind: "token", token }, "data:read")).rejects.toBeInstanceOf(UnauthenticatedError);

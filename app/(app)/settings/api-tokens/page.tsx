@@ -32,7 +32,8 @@ export default async function ApiTokensPage() {
                       {t.name} <span className="font-mono text-xs text-stone-500">{t.prefix}…</span>
                     </p>
                     <p className="text-stone-500">
-                      Created {formatDateTime(t.createdAt)} · {t.lastUsedAt ? `last used ${formatDateTime(t.lastUsedAt)}` : "never used"}
+                      Created {formatDateTime(t.createdAt)} · {t.lastUsedAt ? `last used ${formatDateTime(t.lastUsedAt)}` : "never used"} ·{" "}
+                      {t.expiresAt ? `valid until ${formatDateTime(t.expiresAt)}` : "no expiry"}
                     </p>
                   </div>
                   {t.revokedAt ? <Badge>Revoked {formatDateTime(t.revokedAt)}</Badge> : <RevokeApiTokenForm tokenId={t.id} name={t.name} />}
