@@ -16,6 +16,8 @@ export interface RouteArgs<P> {
 export interface RouteOptions extends GuardOptions {
   /** Body media types a browser session may send to this route (default application/json), e.g. ["text/csv"]. */
   bodyTypes?: readonly string[];
+  /** A query parameter that narrows the answer to one person's records: only that person or a lead may use it. */
+  personParam?: string;
 }
 
 type RouteContext<P> = { params: Promise<P> };
@@ -27,7 +29,8 @@ export function memberRoute<P = Record<string, never>>(
 ): (request: Request, context: RouteContext<P>) => Promise<Response> {
   return async (request, context) => {
     try {
-      const member = await requireMember(permission, options);
+      const person = options.personParam ? new URL(request.url).searchParams.get(options.personParam) : null;
+      const member = await requireMember(permission, { ...options, person });
       if (member.via === "session") assertSameOriginWrite(request, { bodyTypes: options.bodyTypes, publicUrl: env().nextAuthUrl });
       const params = await context.params;
       refuseUnsafeText(params); // a NUL or broken character in a path segment: 422, not a failed query

@@ -24,6 +24,14 @@ const select = { id: true, kind: true, status: true, total: true, done: true, pa
 
 type Row = { id: string; kind: string; status: JobProgress["status"]; total: number; done: number; payload: unknown; error: string | null; updatedAt: Date };
 
+/**
+ * What members and viewers are told about a failed job. The stored error can be raw exception text (SQL, file paths,
+ * stack frames), which only the server log should hold; the job id lets a lead find it there.
+ */
+export function publicJobError(jobId: string): string {
+  return `The background job stopped with an error (reference ${jobId.slice(-8)}). The server log has the details; editing the group's data again queues a new run.`;
+}
+
 function progress(row: Row): JobProgress {
   const payload = (row.payload ?? {}) as Record<string, unknown>;
   const revalidation = row.kind === "revalidate" ? readRevalidationPayload(payload) : null;
@@ -32,7 +40,7 @@ function progress(row: Row): JobProgress {
     : "Learning partition values from reported outcomes";
   return {
     id: row.id, kind: row.kind, status: row.status, total: row.total, done: row.done, label,
-    flagChanges: revalidation ? revalidation.flagChanges : null, error: row.error, updatedAt: row.updatedAt.toISOString(),
+    flagChanges: revalidation ? revalidation.flagChanges : null, error: row.error === null ? null : publicJobError(row.id), updatedAt: row.updatedAt.toISOString(),
   };
 }
 

@@ -3,6 +3,7 @@
  * person concerned and the group lead (workup-practice §6, "Conduct of the review"). A lead sees each chemist by
  * name; anyone else sees their own figures beside everyone else's taken together, and may filter only by themselves.
  */
+import { maySeePerson } from "@/lib/authz/people";
 import { groupStats, type GroupStat, type ReviewRow } from "./aggregate";
 
 export interface Viewer {
@@ -16,7 +17,8 @@ export const EVERYONE_ELSE = "Everyone else";
 export const NOT_RECORDED = "Not recorded";
 
 export function chemistFilterFor(viewer: Viewer, requested: string | undefined): { chemist: string | undefined; notice: string | null } {
-  if (!requested || viewer.isLead || requested === viewer.userId) return { chemist: requested, notice: null };
+  // The same rule the guard enforces for the workup list and its exports (lib/authz/people.ts maySeePerson).
+  if (!requested || maySeePerson({ role: viewer.isLead ? "lead" : "member", user: { id: viewer.userId } }, requested)) return { chemist: requested, notice: null };
   return { chemist: undefined, notice: "Only a group lead can look at another chemist's workups on their own; the chemist filter was not applied." };
 }
 

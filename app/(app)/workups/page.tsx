@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { can } from "@/lib/authz";
 import { requirePageMember } from "@/lib/authz/page";
+import { maySeePerson } from "@/lib/authz/people";
 import { EmptyState, PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
@@ -28,8 +29,8 @@ function firstValues(raw: Record<string, string | string[] | undefined>): Search
 }
 
 export default async function WorkupsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const member = await requirePageMember("data:read", { returnTo: "/workups" });
   const values = firstValues(await searchParams);
+  const member = await requirePageMember("data:read", { returnTo: "/workups", person: values.chemistId });
   const { cursor, ...filter } = values;
   const db = await getDb();
   let page: WorkupListPage = { rows: [], next: null };
@@ -60,7 +61,7 @@ export default async function WorkupsPage({ searchParams }: { searchParams: Prom
       />
       {!filtered && !cursor ? <FlaggedStrip items={flagged.items} total={flagged.total} href="/workups?flagged=true" /> : null}
       <FilterForm values={filter} errors={errors}
-        compounds={compounds.map((c) => ({ value: c.id, label: c.name }))} solvents={solvents} chemists={members.map((m) => ({ value: m.id, label: m.name }))} />
+        compounds={compounds.map((c) => ({ value: c.id, label: c.name }))} solvents={solvents} chemists={members.filter((m) => maySeePerson(member, m.id)).map((m) => ({ value: m.id, label: m.name }))} />
       {Object.keys(errors).length > 0 ? <div className="mb-4"><Notice tone="error" title="This filter cannot be used">{Object.values(errors).flat().join(" ")}</Notice></div> : null}
       {page.rows.length === 0 ? (
         <EmptyState title={cursor ? "No more workups." : filtered ? "No workup matches this filter." : "No workups recorded yet."}>

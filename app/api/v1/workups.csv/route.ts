@@ -15,4 +15,4 @@ export const GET = memberRoute("data:read", async (request, { member }) => {
       "Content-Disposition": `attachment; filename="workups-${member.group.slug}-${day}.csv"`,
     },
   });
-});
+}, { personParam: "chemistId" });

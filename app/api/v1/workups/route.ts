@@ -6,8 +6,10 @@ import { actorOf } from "@/lib/workups/context";
 import { listWorkups } from "@/lib/workups/queries";
 import { createWorkup } from "@/lib/workups/service";
 
-export const GET = memberRoute("data:read", async (request, { member }) =>
-  Response.json(await listWorkups(await getDb(), member.group.id, queryOf(request))),
+export const GET = memberRoute(
+  "data:read",
+  async (request, { member }) => Response.json(await listWorkups(await getDb(), member.group.id, queryOf(request))),
+  { personParam: "chemistId" },
 );
 
 export const POST = memberRoute("data:write", async (request, { member }) => {
