@@ -88,6 +88,12 @@ export interface PredictiveCase {
   /** True when the product in the crude was assayed: no reaction-yield term. */
   crudeAssayed: boolean;
   chemist?: string | null;
+  /**
+   * The same product worked up the same way (product identity + kinds of operation). The engine's parameter error
+   * (log K, pKa, the solvent translation) is the same every time such a workup is run, so once the group has reported
+   * a few, its own outcomes pin that error down: a family term with the engine's spread as its prior.
+   */
+  family?: string | null;
 }
 
 export interface HistoryCase extends PredictiveCase {
@@ -122,7 +128,8 @@ function engineLog(engine: PredictiveCase["engine"]): { mean: number; variance: 
 
 const baseNames = (): string[] => [...HANDLING_STEPS.map((s) => `loss.${s}`), ...ASSAY_METHODS.map((m) => `assay.${m}`), "yield"];
 
-function priorOf(name: string): TermPrior {
+function priorOf(name: string, familyVariance?: ReadonlyMap<string, number>): TermPrior {
+  if (name.startsWith("family.")) return { mean: 0, sd: 0, groupSd: Math.sqrt(familyVariance?.get(name) ?? FALLBACK_ENGINE_SD ** 2) };
   if (name.startsWith("loss.")) return HANDLING_PRIOR[name.slice(5) as HandlingStep];
   if (name.startsWith("assay.")) return ASSAY_PRIOR[name.slice(6) as AssayMethod];
   if (name === "yield") return YIELD_PRIOR;
@@ -130,10 +137,13 @@ function priorOf(name: string): TermPrior {
 }
 
 /** Design row (coefficients on the parameters), fixed offset and the known per-workup variance. */
-function rowOf(c: PredictiveCase, names: readonly string[]): { x: number[]; offset: number; variance: number } {
+function rowOf(c: PredictiveCase, names: readonly string[]): { x: number[]; offset: number; variance: number; engineVariance: number } {
   const engine = engineLog(c.engine);
   const x = names.map(() => 0);
-  let variance = engine.variance + MODEL_SD ** 2;
+  const familyIndex = c.family ? names.indexOf(`family.${c.family}`) : -1;
+  // With a family term the engine's spread is carried by that term (shared across the family), not by the row.
+  let variance = (familyIndex >= 0 ? 0 : engine.variance) + MODEL_SD ** 2;
+  if (familyIndex >= 0) x[familyIndex] = 1;
   for (const step of HANDLING_STEPS) {
     const n = c.handling[step] ?? 0;
     x[names.indexOf(`loss.${step}`)] = -n;
@@ -147,7 +157,7 @@ function rowOf(c: PredictiveCase, names: readonly string[]): { x: number[]; offs
   }
   const chemistIndex = c.chemist ? names.indexOf(`chemist.${c.chemist}`) : -1;
   if (chemistIndex >= 0) x[chemistIndex] = 1;
-  return { x, offset: engine.mean, variance };
+  return { x, offset: engine.mean, variance, engineVariance: engine.variance };
 }
 
 /** Density of ordinary scatter N(0, s²) and of a shortfall (exponential loss of mean λ blurred by the same scatter). */
@@ -181,16 +191,23 @@ function solve(a: number[][], b: number[]): { x: number[]; inverse: number[][] }
 /** The group's model: common-practice priors updated by its history. An empty history gives the priors. */
 export function fitGroupModel(history: readonly HistoryCase[], options: { byChemist?: boolean } = {}): GroupModel {
   const chemists = options.byChemist ? [...new Set(history.map((h) => h.chemist).filter((c): c is string => !!c))].sort() : [];
-  const names = [...baseNames(), ...chemists.map((c) => `chemist.${c}`)];
+  const families = [...new Set(history.map((h) => h.family).filter((f): f is string => !!f))].sort();
+  const names = [...baseNames(), ...chemists.map((c) => `chemist.${c}`), ...families.map((f) => `family.${f}`)];
   const rows = history.map((h) => ({ ...rowOf(h, names), y: h.observedLog }));
+  const familyVariance = new Map<string, number>();
+  for (const f of families) {
+    const members = history.filter((h) => h.family === f).map((h) => engineLog(h.engine).variance);
+    familyVariance.set(`family.${f}`, members.reduce((s, v) => s + v, 0) / members.length);
+  }
+  const prior = (n: string) => priorOf(n, familyVariance);
   const yieldRows = history.filter((h) => h.yieldLog !== null && h.yieldLog !== undefined && Number.isFinite(h.yieldLog));
   let weights = rows.map(() => 1);
   let variance = 1;
   let share = SHORTFALL_PRIOR.share;
-  let fit = { x: names.map((n) => priorOf(n).mean), inverse: names.map((n, i) => names.map((_, j) => (i === j ? priorOf(n).groupSd ** 2 : 0))) };
+  let fit = { x: names.map((n) => prior(n).mean), inverse: names.map((n, i) => names.map((_, j) => (i === j ? prior(n).groupSd ** 2 : 0))) };
   for (let iteration = 0; iteration < 4 && rows.length + yieldRows.length > 0; iteration++) {
-    const a = names.map((n, i) => names.map((_, j) => (i === j ? 1 / priorOf(n).groupSd ** 2 : 0)));
-    const b = names.map((n) => priorOf(n).mean / priorOf(n).groupSd ** 2);
+    const a = names.map((n, i) => names.map((_, j) => (i === j ? 1 / prior(n).groupSd ** 2 : 0)));
+    const b = names.map((n) => prior(n).mean / prior(n).groupSd ** 2);
     const add = (x: readonly number[], target: number, precision: number) => {
       for (let i = 0; i < names.length; i++) {
         const xi = x[i] as number;

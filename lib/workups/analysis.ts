@@ -76,6 +76,11 @@ export interface AnalysisInputs {
 
 const PRIORS_ONLY = fitGroupModel([]);
 
+/** The same product worked up by the same kinds of operation, in order: the engine's parameter error repeats. */
+function familyOf(product: { name: string; smiles?: string | undefined }, spec: WorkupInput): string {
+  return `${(product.smiles ?? product.name).trim().toLowerCase()}|${spec.operations.map((op) => op.type).join(",")}`;
+}
+
 export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
   const { outcome, header, spec, prediction, library } = inputs;
   const model = inputs.model ?? PRIORS_ONLY;
@@ -86,7 +91,10 @@ export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
     ? { recovery: prediction.productRecovery, low: prediction.recoveryLow, high: prediction.recoveryHigh }
     : null;
   const predictiveCase: PredictiveCase | null = engine
-    ? { engine, handling: handlingEvents(spec.operations), assay: method, crudeAssayed: assayed, chemist: header.chemistId ?? null }
+    ? {
+        engine, handling: handlingEvents(spec.operations), assay: method, crudeAssayed: assayed, chemist: header.chemistId ?? null,
+        family: product ? familyOf(product, spec) : null,
+      }
     : null;
   const predictive = predictiveCase ? predictiveOf(model, predictiveCase) : null;
   const reported = product

@@ -10,6 +10,7 @@
 import { simulateWorkup, type PredictOptions } from "@/lib/chem/predict";
 import { type Operation, type WorkupInput } from "@/lib/chem/schema";
 import { type LibraryOverrides } from "@/lib/chem/library";
+import { normalCdf } from "@/lib/chem/distributions";
 import { causeSpace, type CauseCandidate } from "./cause-space";
 
 export type CauseCode =
@@ -104,6 +105,17 @@ function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator)
   if (points.length === 0) return null;
   const totalWeight = logSum(points.map((p) => p.logWeight));
   const terms = points.map((p) => p.logWeight - totalWeight + logNormalDensity(target, p.effect, q.logSd));
+  // Evidence: the size prior spread evenly between neighbouring sizes, the effect linear in between, so that a
+  // steep effect curve is not missed between two grid points (the normal density integrated over each segment).
+  const segments = points.slice(1).map((b, i) => {
+    const a = points[i]!;
+    const mass = (Math.exp(a.logWeight - totalWeight) + Math.exp(b.logWeight - totalWeight)) / 2;
+    const width = Math.abs(b.effect - a.effect);
+    const density = width < 1e-3 * q.logSd
+      ? Math.exp(logNormalDensity(target, a.effect, q.logSd))
+      : (Math.abs(normalCdf((b.effect - target) / q.logSd) - normalCdf((a.effect - target) / q.logSd)) / width) * Math.sqrt(2 * Math.PI);
+    return Math.log(mass * density + 1e-300);
+  });
   let bestIndex = 0;
   terms.forEach((t, i) => { if (t > (terms[bestIndex] as number)) bestIndex = i; });
   let best = points[bestIndex]!;
@@ -120,7 +132,7 @@ function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator)
       if (effect !== null && Math.abs(effect - target) < Math.abs(best.effect - target)) best = { effect, logWeight: 0, words: refined.words };
     }
   }
-  return { candidate, logEvidence: logSum(terms), best: { effect: best.effect, words: best.words } };
+  return { candidate, logEvidence: segments.length > 0 ? logSum(segments) : logSum(terms), best: { effect: best.effect, words: best.words } };
 }
 
 function effectOf(input: WorkupInput | undefined, simulate: Simulator, logR0: number): number | null {

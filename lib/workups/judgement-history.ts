@@ -19,6 +19,7 @@ export function historyCaseOf(analysis: unknown): HistoryCase | null {
   return {
     engine: { recovery: c.engine.recovery, low: finite(c.engine.low) ? c.engine.low : null, high: finite(c.engine.high) ? c.engine.high : null },
     handling, assay: c.assay, crudeAssayed: c.crudeAssayed === true, chemist: typeof c.chemist === "string" ? c.chemist : null,
+    family: typeof c.family === "string" ? c.family : null,
     observedLog: p.observedLog, yieldLog: finite(p.yieldLog) ? p.yieldLog : null,
   };
 }
