@@ -10,7 +10,8 @@
  * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
-import { CO2_SATURATION_M, KW, solvePhWithSlope, systemFractionProtonated, type SlopedChargeBalance } from "./aqueous";
+import { daviesTerm, dissociationFactor } from "./activity";
+import { CO2_SATURATION_M, KW, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
@@ -18,12 +19,17 @@ import { PhaseSplit } from "./phases";
 import { ionPairOffset } from "./ion-pair";
 import { copyInto, type Stream } from "./stream";
 
-/** The pH (and 10^−pH) a contact reached in an earlier run: where later runs' searches for the same contact
- * start. */
+/** The pH (and 10^−pH) and ionic strength a contact reached in an earlier run: where later runs' searches for
+ * the same contact start. */
 export interface PhMemo {
   pH: number;
   h: number;
+  /** Ionic strength the contact settled at, mol/L (NaN until solved). */
+  ionicStrength: number;
 }
+
+/** Change of −log γ± below which the ionic strength counts as settled (see equilibrate). */
+const ACTIVITY_TOLERANCE = 1e-11;
 
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
 const SYSTEM_Z2_WEIGHT = Float64Array.from(SYSTEM_Z0, (z0) => Math.max(1, z0 * z0));
@@ -49,6 +55,7 @@ export class Equilibrator implements SlopedChargeBalance {
   private active = new Int32Array(N_SYSTEMS);
   private nActive = 0;
   private strongConc = 0;
+  private strongZ2Conc = 0;
   /** Per contact: each system's total and each component's amount over the aqueous volume, and V_org/V_aq. */
   private systemConc = new Float64Array(N_SYSTEMS);
   private amountConc: Float64Array;
@@ -68,6 +75,13 @@ export class Equilibrator implements SlopedChargeBalance {
   private anionM = 0;
   /** H₂CO₃* the aqueous layer holds under the headspace, mol/L: CO₂ above it leaves (Infinity: none leaves). */
   private carbonateCap = Number.POSITIVE_INFINITY;
+  /** Ionic strength of the aqueous layer from every ion at the solved pH, mol/L (activity.ts). */
+  ionicStrength = 0;
+  /** Ionic strength the activity coefficients were last set for; 1/γ± of singly charged ions; the systems'
+   * concentration constants K′ at that ionic strength. */
+  private activityI = 0;
+  private invGamma1 = 1;
+  private readonly sysKa: Float64Array[] = SYSTEM_KA.map((k) => Float64Array.from(k));
   /** Components with an acidic or basic site, and how many. */
   private charged: Int32Array;
   private nCharged = 0;
@@ -135,11 +149,23 @@ export class Equilibrator implements SlopedChargeBalance {
     const carb = this.systemTotals[CARBONATE] as number;
     this.carbonateCap = carb > 0 ? CO2_SATURATION_M : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
+    this.setActivity(remembered && Number.isFinite(memo.ionicStrength) ? memo.ionicStrength : this.ionicStrengthEstimate(mix));
     this.pH = remembered ? solvePhWithSlope(this, memo.pH, memo.h) : solvePhWithSlope(this, guess);
-    if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; }
+    // The ionic strength at the root sets the activity coefficients; solved again from the root until they
+    // agree (a fixed point: I hardly depends on γ, so each round gains one to two digits, and a round whose
+    // root moves less than the Newton tolerance costs one evaluation). Tight, so that where the search started
+    // does not show in the result.
+    for (let round = 0; round < 10; round++) {
+      const i = this.ionicStrengthAt(this.rootH);
+      this.ionicStrength = i;
+      if (Math.abs(daviesTerm(i) - daviesTerm(this.activityI)) < ACTIVITY_TOLERANCE) break;
+      this.setActivity(i);
+      this.pH = solvePhWithSlope(this, this.pH, this.rootH);
+    }
+    if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; memo.ionicStrength = this.ionicStrength; }
     this.carbonateCap = Number.POSITIVE_INFINITY;
     if (carb > 0) {
-      const kept = Math.min(carb, (CO2_SATURATION_M * this.va) / systemFractionProtonated(CARBONATE, this.rootH));
+      const kept = Math.min(carb, (CO2_SATURATION_M * this.va) * this.systemSum(CARBONATE, 1 / this.rootH));
       const excess = carb - kept;
       if (excess > 1e-12) {
         this.co2Mmol = excess;
@@ -170,7 +196,81 @@ export class Equilibrator implements SlopedChargeBalance {
    */
   chargeAt(mix: Stream, pH: number): number {
     if (!this.prepare(mix)) return Number.NaN;
-    return this.residualAt(pH, Math.exp(-pH * Math.LN10)) * this.va;
+    const a = Math.exp(-pH * Math.LN10);
+    this.setActivity(this.ionicStrengthEstimate(mix));
+    for (let round = 0; round < 10; round++) {
+      const i = this.ionicStrengthAt(a);
+      if (Math.abs(daviesTerm(i) - daviesTerm(this.activityI)) < ACTIVITY_TOLERANCE) break;
+      this.setActivity(i);
+    }
+    return this.residualAt(pH, a) * this.va;
+  }
+
+  /** Ionic strength before the pH is known: strong ions with the H⁺, OH⁻ or system ions balancing their net
+   * charge counted as singly charged, mol/L. */
+  private ionicStrengthEstimate(mix: Stream): number {
+    return (0.5 * (mix.strongZ2 + Math.abs(mix.strongCharge))) / this.va;
+  }
+
+  /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
+  private setActivity(i: number): void {
+    this.activityI = i;
+    const term = daviesTerm(i);
+    this.invGamma1 = Math.exp(term * Math.LN10);
+    for (let k = 0; k < this.nActive; k++) {
+      const sIdx = this.active[k] as number;
+      const ka = SYSTEM_KA[sIdx] as Float64Array;
+      const out = this.sysKa[sIdx] as Float64Array;
+      const z0 = SYSTEM_Z0[sIdx] as number;
+      for (let j = 0; j < ka.length; j++) out[j] = (ka[j] as number) * dissociationFactor(z0 - j, term);
+    }
+  }
+
+  /** Σ of the system's species over its fully protonated form at 1/[H⁺] = hInv (concentration constants). */
+  private systemSum(sIdx: number, hInv: number): number {
+    const ka = this.sysKa[sIdx] as Float64Array;
+    let term = 1, sum = 1;
+    for (let j = 0; j < ka.length; j++) { term *= (ka[j] as number) * hInv; sum += term; }
+    return sum;
+  }
+
+  /**
+   * I = ½Σc·z² at a(H⁺) = h: strong ions, H⁺ and OH⁻, every species of the acid–base systems, and the charged
+   * sites of the mixture's components in the water (each site counted as a singly charged ion).
+   */
+  private ionicStrengthAt(h: number): number {
+    const g = this.invGamma1;
+    let sum = this.strongZ2Conc + h * g + (KW / h) * g;
+    const hInv = 1 / h;
+    for (let k = 0; k < this.nActive; k++) {
+      const sIdx = this.active[k] as number;
+      const ka = this.sysKa[sIdx] as Float64Array;
+      let z = SYSTEM_Z0[sIdx] as number;
+      let term = 1, total = 1, z2 = z * z;
+      for (let j = 0; j < ka.length; j++) {
+        term *= (ka[j] as number) * hInv;
+        total += term;
+        z -= 1;
+        z2 += term * z * z;
+      }
+      sum += (this.systemConc[sIdx] as number) * (z2 / total);
+    }
+    const { comps, voOverVa } = this;
+    for (let k = 0; k < this.nCharged; k++) {
+      const c = this.charged[k] as number;
+      const nc = this.amountConc[c] as number;
+      if (!(nc > 0)) continue;
+      const acid = comps.acidKa[c] as Float64Array;
+      const base = comps.baseKa[c] as Float64Array;
+      let f0 = 1, charged = 0;
+      for (let j = 0; j < acid.length; j++) { const ka = (acid[j] as number) * g; const x = ka / (h + ka); f0 *= 1 - x; charged += x; }
+      for (let j = 0; j < base.length; j++) { const ka = (base[j] as number) / g; const x = h / (h + ka); f0 *= 1 - x; charged += x; }
+      if (comps.fixedCharge[c] !== 0) { f0 = 0; charged = Math.max(charged, Math.abs(comps.fixedCharge[c] as number)); }
+      const kN = this.kNeutral[c] as number, kI = this.kIon[c] as number;
+      const fa = 1 / (1 + (kN * f0 + kI * (1 - f0)) * voOverVa);
+      sum += nc * fa * charged;
+    }
+    return 0.5 * sum;
   }
 
   /** Phase split, partition constants and the concentrations the charge balance reads; false without water. */
@@ -197,6 +297,7 @@ export class Equilibrator implements SlopedChargeBalance {
       }
     }
     this.strongConc = mix.strongCharge / this.va;
+    this.strongZ2Conc = mix.strongZ2 / this.va;
     for (let k = 0; k < this.nCharged; k++) {
       const c = this.charged[k] as number;
       this.amountConc[c] = (this.amounts[c] as number) / this.va;
@@ -266,14 +367,19 @@ export class Equilibrator implements SlopedChargeBalance {
    * Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers;
    * sets `slope` to its derivative in pH (a sum of negative terms: −ln10 times the buffer capacities).
    */
-  residualAt(_pH: number, h: number): number {
+  residualAt(_pH: number, a: number): number {
+    // `a` is a(H⁺); with concentration constants (setActivity) the balance runs on [H⁺] = a/γ±, and sites on
+    // h = a (acids: K′ = K/γ±; bases: K′ = K·γ±, so x = a/(a + K′·…) keeps the same form).
+    const g = this.invGamma1;
+    const h = a;
     const hInv = 1 / h;
-    const oh = KW * hInv;
-    let f = this.strongConc + h - oh;
-    let df = h + oh;
+    const hc = h * g;
+    const oh = KW * hInv * g;
+    let f = this.strongConc + hc - oh;
+    let df = hc + oh;
     for (let k = 0; k < this.nActive; k++) {
       const s = this.active[k] as number;
-      const ka = SYSTEM_KA[s] as Float64Array;
+      const ka = this.sysKa[s] as Float64Array;
       let term = 1, sum = 1, lost = 0, lost2 = 0;
       for (let i = 0; i < ka.length; i++) {
         term *= (ka[i] as number) * hInv;
@@ -302,14 +408,14 @@ export class Equilibrator implements SlopedChargeBalance {
       // Per site: charged fraction x; d x/d pH = ±ln10·x(1 − x). f₀ = Π(1 − x) moves by ln10·f₀·z.
       let f0 = 1, z = 0, dz = 0;
       for (let i = 0; i < acid.length; i++) {
-        const ka = acid[i] as number;
+        const ka = (acid[i] as number) * g;
         const x = ka / (h + ka);
         f0 *= 1 - x;
         z -= x;
         dz += x * (1 - x);
       }
       for (let i = 0; i < base.length; i++) {
-        const ka = base[i] as number;
+        const ka = (base[i] as number) / g;
         const x = h / (h + ka);
         f0 *= 1 - x;
         z += x;
@@ -328,19 +434,20 @@ export class Equilibrator implements SlopedChargeBalance {
     return f;
   }
 
-  /** Speciation and distribution of every component at the solved pH ([H⁺] = h). */
+  /** Speciation and distribution of every component at the solved pH (a(H⁺) = h). */
   private speciate(h: number): void {
     const { comps, va, vo } = this;
+    const g = this.invGamma1;
     for (let c = 0; c < comps.count; c++) {
       const acid = comps.acidKa[c] as Float64Array;
       const base = comps.baseKa[c] as Float64Array;
       let f0 = 1;
       for (let i = 0; i < acid.length; i++) {
-        const ka = acid[i] as number;
+        const ka = (acid[i] as number) * g;
         f0 *= 1 - ka / (h + ka);
       }
       for (let i = 0; i < base.length; i++) {
-        const ka = base[i] as number;
+        const ka = (base[i] as number) / g;
         f0 *= 1 - h / (h + ka);
       }
       if (comps.fixedCharge[c] !== 0) f0 = 0;
@@ -354,8 +461,8 @@ export class Equilibrator implements SlopedChargeBalance {
   /** Free H⁺ and OH⁻ in the aqueous layer after the contact, mmol. */
   freeAcidBase(): { h: number; oh: number } {
     if (!this.phases.hasAqueous) return { h: 0, oh: 0 };
-    const h = 10 ** -this.pH;
-    return { h: h * this.va, oh: (KW / h) * this.va };
+    const a = 10 ** -this.pH;
+    return { h: a * this.invGamma1 * this.va, oh: (KW / a) * this.invGamma1 * this.va };
   }
 
   get aqueousVolume(): number { return this.va; }

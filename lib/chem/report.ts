@@ -62,7 +62,7 @@ export function contactResult(lib: CompiledLibrary, comps: CompiledComponents, e
   if (eq.phases.hasAqueous) {
     phases.push({
       kind: "aqueous", volumeMl: eq.phases.aqueousVolume, densityGPerMl: t?.aqueousDensity ?? NaN,
-      position: two ? (t?.organicOnTop ? "bottom" : "top") : "single", pH: eq.pH, ionicStrength: eq.phases.saltM,
+      position: two ? (t?.organicOnTop ? "bottom" : "top") : "single", pH: eq.pH, ionicStrength: eq.ionicStrength,
       solventsMl: solventRecord(lib, eq.phases.aq), components: speciesRecord(eq, comps, out.aq, "aqueous"),
       ...(two ? { distributionRatio: distribution } : {}),
     });

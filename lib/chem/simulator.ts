@@ -186,7 +186,7 @@ export class Simulator {
     if (memory) {
       memo = memory[k] ?? null;
       if (!memo) {
-        memo = { pH: Number.NaN, h: Number.NaN };
+        memo = { pH: Number.NaN, h: Number.NaN, ionicStrength: Number.NaN };
         memory.push(memo);
       }
     }

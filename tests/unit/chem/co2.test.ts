@@ -1,7 +1,8 @@
 /**
  * CO₂ from bicarbonate leaves until the aqueous layer is in equilibrium with a CO₂ headspace at 1 atm (an open
  * system at fixed p(CO₂): W. Stumm & J. J. Morgan, Aquatic Chemistry, 3rd ed., Wiley 1996, ch. 4), and the gas
- * is counted at the contact's temperature (ideal gas, CODATA R). Check values are computed here from those
+ * is counted at the contact's temperature (ideal gas, CODATA R); pH as −log a(H⁺) with Davies coefficients
+ * (C. W. Davies, Ion Association, 1962). Check values are computed here from those
  * textbook relations with the published constants: K₁, K₂ of carbonic acid 6.35, 10.33 and acetic acid 4.757
  * (Martell & Smith, Critical Stability Constants), CO₂ solubility under 1 atm at 25 °C 0.034 mol/L (Henry's law
  * constant 3.4·10⁻² mol L⁻¹ atm⁻¹, R. Sander, Atmos. Chem. Phys. 15 (2015) 4399, from memory).
@@ -16,20 +17,34 @@ const K1 = 10 ** -6.35, K2 = 10 ** -10.33, KA = 10 ** -4.757, KW = 1e-14, CSAT =
 /** Saturated NaHCO₃: 1.11 mol/L (9.6 g/100 g water at 20 °C, Seidell; as in the reagent table). */
 const NAHCO3_SAT_M = 1.11;
 
-/** Open-system charge balance of Na⁺ + acetic acid under 1 atm CO₂: pH by bisection, then the CO₂ that left. */
+/** −log γ± of a singly charged ion at ionic strength I (Davies equation, C. W. Davies, Ion Association, 1962). */
+const minusLogGamma = (i: number): number => 0.509 * (Math.sqrt(i) / (1 + Math.sqrt(i)) - 0.3 * i);
+
+/**
+ * Open-system charge balance of Na⁺ + acetic acid under 1 atm CO₂ with Davies activity coefficients, the pH as
+ * −log a(H⁺): bisection in pH inside a fixed-point loop on the ionic strength; then the CO₂ that left.
+ */
 function openSystemGas(naM: number, acetateM: number, volumeL: number): { pH: number; gasMmol: number } {
-  const residual = (pH: number): number => {
-    const h = 10 ** -pH;
-    return naM + h - KW / h - (acetateM * KA) / (KA + h) - (CSAT * K1) / h - (2 * CSAT * K1 * K2) / (h * h);
-  };
-  let lo = 0, hi = 14;
-  for (let i = 0; i < 200; i++) {
-    const mid = 0.5 * (lo + hi);
-    if (residual(mid) > 0) lo = mid; else hi = mid;
+  let ionic = naM, pH = 7, hco3 = 0, co3 = 0;
+  for (let round = 0; round < 50; round++) {
+    const g1 = 10 ** -minusLogGamma(ionic), g2 = 10 ** (-4 * minusLogGamma(ionic));
+    const species = (p: number) => {
+      const a = 10 ** -p;
+      return { h: a / g1, oh: KW / (a * g1), ac: (acetateM * KA) / (KA + a * g1), hco3: (CSAT * K1) / (a * g1), co3: (CSAT * K1 * K2) / (a * a * g2) };
+    };
+    let lo = 0, hi = 14;
+    for (let i = 0; i < 200; i++) {
+      const mid = 0.5 * (lo + hi);
+      const x = species(mid);
+      if (naM + x.h - x.oh - x.ac - x.hco3 - 2 * x.co3 > 0) lo = mid; else hi = mid;
+    }
+    pH = lo;
+    const x = species(pH);
+    hco3 = x.hco3;
+    co3 = x.co3;
+    ionic = 0.5 * (naM + x.h + x.oh + x.ac + x.hco3 + 4 * x.co3);
   }
-  const h = 10 ** -lo;
-  const dissolved = CSAT * (1 + K1 / h + (K1 * K2) / (h * h));
-  return { pH: lo, gasMmol: (naM - dissolved) * volumeL * 1000 };
+  return { pH, gasMmol: (naM - CSAT - hco3 - co3) * volumeL * 1000 };
 }
 
 const aceticAcid = (n: number): ComponentRaw => ({ key: "acoh", name: "Acetic acid", role: "reagent", molarMass: 60.05, amount: mmol(n),

