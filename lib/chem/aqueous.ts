@@ -2,8 +2,9 @@
  * Aqueous pH by charge balance. Every aqueous contact is solved for the pH at which cations and anions balance:
  * strong ions (Na⁺, Cl⁻, …), the weak acid–base systems of the reagents (carbonate, phosphate, citrate,
  * ammonium, hydrogen sulfate, …), water, and the mixture's own acids and bases — the last distributing between
- * the layers at the same time, so mass balance sits inside the root solve. Activity coefficients are taken as 1
- * (the "ideal" pH of reference-data §4c); concentrated solutions read differently on a meter.
+ * the layers at the same time, so mass balance sits inside the root solve. In a contact (equilibrium.ts) the
+ * balance runs on a(H⁺) with Davies activity coefficients (activity.ts); aqueousPh and reagentPh here keep
+ * unit activities, the "ideal" pH of a fresh reagent.
  * The residual is monotone in pH, so a bracketed Brent solve on pH ∈ [−2, 16] always converges.
  */
 import { N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, CARBONATE, type CompiledReagent } from "./library";

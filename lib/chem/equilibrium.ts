@@ -29,7 +29,7 @@ export interface PhMemo {
 }
 
 /** Change of −log γ± below which the ionic strength counts as settled (see equilibrate). */
-const ACTIVITY_TOLERANCE = 1e-11;
+const ACTIVITY_TOLERANCE = 1e-9;
 
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
 const SYSTEM_Z2_WEIGHT = Float64Array.from(SYSTEM_Z0, (z0) => Math.max(1, z0 * z0));
@@ -77,9 +77,9 @@ export class Equilibrator implements SlopedChargeBalance {
   private carbonateCap = Number.POSITIVE_INFINITY;
   /** Ionic strength of the aqueous layer from every ion at the solved pH, mol/L (activity.ts). */
   ionicStrength = 0;
-  /** Ionic strength the activity coefficients were last set for; 1/γ± of singly charged ions; the systems'
+  /** −log γ± the activity coefficients were last set for (daviesTerm); 1/γ± of singly charged ions; the systems'
    * concentration constants K′ at that ionic strength. */
-  private activityI = 0;
+  private activityTerm = 0;
   private invGamma1 = 1;
   private readonly sysKa: Float64Array[] = SYSTEM_KA.map((k) => Float64Array.from(k));
   /** Components with an acidic or basic site, and how many. */
@@ -158,7 +158,7 @@ export class Equilibrator implements SlopedChargeBalance {
     for (let round = 0; round < 10; round++) {
       const i = this.ionicStrengthAt(this.rootH);
       this.ionicStrength = i;
-      if (Math.abs(daviesTerm(i) - daviesTerm(this.activityI)) < ACTIVITY_TOLERANCE) break;
+      if (Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE) break;
       this.setActivity(i);
       this.pH = solvePhWithSlope(this, this.pH, this.rootH);
     }
@@ -200,7 +200,7 @@ export class Equilibrator implements SlopedChargeBalance {
     this.setActivity(this.ionicStrengthEstimate(mix));
     for (let round = 0; round < 10; round++) {
       const i = this.ionicStrengthAt(a);
-      if (Math.abs(daviesTerm(i) - daviesTerm(this.activityI)) < ACTIVITY_TOLERANCE) break;
+      if (Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE) break;
       this.setActivity(i);
     }
     return this.residualAt(pH, a) * this.va;
@@ -214,15 +214,18 @@ export class Equilibrator implements SlopedChargeBalance {
 
   /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
   private setActivity(i: number): void {
-    this.activityI = i;
     const term = daviesTerm(i);
-    this.invGamma1 = Math.exp(term * Math.LN10);
+    this.activityTerm = term;
+    const g = Math.exp(term * Math.LN10);
+    this.invGamma1 = g;
+    const g2 = g * g;
     for (let k = 0; k < this.nActive; k++) {
       const sIdx = this.active[k] as number;
       const ka = SYSTEM_KA[sIdx] as Float64Array;
       const out = this.sysKa[sIdx] as Float64Array;
-      const z0 = SYSTEM_Z0[sIdx] as number;
-      for (let j = 0; j < ka.length; j++) out[j] = (ka[j] as number) * dissociationFactor(z0 - j, term);
+      // K′/K = (1/γ±)^(1 − 2z) for a species of charge z = z₀ − j (activity.ts), by repeated products.
+      let factor = dissociationFactor(SYSTEM_Z0[sIdx] as number, term);
+      for (let j = 0; j < ka.length; j++) { out[j] = (ka[j] as number) * factor; factor *= g2; }
     }
   }
 

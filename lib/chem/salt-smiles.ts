@@ -10,7 +10,7 @@ const FORMS: Record<CounterIonKey, readonly string[]> = {
   chloride: ["Cl", "[Cl-]", "[ClH]", "[H]Cl"],
   bromide: ["Br", "[Br-]", "[BrH]", "[H]Br"],
   iodide: ["I", "[I-]", "[IH]", "[H]I"],
-  nitrate: ["O[N+](=O)[O-]", "[O-][N+](=O)[O-]", "[O-][N+]([O-])=O", "ON(=O)=O"],
+  nitrate: ["O[N+](=O)[O-]", "[O-][N+](=O)[O-]", "[O-][N+]([O-])=O", "ON(=O)=O", "O=[N+]([O-])O", "O=[N+]([O-])[O-]"],
   mesylate: ["CS(=O)(=O)O", "CS(O)(=O)=O", "CS(=O)(=O)[O-]", "CS([O-])(=O)=O", "OS(C)(=O)=O"],
   tosylate: ["Cc1ccc(cc1)S(=O)(=O)O", "Cc1ccc(S(=O)(=O)O)cc1", "Cc1ccc(cc1)S(=O)(=O)[O-]", "Cc1ccc(S(=O)(=O)[O-])cc1",
     "Cc1ccc(cc1)S(O)(=O)=O", "Cc1ccc(cc1)S([O-])(=O)=O", "O=S(=O)(O)c1ccc(C)cc1", "[O-]S(=O)(=O)c1ccc(C)cc1"],

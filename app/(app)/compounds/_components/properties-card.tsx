@@ -2,6 +2,8 @@ import { type ReactNode } from "react";
 import { Badge } from "@/components/ui/badge";
 import { formatNumber } from "@/components/ui/format";
 import { Card } from "@/components/ui/page-header";
+import { COUNTER_IONS } from "@/lib/chem/data/counter-ions";
+import { saltFromSmiles } from "@/lib/chem/salt-smiles";
 import { parseLogPSource } from "@/lib/compounds/provenance";
 import type { CompoundDetail } from "@/lib/compounds/queries";
 import { Formula } from "./formula";
@@ -17,11 +19,21 @@ export function Estimated() {
 
 export function PropertiesCard({ compound, editable }: { compound: CompoundDetail; editable: boolean }) {
   const logPSource = parseLogPSource(compound.logPSource);
+  const salt = saltFromSmiles(compound.canonicalSmiles);
   return (
     <Card title="Properties">
       <dl className="divide-y divide-stone-100 text-sm">
         <Row label="Formula"><Formula formula={compound.formula} /></Row>
-        <Row label="Molar mass">{formatNumber(compound.molarMass, 2)} g/mol</Row>
+        <Row label="Molar mass">{formatNumber(compound.molarMass, 2)} g/mol{salt ? " (the salt)" : ""}</Row>
+        {salt ? (
+          <Row label="Salt">
+            <span data-testid="salt">
+              parent <code className="text-xs">{salt.parentSmiles}</code> with {salt.perParent > 1 ? `${salt.perParent} × ` : ""}
+              {COUNTER_IONS[salt.counterIon].formula} ({COUNTER_IONS[salt.counterIon].name}){salt.water > 0 ? `, ${salt.water} H₂O` : ""}
+              <span className="block text-xs text-stone-500">Workups simulate the parent with its counter-ion in the aqueous charge balance.</span>
+            </span>
+          </Row>
+        ) : null}
         <Row label="log P (octanol/water)">
           <div className="space-y-1.5" data-testid="logp">
             {compound.logP !== null ? (
