@@ -35,7 +35,8 @@ export const LATEST_DAY = "9999-12-31";
 /** A calendar date as YYYY-MM-DD (the day the workup was run), stored as midnight UTC. */
 export const isoDateSchema = (label: string) =>
   z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` })
-    .refine((day) => day >= EARLIEST_DAY && day <= LATEST_DAY, { error: `${label} must be between ${EARLIEST_DAY} and ${LATEST_DAY}` })
+    // Only a well-formed date is range-checked, so a malformed one gets the one message that says what is wrong.
+    .refine((day) => !/^\d{4}-\d{2}-\d{2}$/.test(day) || (day >= EARLIEST_DAY && day <= LATEST_DAY), { error: `${label} must be between ${EARLIEST_DAY} and ${LATEST_DAY}` })
     .transform((day) => new Date(`${day}T00:00:00.000Z`));
 
 
