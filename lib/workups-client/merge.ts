@@ -9,6 +9,7 @@
  */
 import { type JsonObject, type JsonValue, type SnapshotHeader, type WorkupSnapshot } from "@/lib/workups/record";
 import { withStepIds } from "@/lib/workups/step-ids";
+import { fieldWords } from "./field-words";
 
 /** Where a change or conflict is. `field: null` on an item means the item as a whole (added, removed, retyped). */
 export type MergePath =
@@ -184,11 +185,11 @@ const describeStep = (op: Item | undefined, position: number): string => {
 export function mergeSnapshots(base: WorkupSnapshot, theirs: WorkupSnapshot, mine: WorkupSnapshot, choices: Readonly<Record<string, Choice>> = {}): MergeResult {
   const merger = new Merger(choices);
   const header = merger.fields(
-    (field) => ({ part: "header", field }), (field) => field,
+    (field) => ({ part: "header", field }), fieldWords,
     base.header as unknown as JsonObject, theirs.header as unknown as JsonObject, mine.header as unknown as JsonObject,
   );
 
-  const settings = merger.fields((field) => ({ part: "setting", field }), (field) => field, base.spec, theirs.spec, mine.spec, ["components", "operations"]);
+  const settings = merger.fields((field) => ({ part: "setting", field }), fieldWords, base.spec, theirs.spec, mine.spec, ["components", "operations"]);
 
   const [bc, tc, mc] = [componentItems(base), componentItems(theirs), componentItems(mine)];
   const componentName = (key: string) => {

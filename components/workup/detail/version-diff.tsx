@@ -2,16 +2,7 @@
 // header fields, components and steps, each old → new.
 import type { FieldChange, VersionDiff } from "@/lib/workups/diff";
 import type { JsonValue } from "@/lib/workups/record";
-
-const FIELD_WORDS: Record<string, string> = {
-  title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", scaleMmol: "Scale (mmol)",
-  expectedProductMmol: "Expected product (mmol)", assayedProductMmol: "Assayed before the workup (mmol)", compoundId: "Registered compound",
-  molarMass: "Molar mass", logP: "log P", pKas: "pKa values", saveAs: "Saved as", targetPh: "Target pH", mixture: "Starting mixture",
-};
-
-function words(field: string): string {
-  return FIELD_WORDS[field] ?? field.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ");
-}
+import { fieldWords } from "@/lib/workups-client/field-words";
 
 export function jsonText(v: JsonValue | undefined): string {
   if (v === null || v === undefined) return "—";
@@ -20,14 +11,14 @@ export function jsonText(v: JsonValue | undefined): string {
   if (Array.isArray(v)) return v.length === 0 ? "none" : v.map(jsonText).join(", ");
   if ("value" in v && "unit" in v) return `${jsonText(v.value)} ${jsonText(v.unit)}`;
   if ("value" in v && "provenance" in v) return `${jsonText(v.value)} (${jsonText(v.provenance)})`;
-  return Object.entries(v).map(([k, x]) => `${words(k)} ${jsonText(x)}`).join("; ");
+  return Object.entries(v).map(([k, x]) => `${fieldWords(k)} ${jsonText(x)}`).join("; ");
 }
 
 function Changes({ changes }: { changes: FieldChange[] }) {
   return (
     <ul className="ml-4 list-disc space-y-0.5">
       {changes.map((c) => (
-        <li key={c.field}><span className="text-stone-600">{words(c.field)}:</span> <del className="text-red-800">{jsonText(c.from)}</del> → <ins className="text-emerald-800 no-underline">{jsonText(c.to)}</ins></li>
+        <li key={c.field}><span className="text-stone-600">{fieldWords(c.field)}:</span> <del className="text-red-800">{jsonText(c.from)}</del> → <ins className="text-emerald-800 no-underline">{jsonText(c.to)}</ins></li>
       ))}
     </ul>
   );

@@ -1,0 +1,10 @@
+/** How the record's fields are named on screen (history, merge panel): the form's labels, never the stored keys. */
+const FIELD_WORDS: Record<string, string> = {
+  title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", scaleMmol: "Scale (mmol)",
+  expectedProductMmol: "Expected product (mmol)", assayedProductMmol: "Assayed before the workup (mmol)", compoundId: "Registered compound",
+  molarMass: "Molar mass", logP: "log P", pKas: "pKa values", saveAs: "Saved as", targetPh: "Target pH", mixture: "Starting mixture",
+};
+
+export function fieldWords(field: string): string {
+  return FIELD_WORDS[field] ?? field.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ");
+}
