@@ -1,7 +1,7 @@
 // At the hood: a phone (390 px) and a tablet (768 px). The editor keeps a one-line prediction summary on screen
 // that opens the full panel; steps fold to one line; the review page fits the screen's width.
 import { expect, test } from "@playwright/test";
-import { signIn } from "./helpers";
+import { signIn, typeComponent } from "./helpers";
 import { PEOPLE } from "./people";
 
 for (const width of [390, 768]) {
@@ -13,12 +13,7 @@ for (const width of [390, 768]) {
       await page.goto("/workups/new");
       await page.getByLabel("Title").fill("Hood check");
       // Anisole, log P 2.11 (Hansch, Leo & Hoekman 1995; from memory), 108.14 g/mol.
-      await page.getByRole("button", { name: "Type one in by hand" }).click();
-      const card = page.getByTestId("component-card").last();
-      await card.getByRole("textbox", { name: "Name" }).fill("Anisole");
-      await card.getByRole("textbox", { name: "Amount" }).fill("2");
-      await card.getByRole("textbox", { name: "Molar mass (g/mol)" }).fill("108.14");
-      await card.getByRole("textbox", { name: /^log P/ }).fill("2.11");
+      await typeComponent(page, { name: "Anisole", amountMmol: "2", molarMass: "108.14", logP: "2.11" });
       await page.getByLabel("Add a step").selectOption("wash");
       await page.getByLabel("Add a step").press("Enter");
 

@@ -26,3 +26,13 @@ export async function signOut(page: Page): Promise<void> {
 export function alert(page: Page) {
   return page.getByRole("alert").filter({ hasText: /\S/ });
 }
+
+/** A component typed in by hand (no registry), enough for the engine to predict. */
+export async function typeComponent(page: Page, values: { name: string; amountMmol: string; molarMass: string; logP: string }): Promise<void> {
+  await page.getByRole("button", { name: "Type one in by hand" }).click();
+  const card = page.getByTestId("component-card").last();
+  await card.getByRole("textbox", { name: "Name" }).fill(values.name);
+  await card.getByRole("textbox", { name: "Amount" }).fill(values.amountMmol);
+  await card.getByRole("textbox", { name: "Molar mass (g/mol)" }).fill(values.molarMass);
+  await card.getByRole("textbox", { name: /^log P/ }).fill(values.logP);
+}

@@ -1,7 +1,7 @@
 // Procedure text in a browser: paste the workup part of an experimental section, check what each clause became,
 // add the proposed steps, save, copy the paragraph the record writes back, and read it in again to the same steps.
 import { expect, test, type Page } from "@playwright/test";
-import { signIn } from "./helpers";
+import { signIn, typeComponent } from "./helpers";
 import { PEOPLE } from "./people";
 
 const PARAGRAPH = "The mixture was diluted with EtOAc (50 mL), washed with 1 M HCl (2 × 20 mL), sat. aq. NaHCO₃ (20 mL) and brine (20 mL), dried (MgSO₄), filtered and concentrated under reduced pressure. The residue was purified by flash chromatography.";
@@ -23,12 +23,7 @@ test("a pasted procedure becomes steps, saves, and its written-back paragraph re
   await expect(page.getByLabel("Add a step")).toBeVisible();
   await page.getByLabel("Title").fill(title);
   // Anisole, log P 2.11 (Hansch, Leo & Hoekman 1995; from memory), 108.14 g/mol.
-  await page.getByRole("button", { name: "Type one in by hand" }).click();
-  const card = page.getByTestId("component-card").last();
-  await card.getByRole("textbox", { name: "Name" }).fill("Anisole");
-  await card.getByRole("textbox", { name: "Amount" }).fill("2");
-  await card.getByRole("textbox", { name: "Molar mass (g/mol)" }).fill("108.14");
-  await card.getByRole("textbox", { name: /^log P/ }).fill("2.11");
+  await typeComponent(page, { name: "Anisole", amountMmol: "2", molarMass: "108.14", logP: "2.11" });
 
   const proposed = await pasteAndRead(page, PARAGRAPH);
   expect(proposed).toHaveLength(6);

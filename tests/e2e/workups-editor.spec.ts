@@ -2,7 +2,7 @@
 // watch the live prediction follow each added step, save, report a poor outcome and see the record flagged with a
 // ranked cause; then the keyboard and validation behaviour of the editor, and a save refused as stale.
 import { expect, test, type Page } from "@playwright/test";
-import { signIn } from "./helpers";
+import { signIn, typeComponent } from "./helpers";
 import { PEOPLE } from "./people";
 
 // Ethyl benzoate, C9H10O2: 150.18 g/mol from standard atomic weights (9 × 12.011 + 10 × 1.008 + 2 × 15.999; IUPAC).
@@ -12,16 +12,6 @@ async function startNewWorkup(page: Page, title: string): Promise<void> {
   await page.getByRole("link", { name: "New workup" }).click();
   await expect(page).toHaveURL(/\/workups\/new$/);
   await page.getByLabel("Title").fill(title);
-}
-
-/** A component typed in by hand (no registry), enough for the engine to predict. */
-async function typeComponent(page: Page, values: { name: string; amountMmol: string; molarMass: string; logP: string }): Promise<void> {
-  await page.getByRole("button", { name: "Type one in by hand" }).click();
-  const card = page.getByTestId("component-card").last();
-  await card.getByRole("textbox", { name: "Name" }).fill(values.name);
-  await card.getByRole("textbox", { name: "Amount" }).fill(values.amountMmol);
-  await card.getByRole("textbox", { name: "Molar mass (g/mol)" }).fill(values.molarMass);
-  await card.getByRole("textbox", { name: /^log P/ }).fill(values.logP);
 }
 
 async function addStep(page: Page, type: string): Promise<void> {
