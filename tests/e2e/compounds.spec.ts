@@ -55,12 +55,15 @@ async function recordWorkupUsing(page: Page, compoundId: string, title: string) 
       { type: "concentrate" },
     ],
   };
+  // Cookie-carried writes must say they come from our own pages (the CSRF check), as the app's own fetches do.
+  const sameOrigin = { origin: new URL(page.url()).origin };
   const created = await page.request.post("/api/v1/workups", {
+    headers: sameOrigin,
     data: { header: { title, performedOn: "2026-10-20", notebookRef: "HL-0131" }, spec, links: [{ key: "lidocaine", compoundId }] },
   });
   expect(created.status(), await created.text()).toBe(201);
   const { id } = (await created.json()) as { id: string };
-  const outcome = await page.request.post(`/api/v1/workups/${id}/outcome`, { data: { isolatedMassMg: 610, purityPct: 96, purityMethod: "qnmr" } });
+  const outcome = await page.request.post(`/api/v1/workups/${id}/outcome`, { headers: sameOrigin, data: { isolatedMassMg: 610, purityPct: 96, purityMethod: "qnmr" } });
   expect(outcome.status(), await outcome.text()).toBe(200);
   return id;
 }

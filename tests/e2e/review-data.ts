@@ -47,11 +47,14 @@ export async function me(request: APIRequestContext): Promise<{ id: string; name
  * predicted, 0.6 a clear shortfall. Returns the workup id.
  */
 export async function workupWithOutcome(request: APIRequestContext, o: ExtractionOptions, factor: number, options: { compoundId?: string; weightOnly?: boolean } = {}): Promise<string> {
-  const saved = await request.post("/api/v1/workups", { data: extractionBody(o, options.compoundId) });
+  // Cookie-carried writes must say they come from our own pages (the CSRF check), as the app's own fetches do.
+  const headers = { origin: `http://127.0.0.1:${process.env["LW_E2E_PORT"] ?? ""}` };
+  const saved = await request.post("/api/v1/workups", { headers, data: extractionBody(o, options.compoundId) });
   expect(saved.status(), await saved.text()).toBe(201);
   const { id, prediction } = (await saved.json()) as { id: string; prediction: { productRecovery: number } };
   const mg = prediction.productRecovery * factor * 5 * MOLAR_MASS;
   const outcome = await request.post(`/api/v1/workups/${id}/outcome`, {
+    headers,
     data: options.weightOnly
       ? { isolatedMassMg: Number(mg.toFixed(1)), purityMethod: "weight_only" }
       : { isolatedMassMg: Number((mg / 0.98).toFixed(1)), purityPct: 98, purityMethod: "qnmr" },
