@@ -13,7 +13,7 @@ import { N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, CARBONATE, type CompiledReagent } from
 export const KW = 1e-14;
 /** Enthalpy of H⁺ + OH⁻ → H₂O: ΔfH°(H₂O, l) − ΔfH°(OH⁻, aq) = −285.830 + 230.015 = −55.8 kJ/mol (CODATA key values). */
 export const HEAT_OF_NEUTRALIZATION_KJ_PER_MOL = -55.8;
-/** CO₂ dissolved in water under 1 atm CO₂ at 25 °C, mol/L (Henry's law; ≈0.03 M, workup-practice §2.7, memory). */
+/** CO₂ dissolved in water under 1 atm CO₂ at 25 °C, mol/L (Henry's law; ≈0.03 M, from memory). */
 export const CO2_SATURATION_M = 0.034;
 export const PH_MIN = -2;
 export const PH_MAX = 16;

@@ -1,5 +1,5 @@
 /**
- * Safety prompts shown beside the step that triggers them (workup-practice §4). They remind, they do not
+ * Safety prompts shown beside the step that triggers them (common practice). They remind, they do not
  * authorise: local rules, the institution's chemical hygiene plan and safety office, and current safety data
  * sheets govern. Each text ends by saying so.
  */

@@ -1,5 +1,5 @@
 /**
- * The operations of workup-practice §1.2 acting on the simulator's streams. Wash, back-extraction and
+ * The workup operations acting on the simulator's streams. Wash, back-extraction and
  * extraction are one physics (§1.1): mix, equilibrate, split, keep one layer; they differ in what is added
  * (aqueous reagent or organic solvent) and in which layer carries on. Each portion is a fresh equilibration.
  * Volumes, amounts, target pH and rinse volumes are read from the simulator's parameters (parameters.ts).

@@ -1,7 +1,7 @@
 /**
  * Speciation of a molecule with any number of acidic and basic sites, treating the sites as independent
  * (microscopic-independence approximation). "Neutral" means every site uncharged; every other form, a
- * zwitterion included, counts as charged (workup-practice §2.2). The distribution ratio D (total organic over
+ * zwitterion included, counts as charged (common practice). The distribution ratio D (total organic over
  * total aqueous concentration) sums the neutral and ionic contributions:
  *   D = K_N·f₀ + K_I·(1 − f₀)
  * which reduces to the Henderson–Hasselbalch forms D = P/(1 + 10^(pH−pKa)) for an acid and

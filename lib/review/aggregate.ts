@@ -1,5 +1,5 @@
 /**
- * The numbers behind the group-meeting views (workup-practice §6): parity points, the spread of deviations, residuals
+ * The numbers behind the group-meeting views: parity points, the spread of deviations, residuals
  * grouped by a factor with n always shown, calibration of the predicted interval, and the ranked list of flagged
  * workups. Deviations are reported − predicted recovery in percentage points. Pure.
  */

@@ -9,7 +9,7 @@ export const reviewFilterSchema = z
   .object({
     from: day("from"),
     to: day("to"),
-    /** A member's user id; only a lead may look at someone else's workups on their own (workup-practice §6). */
+    /** A member's user id; only a lead may look at someone else's workups on their own (the review's privacy rule). */
     chemist: id,
     /** Organic solvent key of the solvent system. */
     solvent: z.preprocess((v) => (v === "" ? undefined : v), z.string().trim().toLowerCase().min(1).max(64).optional()),

@@ -1,6 +1,6 @@
 /**
  * A review is about procedures, not a ranking of people: per-person statistics are shown only in aggregate, or to the
- * person concerned and the group lead (workup-practice §6, "Conduct of the review"). A lead sees each chemist by
+ * person concerned and the group lead (the review's privacy rule). A lead sees each chemist by
  * name; anyone else sees their own figures beside everyone else's taken together, and may filter only by themselves.
  */
 import { maySeePerson } from "@/lib/authz/people";

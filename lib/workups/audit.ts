@@ -1,4 +1,4 @@
-// Audit trail of workup records (workup-practice §5.1: who changed what, when). Written inside the same
+// Audit trail of workup records (who changed what, when). Written inside the same
 // transaction as the change, so an event exists exactly when the change does.
 import { type Prisma } from "@/generated/prisma/client";
 import { type Actor, type Tx } from "./context";

@@ -1,5 +1,5 @@
 /**
- * Likely causes of a shortfall (workup-practice §3 failure modes; §6 view 5). Each candidate cause is a change to
+ * Likely causes of a shortfall (the failure modes the engine's flags describe). Each candidate cause is a change to
  * the workup or to the reaction with a size (fraction lost in an emulsion, pH error, co-solvent left behind, …).
  * The model is re-run across a prior over that size; the cause's plausibility is its prior frequency × how likely
  * the reported value is under it (averaged over the size prior) × what the chemist recorded (an emulsion seen or

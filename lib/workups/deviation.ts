@@ -1,6 +1,5 @@
 /**
- * Reported recovery on one product basis, "product in the crude before the workup" (workup-practice §2.11 step 5,
- * §5.1 "Derived"): the in-process assay when the chemist gave one; otherwise the expected amount (or the spec's
+ * Reported recovery on one product basis, "product in the crude before the workup": the in-process assay when the chemist gave one; otherwise the expected amount (or the spec's
  * product amount) times the group's reaction-yield figure (lib/chem/predictive.ts YIELD_PRIOR, updated from the
  * group's assayed workups). The predicted recovery is the engine's fraction of whatever product entered the
  * workup, so both sit on that basis. All recoveries are fractions 0–1; deviations in points only where named Pct.

@@ -1,7 +1,7 @@
 /**
  * Antoine constants of the common work-up solvents, NIST Chemistry WebBook convention:
  * log10(P/bar) = A − B/(T/K + C). Each set reproduces 1 atm at the CRC normal boiling point to within 1.5 % (a check
- * on the transcription). Source: NIST Chemistry WebBook, SRD 69, "Antoine Equation Parameters" of each
+ * on the copying). Source: NIST Chemistry WebBook, SRD 69, "Antoine Equation Parameters" of each
  * compound; the constants are quoted from memory of those pages and checked
  * against the CRC Handbook vapour pressures at 40 °C in tests/unit/chem/evaporation.test.ts.
  * Solvents without a set here fall back to the estimate from the normal boiling point (evaporation.ts).
