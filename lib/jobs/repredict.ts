@@ -13,6 +13,7 @@ import { type Db, type DbTransaction } from "@/lib/db/client";
 import { groupValuesForWorkups } from "@/lib/partition/group-values";
 import { analyzeOutcome, type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { isFlagged, type DeviationStatus } from "@/lib/workups/deviation";
+import { groupJudgementFrom, loadGroupHistory } from "@/lib/workups/group-model";
 import { groupLibrary } from "@/lib/workups/library";
 import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "@/lib/workups/prediction";
 import { jobFailureMessage } from "./messages";
@@ -44,20 +45,26 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
     where: { groupId, id: { in: [...workupIds] } },
     orderBy: { id: "asc" },
     select: {
-      id: true, version: true, spec: true, flagged: true, updatedAt: true, assayedProductMmol: true, expectedProductMmol: true,
+      id: true, version: true, spec: true, flagged: true, updatedAt: true, assayedProductMmol: true, expectedProductMmol: true, chemistId: true,
       components: { where: { groupId }, select: { key: true, compoundId: true } },
-      outcome: { select: { id: true, isolatedMassMg: true, purityPct: true, updatedAt: true } },
+      outcome: { select: { id: true, isolatedMassMg: true, purityPct: true, purityMethod: true, updatedAt: true } },
     },
   });
   const values = await groupValuesForWorkups(db, groupId, workups.map((w) => ({ id: w.id, links: w.components })));
+  // The same group model as the save path and the outcome report: the group's other outcomes teach the judgement.
+  const history = workups.some((w) => w.outcome) ? await loadGroupHistory(db, groupId) : { rows: [] };
   const out: RepredictionPlan = { plans: [], failures: [] };
   for (const w of workups) {
     await yieldToEventLoop();
     try {
       const computed = computePrediction(w.spec, { library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {}, stored: true });
       const flags = computed.result.prediction.flags;
-      const analysis = w.outcome
-        ? analyzeOutcome({ outcome: w.outcome, header: w, spec: computed.parsed, library, prediction: { ...computed, workupVersion: w.version, flags } })
+      const judgement = w.outcome ? groupJudgementFrom(history, w.id) : null;
+      const analysis = w.outcome && judgement
+        ? analyzeOutcome({
+            outcome: w.outcome, header: w, spec: computed.parsed, library, prediction: { ...computed, workupVersion: w.version, flags },
+            model: judgement.model, causeFrequencies: judgement.causeFrequencies,
+          })
         : null;
       const state = analysis
         ? { flagged: analysis.flagged, status: analysis.deviation.status, deviationPct: analysis.deviation.deviationPct }

@@ -1,7 +1,8 @@
 /**
  * Loads what a judgement learns from the group's history: every other reported outcome of the group (scoped by
  * group). Per-chemist offsets are not used for the stored judgement, which every member of the group sees: a review
- * shows per-person figures only to the person and the group lead (lib/review/people.ts).
+ * shows per-person figures only to the person and the group lead (lib/review/people.ts). The save path, the outcome
+ * report, the CSV import and the background re-prediction all judge with this one model.
  */
 import { fitGroupModel, type GroupModel } from "@/lib/chem/predictive";
 import { type Db } from "@/lib/db/client";
@@ -13,17 +14,32 @@ export interface GroupJudgement {
   causeFrequencies: Record<CauseCode, number>;
 }
 
+/** The group's stored outcome analyses, newest first, with the workup each belongs to. */
+export interface GroupHistory {
+  rows: readonly { workupId: string; analysis: unknown }[];
+}
+
 /** Most past outcomes one judgement reads: the newest, plenty for means with a handful of parameters. */
 const HISTORY_LIMIT = 2000;
 
-export async function loadGroupJudgement(db: Pick<Db, "outcome">, groupId: string, excludeWorkupId?: string): Promise<GroupJudgement> {
+/** One read of the group's history; one more row than a judgement uses, so any one workup can be left out. */
+export async function loadGroupHistory(db: Pick<Db, "outcome">, groupId: string): Promise<GroupHistory> {
   const rows = await db.outcome.findMany({
-    where: { groupId, ...(excludeWorkupId ? { workupId: { not: excludeWorkupId } } : {}) },
+    where: { groupId },
     orderBy: [{ updatedAt: "desc" }, { id: "desc" }],
-    take: HISTORY_LIMIT,
-    select: { analysis: true },
+    take: HISTORY_LIMIT + 1,
+    select: { workupId: true, analysis: true },
   });
-  const analyses = rows.map((r) => r.analysis as unknown);
-  const history = analyses.map(historyCaseOf).filter((h) => h !== null);
-  return { model: fitGroupModel(history), causeFrequencies: causeFrequencies(analyses) };
+  return { rows: rows.map((r) => ({ workupId: r.workupId, analysis: r.analysis })) };
+}
+
+/** The model fitted to the history without the judged workup's own outcome (a workup never judges itself). */
+export function groupJudgementFrom(history: GroupHistory, excludeWorkupId?: string): GroupJudgement {
+  const analyses = history.rows.filter((r) => r.workupId !== excludeWorkupId).slice(0, HISTORY_LIMIT).map((r) => r.analysis);
+  const cases = analyses.map(historyCaseOf).filter((h) => h !== null);
+  return { model: fitGroupModel(cases), causeFrequencies: causeFrequencies(analyses) };
+}
+
+export async function loadGroupJudgement(db: Pick<Db, "outcome">, groupId: string, excludeWorkupId?: string): Promise<GroupJudgement> {
+  return groupJudgementFrom(await loadGroupHistory(db, groupId), excludeWorkupId);
 }
