@@ -51,7 +51,7 @@ export const listPageSchema = z.object({
 export const workupDetailSchema = z.object({
   id: z.string(), version: z.number().int().describe("send as baseVersion when saving"),
   header: z.object({
-    title: z.string(), performedOn: z.iso.date(), chemistId: z.string().nullable(), notebookRef: z.string(),
+    title: z.string(), performedOn: z.iso.date(), chemistId: z.string().nullable(), notebookRef: z.string(), notebookUrl: z.string(),
     scaleMmol: z.number().nullable(), expectedProductMmol: z.number().nullable(), assayedProductMmol: z.number().nullable(),
   }),
   spec: z.record(z.string(), z.unknown()).describe("the spec as saved, units included"),

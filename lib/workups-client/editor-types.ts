@@ -19,6 +19,8 @@ export interface HeaderState {
   /** "" when not recorded. */
   chemistId: string;
   notebookRef: string;
+  /** Address of the electronic notebook entry, as typed. */
+  notebookUrl: string;
   /** mmol, as typed. */
   scaleMmol: string;
   expectedProductMmol: string;

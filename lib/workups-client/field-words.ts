@@ -1,6 +1,6 @@
 /** How the record's fields are named on screen (history, merge panel): the form's labels, never the stored keys. */
 const FIELD_WORDS: Record<string, string> = {
-  title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", scaleMmol: "Scale (mmol)",
+  title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", notebookUrl: "Notebook entry address", scaleMmol: "Scale (mmol)",
   expectedProductMmol: "Expected product (mmol)", assayedProductMmol: "Assayed before the workup (mmol)", compoundId: "Registered compound",
   molarMass: "Molar mass", logP: "log P", pKas: "pKa values", saveAs: "Saved as", targetPh: "Target pH", mixture: "Starting mixture",
 };

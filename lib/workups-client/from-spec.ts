@@ -98,6 +98,7 @@ export function headerOf(h: SnapshotHeader): HeaderState {
   const mmol = (v: number | null) => (v === null ? "" : String(v));
   return {
     title: h.title, performedOn: h.performedOn, chemistId: h.chemistId ?? "", notebookRef: h.notebookRef,
+    notebookUrl: h.notebookUrl ?? "",
     scaleMmol: mmol(h.scaleMmol), expectedProductMmol: mmol(h.expectedProductMmol), assayedProductMmol: mmol(h.assayedProductMmol),
   };
 }
@@ -124,7 +125,7 @@ export function editorStateOf(header: SnapshotHeader, stored: JsonObject, links:
 /** A blank record for a new workup, dated today. */
 export function emptyEditorState(today: string, chemistId: string): EditorState {
   return {
-    header: { title: "", performedOn: today, chemistId, notebookRef: "", scaleMmol: "", expectedProductMmol: "", assayedProductMmol: "" },
+    header: { title: "", performedOn: today, chemistId, notebookRef: "", notebookUrl: "", scaleMmol: "", expectedProductMmol: "", assayedProductMmol: "" },
     components: [],
     mixture: { solvents: [{ id: newClientId("m"), solvent: "etoac", volume: { value: "50", unit: "mL" } }], reagents: [] },
     operations: [],

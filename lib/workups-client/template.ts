@@ -1,5 +1,5 @@
 /**
- * A saved workup used as a template: "copy as new" starts a new run (today, the person copying, no notebook entry,
+ * A saved workup used as a template: "copy as new" starts a new run (today, the person copying, no notebook entry or its address,
  * no assay of a crude that does not exist yet), and "scale to…" rescales every amount, mass and volume by the ratio of
  * the new reaction scale to the old one. Portions, pH targets, temperatures and pressures do not scale; a portion
  * that outgrows the separatory funnel is named so the chemist can choose a larger funnel or more portions.
@@ -9,7 +9,7 @@ import { parseNumber } from "./to-spec";
 
 /** The header of a copy: the source's title and amounts, but a new date and chemist and none of its run's records. */
 export function copiedHeader(source: HeaderState, today: string, chemistId: string): HeaderState {
-  return { ...source, title: `${source.title} (copy)`, performedOn: today, chemistId, notebookRef: "", assayedProductMmol: "" };
+  return { ...source, title: `${source.title} (copy)`, performedOn: today, chemistId, notebookRef: "", notebookUrl: "", assayedProductMmol: "" };
 }
 
 /** Scaled text of a typed number; blank or unreadable input is left as typed. Four significant figures. */

@@ -30,6 +30,7 @@ export function headerInput(h: HeaderState): CreateWorkupInput["header"] {
     performedOn: h.performedOn,
     chemistId: h.chemistId === "" ? null : h.chemistId,
     notebookRef: h.notebookRef,
+    notebookUrl: h.notebookUrl,
     scaleMmol: numberOrNull(h.scaleMmol),
     expectedProductMmol: numberOrNull(h.expectedProductMmol),
     assayedProductMmol: numberOrNull(h.assayedProductMmol),

@@ -153,7 +153,9 @@ function operationDiff(a: JsonValue[], b: JsonValue[]): VersionDiff["operations"
 }
 
 export function diffSnapshots(older: WorkupSnapshot, newer: WorkupSnapshot): VersionDiff {
-  const header = fieldChanges(older.header as unknown as JsonRecord, newer.header as unknown as JsonRecord);
+  // A version saved before the notebook address existed had none: the same as a blank one.
+  const headerOf = (s: WorkupSnapshot) => ({ notebookUrl: "", ...s.header }) as unknown as JsonRecord;
+  const header = fieldChanges(headerOf(older), headerOf(newer));
   const links = (s: WorkupSnapshot) => new Map((s.links ?? []).map((l) => [l.key, l.compoundId]));
   const components = componentDiff(asList(older.spec["components"]), asList(newer.spec["components"]), links(older), links(newer));
   const operations = operationDiff(asList(older.spec["operations"]), asList(newer.spec["operations"]));

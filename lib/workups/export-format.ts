@@ -5,7 +5,7 @@
  * JSON blobs (specs, snapshots, engine results, analyses, library properties) travel unchanged.
  */
 import { z } from "zod";
-import { PURITY_METHODS, OUTCOME_STATUSES } from "./schemas";
+import { notebookUrlSchema, PURITY_METHODS, OUTCOME_STATUSES } from "./schemas";
 import { fileNameSchema } from "@/lib/attachments/schemas";
 
 export const EXPORT_FORMAT = "layerwise.group-export";
@@ -34,6 +34,8 @@ const observation = z.object({
 
 const workup = z.object({
   ref, title: z.string().min(1).max(200), performedOn: timestamp, chemist: personRef, notebookRef: z.string(),
+  // Absent in exports written before the field existed.
+  notebookUrl: notebookUrlSchema,
   scaleMmol: z.number().nullable(), expectedProductMmol: z.number().nullable(), assayedProductMmol: z.number().nullable(),
   spec: jsonObject, version: z.number().int().min(1), searchText: z.string(), solventKeys: z.array(z.string()), flagged: z.boolean(),
   deviationPct: z.number().nullable(), status: z.enum(OUTCOME_STATUSES), createdBy: personRef, updatedBy: personRef,

@@ -54,7 +54,7 @@ export async function exportGroup(db: Db, groupId: string): Promise<GroupExport>
       details: o.details as JsonIn, createdBy: person(o.createdById), createdAt: iso(o.createdAt),
     })),
     workups: workups.map((w) => ({
-      ref: w.id, title: w.title, performedOn: iso(w.performedOn), chemist: person(w.chemistId), notebookRef: w.notebookRef,
+      ref: w.id, title: w.title, performedOn: iso(w.performedOn), chemist: person(w.chemistId), notebookRef: w.notebookRef, notebookUrl: w.notebookUrl,
       scaleMmol: w.scaleMmol, expectedProductMmol: w.expectedProductMmol, assayedProductMmol: w.assayedProductMmol,
       spec: w.spec as Record<string, JsonIn>, version: w.version, searchText: w.searchText, solventKeys: w.solventKeys, flagged: w.flagged,
       deviationPct: w.deviationPct, status: w.status, createdBy: person(w.createdById), updatedBy: person(w.updatedById),

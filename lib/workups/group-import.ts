@@ -143,7 +143,7 @@ export async function importGroup(db: Db, actor: Actor, body: unknown): Promise<
 
 function workupRow(w: ExportedWorkup, id: string, groupId: string, person: (ref: string | null) => string | null) {
   return {
-    id, groupId, title: w.title, performedOn: new Date(w.performedOn), chemistId: person(w.chemist), notebookRef: w.notebookRef,
+    id, groupId, title: w.title, performedOn: new Date(w.performedOn), chemistId: person(w.chemist), notebookRef: w.notebookRef, notebookUrl: w.notebookUrl,
     scaleMmol: w.scaleMmol, expectedProductMmol: w.expectedProductMmol, assayedProductMmol: w.assayedProductMmol, spec: asJson(w.spec),
     version: w.version, searchText: w.searchText, solventKeys: w.solventKeys, flagged: w.flagged, deviationPct: w.deviationPct,
     status: w.status, createdById: person(w.createdBy), updatedById: person(w.updatedBy),

@@ -163,7 +163,8 @@ export async function listWorkups(db: Db, groupId: string, input: unknown): Prom
 export interface WorkupDetail {
   id: string;
   version: number;
-  header: SnapshotHeader;
+  /** The current header always has a notebook address ("" when none). */
+  header: SnapshotHeader & { notebookUrl: string };
   chemistName: string | null;
   /** The spec exactly as saved (units included): what the editor loads. */
   spec: JsonObject;
@@ -200,7 +201,7 @@ export async function getWorkupDetail(db: Db, groupId: string, id: string): Prom
   return {
     id: w.id, version: w.version,
     header: {
-      title: w.title, performedOn: dayOf(w.performedOn), chemistId: w.chemistId, notebookRef: w.notebookRef,
+      title: w.title, performedOn: dayOf(w.performedOn), chemistId: w.chemistId, notebookRef: w.notebookRef, notebookUrl: w.notebookUrl,
       scaleMmol: w.scaleMmol, expectedProductMmol: w.expectedProductMmol, assayedProductMmol: w.assayedProductMmol,
     },
     chemistName: w.chemistId ? (people.get(w.chemistId)?.name ?? null) : null,

@@ -8,6 +8,8 @@ export interface SnapshotHeader {
   performedOn: string;
   chemistId: string | null;
   notebookRef: string;
+  /** Address of the electronic notebook entry, "" when none; absent from versions saved before the field existed. */
+  notebookUrl?: string;
   scaleMmol: number | null;
   expectedProductMmol: number | null;
   assayedProductMmol: number | null;
@@ -33,6 +35,7 @@ export function snapshotHeader(header: WorkupHeader): SnapshotHeader {
     performedOn: dayOf(header.performedOn),
     chemistId: header.chemistId ?? null,
     notebookRef: header.notebookRef,
+    notebookUrl: header.notebookUrl,
     scaleMmol: header.scaleMmol ?? null,
     expectedProductMmol: header.expectedProductMmol ?? null,
     assayedProductMmol: header.assayedProductMmol ?? null,
@@ -52,6 +55,7 @@ export function headerColumns(header: WorkupHeader) {
     performedOn: header.performedOn,
     chemistId: header.chemistId ?? null,
     notebookRef: header.notebookRef,
+    notebookUrl: header.notebookUrl,
     scaleMmol: header.scaleMmol ?? null,
     expectedProductMmol: header.expectedProductMmol ?? null,
     assayedProductMmol: header.assayedProductMmol ?? null,

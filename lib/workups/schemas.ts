@@ -40,6 +40,48 @@ export const isoDateSchema = (label: string) =>
     .transform((day) => new Date(`${day}T00:00:00.000Z`));
 
 
+/** Longest notebook address accepted: electronic notebooks' entry links are a few hundred characters at most. */
+export const NOTEBOOK_URL_MAX = 2000;
+
+/**
+ * The address of the notebook entry: blank, or an absolute http(s) URL (no javascript:, data: or file: links, no user
+ * name or password inside). Stored as typed, trimmed.
+ */
+export const notebookUrlSchema = z
+  .string({ error: "Notebook entry address must be text" })
+  .trim()
+  // One message per address: the first thing wrong with it.
+  .superRefine((text, ctx) => {
+    const problem = notebookUrlProblem(text);
+    if (problem) ctx.addIssue({ code: "custom", message: problem });
+  })
+  .default("");
+
+/** True when `text` is a notebook address the schema accepts and there is one (pages link only such addresses). */
+export function isNotebookUrl(text: string): boolean {
+  return text !== "" && notebookUrlProblem(text) === null;
+}
+
+function notebookUrlProblem(text: string): string | null {
+  if (text === "") return null;
+  if (text.length > NOTEBOOK_URL_MAX) return `Notebook entry address must be ≤ ${NOTEBOOK_URL_MAX} characters`;
+  const url = webAddress(text);
+  if (!url) return "Notebook entry address must be a web address starting with http:// or https://";
+  if (url.username !== "" || url.password !== "") return "Notebook entry address must not contain a user name or password";
+  return null;
+}
+
+/** The URL when `text` is an absolute http(s) address with a host, else null. */
+function webAddress(text: string): URL | null {
+  if (!/^https?:\/\//i.test(text)) return null;
+  try {
+    const url = new URL(text);
+    return (url.protocol === "http:" || url.protocol === "https:") && url.hostname !== "" ? url : null;
+  } catch {
+    return null;
+  }
+}
+
 export const workupHeaderSchema = strictObject({
   title: z.string({ error: "Title is required" }).trim().min(1, { error: "Give the workup a title" }).max(200, { error: "Title must be ≤ 200 characters" }),
   performedOn: isoDateSchema("Date run"),
@@ -47,6 +89,8 @@ export const workupHeaderSchema = strictObject({
   chemistId: recordId("Chemist").nullable().optional(),
   /** Notebook book/page or electronic page id. */
   notebookRef: z.string().trim().max(100, { error: "Notebook reference must be ≤ 100 characters" }).default(""),
+  /** Address of the electronic notebook entry; "" when none. */
+  notebookUrl: notebookUrlSchema,
   /** Reaction scale: mmol of the limiting reagent. */
   scaleMmol: optionalMmol("Reaction scale"),
   /** Theoretical product amount. */

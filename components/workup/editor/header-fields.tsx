@@ -28,6 +28,8 @@ export function HeaderFields({ members }: { members: MemberChoice[] }) {
       <SelectControl {...bind("chemistId")} label="Chemist" className="sm:col-span-2" blank="Not recorded" choices={members.map((m) => ({ value: m.id, label: m.name }))} />
       <TextControl {...bind("notebookRef")} label="Notebook reference" className="sm:col-span-2" placeholder="book-page" mono />
       <TextControl {...bind("scaleMmol")} label="Reaction scale (mmol)" numeric className="sm:col-span-2" hint="Limiting reagent." />
+      <TextControl {...bind("notebookUrl")} label="Notebook entry address (URL)" className="sm:col-span-6" placeholder="https://…" mono
+        hint="Link to the entry in your electronic notebook, if it has one." />
       <TextControl {...bind("expectedProductMmol")} label="Expected product (mmol)" numeric className="sm:col-span-3" hint="Theoretical amount; recovery is judged against it when nothing was assayed." />
       <TextControl {...bind("assayedProductMmol")} label="Product assayed before the workup (mmol)" numeric className="sm:col-span-3"
         hint="From a quantitative sample (qNMR, calibrated HPLC) before the quench; separates reaction yield from workup losses." />

@@ -10,7 +10,7 @@ export function snapshotOfState(state: EditorState): WorkupSnapshot {
   const mmol = (t: string) => parseNumber(t) ?? null;
   return {
     header: {
-      title: h.title.trim(), performedOn: h.performedOn, chemistId: h.chemistId || null, notebookRef: h.notebookRef.trim(),
+      title: h.title.trim(), performedOn: h.performedOn, chemistId: h.chemistId || null, notebookRef: h.notebookRef.trim(), notebookUrl: h.notebookUrl.trim(),
       scaleMmol: mmol(h.scaleMmol), expectedProductMmol: mmol(h.expectedProductMmol), assayedProductMmol: mmol(h.assayedProductMmol),
     },
     spec: JSON.parse(JSON.stringify(specInput(state))) as WorkupSnapshot["spec"],

@@ -11,16 +11,16 @@ function state(): EditorState {
   if (!wash || !ph || !dry) throw new Error("fixture");
   return {
     ...s,
-    header: { ...s.header, title: "Amide coupling workup", notebookRef: "LW-12-034", scaleMmol: "5", expectedProductMmol: "5", assayedProductMmol: "4.6" },
+    header: { ...s.header, title: "Amide coupling workup", notebookRef: "LW-12-034", notebookUrl: "https://eln.example.org/entries/LW-12-034", scaleMmol: "5", expectedProductMmol: "5", assayedProductMmol: "4.6" },
     operations: [wash, ph, dry],
     settings: { ...s.settings, funnel: { value: "125", unit: "mL" } },
   };
 }
 
 describe("copy as new", () => {
-  it("clears the notebook reference and the assay, dates it today and gives it to the person copying", () => {
+  it("clears the notebook reference, its address and the assay, dates it today and gives it to the person copying", () => {
     const h = copiedHeader(state().header, "2026-12-03", "u-new");
-    expect(h).toMatchObject({ title: "Amide coupling workup (copy)", performedOn: "2026-12-03", chemistId: "u-new", notebookRef: "", assayedProductMmol: "", scaleMmol: "5" });
+    expect(h).toMatchObject({ title: "Amide coupling workup (copy)", performedOn: "2026-12-03", chemistId: "u-new", notebookRef: "", notebookUrl: "", assayedProductMmol: "", scaleMmol: "5" });
   });
 });
 

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { type ReactNode } from "react";
 import { can } from "@/lib/authz";
 import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { Card, PageHeader } from "@/components/ui/page-header";
@@ -21,6 +22,7 @@ import { MixtureView } from "@/components/workup/detail/mixture-view";
 import { PartitionProvenance } from "@/lib/partition/components/partition-provenance";
 import { ProcedureText } from "@/components/workup/detail/procedure-text";
 import { Attachments } from "@/components/workup/detail/attachments";
+import { NotebookLink } from "@/components/workup/detail/notebook-link";
 import { listAttachments } from "@/lib/attachments/service";
 import { renderProcedure, stepsOf } from "@/lib/procedure/render";
 
@@ -52,10 +54,11 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
     ...Object.entries(library.solvents).map(([key, s]) => [`solvent:${key}`, s.name] as const),
   ]);
   const links = new Map(workup.components.flatMap((c) => (c.compound ? [[c.key, c.compound] as const] : [])));
-  const header: [string, string][] = [
+  const header: [string, ReactNode][] = [
     ["Date", formatDate(workup.header.performedOn)],
     ["Chemist", workup.chemistName ?? "—"],
     ["Notebook reference", workup.header.notebookRef || "—"],
+    ["Notebook entry", <NotebookLink key="url" url={workup.header.notebookUrl} />],
     ["Reaction scale", amount(workup.header.scaleMmol)],
     ["Expected product", amount(workup.header.expectedProductMmol)],
     ["Product assayed before the workup", amount(workup.header.assayedProductMmol)],

@@ -5,6 +5,7 @@ import { pageFailure, requirePageMember } from "@/lib/authz/page";
 import { formatDate } from "@/components/ui/format";
 import { getDb } from "@/lib/db/client";
 import { resolveLibrary } from "@/lib/chem/library";
+import { isNotebookUrl } from "@/lib/workups/schemas";
 import { getWorkupDetail } from "@/lib/workups/queries";
 import { groupLibrary } from "@/lib/workups/library";
 import { describeOperation } from "@/lib/workups-client/describe";
@@ -47,6 +48,7 @@ export default async function ProcedurePage({ params, searchParams }: { params: 
           {workup.header.notebookRef ? ` · notebook ${workup.header.notebookRef}` : ""} · version {workup.version}
         </p>
         <p className="text-xs">Record: {address}</p>
+        {isNotebookUrl(workup.header.notebookUrl) ? <p className="break-all text-xs">Notebook entry: {workup.header.notebookUrl}</p> : null}
       </header>
       <section>
         <h2 className="text-sm font-semibold uppercase tracking-wide">Steps</h2>

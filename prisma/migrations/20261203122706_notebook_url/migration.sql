@@ -1,0 +1,2 @@
+-- AlterTable
+ALTER TABLE "Workup" ADD COLUMN     "notebookUrl" TEXT NOT NULL DEFAULT '';
