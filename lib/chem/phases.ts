@@ -53,7 +53,7 @@ export class PhaseSplit {
   readonly aq: Float64Array;
   organicVolume = 0;
   aqueousVolume = 0;
-  /** Salt concentration used for salting out, mol/L (ionic strength estimate). */
+  /** Salt concentration used for salting out, mol/L: the ionic strength of the aqueous layer (estimate). */
   saltM = 0;
   osmolar = 0;
   waterActivity = 1;
@@ -77,7 +77,10 @@ export class PhaseSplit {
     const rhoW = lib.density[WATER] as number;
     let imm = 0;
     for (let i = 1; i < n; i++) if (!lib.miscible[i]) imm += s.solv[i] as number;
-    this.saltM = vw > 0 ? (0.5 * (s.strongZ2 + systemZ2)) / vw : 0;
+    // Ionic strength: the strong ions, the weak acid–base systems' ions, and the H⁺ or OH⁻ that balances whatever
+    // net strong charge the systems do not (1 M HCl is H⁺ + Cl⁻, I = 1 M).
+    const counterIons = Math.max(0, Math.abs(s.strongCharge) - systemZ2);
+    this.saltM = vw > 0 ? (0.5 * (s.strongZ2 + systemZ2 + counterIons)) / vw : 0;
     this.osmolar = vw > 0 ? s.osmoles / vw : 0;
     this.waterActivity = waterActivity(this.osmolar);
     this.cosolventFraction = 0;
