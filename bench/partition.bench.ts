@@ -25,7 +25,7 @@ export function readMeasured(path = new URL("./data/partition-measured.csv", imp
   const split = (line: string) => [...line.matchAll(/("([^"]*)"|[^,]*)(,|$)/g)].map((m) => m[2] ?? m[1] ?? "").slice(0, 7);
   return lines.slice(1).map((line) => {
     const [solvent = "", compound = "", smiles = "", logK = "", logPoct = "", donor = "", source = ""] = split(line);
-    return { solvent, compound, smiles, logK: Number(logK), logPoct: Number(logPoct), donor: donor === "1", source };
+    return { solvent, compound, smiles, logK: Number(logK), logPoct: logPoct.trim() === "" ? Number.NaN : Number(logPoct), donor: donor === "1", source };
   });
 }
 
@@ -37,24 +37,44 @@ export function stats(errors: number[]): Stats {
   return { n, rmse: round(Math.sqrt(errors.reduce((s, e) => s + e * e, 0) / n)), bias: round(errors.reduce((s, e) => s + e, 0) / n) };
 }
 
-export function validate(rows: Row[]) {
+export interface SolventValidation {
+  /** Rows with descriptors and an octanol log P: the old line and the model scored on the same compounds. */
+  old: Stats | null;
+  abraham: Stats;
+  anchored: Stats;
+  /** The model on every row with descriptors (with or without an octanol log P). */
+  abrahamAll: Stats;
+  /** Each route on the rows where it applies: the water→solvent equation and the gas→solvent difference. */
+  waterRoute: Stats | null;
+  gasRoute: Stats | null;
+  missing: string[];
+}
+
+export function validate(rows: Row[]): Record<string, SolventValidation> {
   const bySolvent = new Map<string, Row[]>();
   for (const r of rows) bySolvent.set(r.solvent, [...(bySolvent.get(r.solvent) ?? []), r]);
-  const out: Record<string, { old: Stats | null; abraham: Stats; anchored: Stats; missing: string[] }> = {};
+  const out: Record<string, SolventValidation> = {};
   for (const [solvent, list] of bySolvent) {
     const props = SOLVENTS[solvent];
     const coefficients = ABRAHAM_SOLVENTS[solvent];
-    const old: number[] = [], ab: number[] = [], anchored: number[] = [], missing: string[] = [];
+    const old: number[] = [], ab: number[] = [], anchored: number[] = [], all: number[] = [], water: number[] = [], gas: number[] = [], missing: string[] = [];
     for (const r of list) {
-      // For octanol the old line is the identity on the same number: no information, so it is not scored.
-      if (props?.partition && solvent !== "octanol") old.push(collanderLogK(r.logPoct, props, r.donor) - r.logK);
       const d = componentDescriptors({ smiles: r.smiles });
       const est = d && coefficients ? abrahamEstimate(d, coefficients) : null;
-      if (!est) { missing.push(r.compound); continue; }
+      if (!d || !est || !coefficients) { missing.push(r.compound); continue; }
+      all.push(est.value - r.logK);
+      if (coefficients.water) water.push(abrahamEstimate(d, { ...coefficients, gas: undefined, preferWater: true })!.value - r.logK);
+      if (coefficients.gas && d.L !== undefined) gas.push(abrahamEstimate(d, { ...coefficients, water: undefined })!.value - r.logK);
+      if (!Number.isFinite(r.logPoct)) continue;
+      // For octanol the old line is the identity on the same number: no information, so it is not scored.
+      if (props?.partition && solvent !== "octanol") old.push(collanderLogK(r.logPoct, props, r.donor) - r.logK);
       ab.push(est.value - r.logK);
       anchored.push(abrahamLogK(est, r.logPoct, true) - r.logK);
     }
-    out[solvent] = { old: old.length ? stats(old) : null, abraham: stats(ab), anchored: stats(anchored), missing };
+    out[solvent] = {
+      old: old.length ? stats(old) : null, abraham: stats(ab), anchored: stats(anchored), abrahamAll: stats(all),
+      waterRoute: water.length ? stats(water) : null, gasRoute: gas.length ? stats(gas) : null, missing,
+    };
   }
   return out;
 }
@@ -100,14 +120,19 @@ function medianMicroseconds(fn: () => void, runs = 7, iterations = 2000): number
 
 function main(): void {
   const results = validate(readMeasured());
-  // Solvents the issue asks to validate that have no measured rows yet: shown as n = 0, not left out.
+  // The workup solvents that must be validated: shown with n = 0 when they have no measured rows, not left out.
   const none: Stats = { n: 0, rmse: Number.NaN, bias: Number.NaN };
-  for (const key of ["etoac", "dcm", "chcl3", "et2o", "toluene", "hexane"]) results[key] ??= { old: null, abraham: none, anchored: none, missing: [] };
-  console.log("solvent     n   old RMSE/bias     Abraham RMSE/bias   anchored RMSE/bias");
+  for (const key of ["etoac", "dcm", "chcl3", "et2o", "toluene", "hexane"]) {
+    results[key] ??= { old: null, abraham: none, anchored: none, abrahamAll: none, waterRoute: null, gasRoute: null, missing: [] };
+  }
+  const f = (s: Stats | null) => (s && s.n > 0 ? `${s.rmse.toFixed(2)} / ${s.bias >= 0 ? "+" : ""}${s.bias.toFixed(2)}` : "n/a");
+  console.log("RMSE / bias (predicted − measured), log units. Same rows: descriptors and an octanol log P (old line's input).");
+  console.log("solvent       n  old line        Abraham         anchored     |  all rows: n  Abraham       water eq. (n)        gas eq. (n)");
   for (const [solvent, r] of Object.entries(results)) {
-    const f = (s: Stats | null) => (s && s.n > 0 ? `${s.rmse.toFixed(2)} / ${s.bias >= 0 ? "+" : ""}${s.bias.toFixed(2)}` : "  n/a        ");
-    console.log(`${solvent.padEnd(10)} ${String(r.abraham.n).padStart(3)}   ${f(r.old).padEnd(16)}  ${f(r.abraham).padEnd(18)}  ${f(r.anchored)}`);
-    if (r.missing.length) console.log(`  no descriptors: ${r.missing.join(", ")}`);
+    const route = (s: Stats | null) => (s ? `${f(s)} (${s.n})` : "n/a");
+    console.log(`${solvent.padEnd(10)} ${String(r.abraham.n).padStart(4)}  ${f(r.old).padEnd(14)}  ${f(r.abraham).padEnd(14)}  ${f(r.anchored).padEnd(12)} | ` +
+      `${String(r.abrahamAll.n).padStart(4)}  ${f(r.abrahamAll).padEnd(12)}  ${route(r.waterRoute).padEnd(19)}  ${route(r.gasRoute)}`);
+    if (r.missing.length) console.log(`  no descriptors (${r.missing.length}): ${r.missing.slice(0, 12).join(", ")}${r.missing.length > 12 ? ", …" : ""}`);
   }
   // Engine speed on the fast path (recoveries only), as bench:chem measures it: the same parsed input again, and
   // new component objects every call (as stored work-ups arrive), with and without SMILES (Abraham vs Collander).

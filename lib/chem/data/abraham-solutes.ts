@@ -7,6 +7,7 @@
  *    which also corrects a few compilation entries (styrene, fluorobenzene, 2-chlorobiphenyl, hexachlorobenzene).
  *  - L (log gas–hexadecane partition): Abraham et al. 1994 where listed, else from memory as marked; needed only
  *    for the gas→solvent equations of Chung et al. 2022.
+ *  - Further rows at the end: Abraham et al. 1994 or Abraham's database as published with RMG-database (see there).
  * Left out on purpose: caffeine and acetanilide, whose compiled entries disagree by more than 2 units in S.
  * A test (tests/unit/structure/abraham.test.ts) checks every key is canonical and every V exact.
  */
@@ -94,6 +95,44 @@ export const MEASURED_DESCRIPTORS: ReadonlyMap<string, MeasuredDescriptors> = ne
   ["COC(C)(C)C", { name: "tert-butyl methyl ether", E: 0.024, S: 0.22, A: 0, B: 0.55, V: 0.8718, provenance: "literature", source: "Bradley-2014" }],
   ["CC1CCCO1", { name: "2-methyltetrahydrofuran", E: 0.241, S: 0.48, A: 0, B: 0.53, V: 0.7632, L: 2.82, lSource: "Abraham-1994", provenance: "literature", source: "Bradley-2014" }],
   ["CN1CCCC1=O", { name: "N-methyl-2-pyrrolidone", E: 0.491, S: 1.5, A: 0, B: 0.95, V: 0.82, provenance: "estimated", source: "memory" }],
+  // Descriptors (with L) of further solutes in the partition validation set (bench/data/partition-measured.csv):
+  // Abraham, Chadha, Whiting & Mitchell, J. Chem. Soc. Perkin Trans. 2 1994, 1777 ("Abraham-1994"), or Abraham's
+  // own database ("Abraham-inhouse"), both as published in RMG-database input/solvation/libraries/solute.py; V exact.
+  ["CCCCCCCC", { name: "n-octane", E: 0, S: 0, A: 0, B: 0, V: 1.2358, L: 3.677, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCC(=O)O", { name: "propanoic acid", E: 0.233, S: 0.65, A: 0.6, B: 0.45, V: 0.6057, L: 2.29, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCCO", { name: "hexan-1-ol", E: 0.21, S: 0.42, A: 0.37, B: 0.48, V: 1.0127, L: 3.61, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCO", { name: "pentan-1-ol", E: 0.219, S: 0.42, A: 0.37, B: 0.48, V: 0.8718, L: 3.106, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCO", { name: "butan-1-ol", E: 0.224, S: 0.42, A: 0.37, B: 0.48, V: 0.7309, L: 2.601, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCO", { name: "propan-1-ol", E: 0.236, S: 0.42, A: 0.37, B: 0.48, V: 0.59, L: 2.031, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCC(=O)O", { name: "butanoic acid", E: 0.21, S: 0.62, A: 0.6, B: 0.45, V: 0.7466, L: 2.83, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["ClCCl", { name: "dichloromethane", E: 0.387, S: 0.58, A: 0.12, B: 0.05, V: 0.4943, L: 1.818, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CCC(C)=O", { name: "butanone", E: 0.166, S: 0.7, A: 0, B: 0.51, V: 0.6879, L: 2.287, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["COC(C)=O", { name: "methyl acetate", E: 0.142, S: 0.64, A: 0, B: 0.45, V: 0.6057, L: 1.911, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCOC(C)=O", { name: "n-butyl acetate", E: 0.071, S: 0.6, A: 0, B: 0.45, V: 1.0284, L: 3.353, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCOC(C)=O", { name: "n-propyl acetate", E: 0.092, S: 0.6, A: 0, B: 0.4, V: 0.8875, L: 2.819, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCC(=O)OC", { name: "methyl pentanoate", E: 0.108, S: 0.6, A: 0, B: 0.45, V: 1.0284, L: 3.392, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCN", { name: "ethylamine", E: 0.236, S: 0.35, A: 0.16, B: 0.61, V: 0.4902, L: 1.677, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CCC(=O)OC", { name: "methyl propanoate", E: 0.128, S: 0.6, A: 0, B: 0.45, V: 0.7466, L: 2.431, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCOC(C)=O", { name: "n-pentyl acetate", E: 0.067, S: 0.6, A: 0, B: 0.45, V: 1.1693, L: 3.844, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCC(=O)OC", { name: "methyl hexanoate", E: 0.08, S: 0.6, A: 0, B: 0.45, V: 1.1693, L: 3.874, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCC(=O)O", { name: "pentanoic acid", E: 0.205, S: 0.6, A: 0.6, B: 0.45, V: 0.8875, L: 3.38, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCC(=O)O", { name: "hexanoic acid", E: 0.174, S: 0.6, A: 0.6, B: 0.45, V: 1.0284, L: 3.92, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CN", { name: "methylamine", E: 0.25, S: 0.35, A: 0.16, B: 0.58, V: 0.3493, L: 1.3, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CNC", { name: "dimethylamine", E: 0.189, S: 0.3, A: 0.08, B: 0.66, V: 0.4902, L: 1.6, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CC(C)(C)O", { name: "2-methylpropan-2-ol", E: 0.18, S: 0.3, A: 0.31, B: 0.6, V: 0.7309, L: 1.963, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["C1CCCCC1", { name: "cyclohexane", E: 0.305, S: 0.1, A: 0, B: 0, V: 0.8454, L: 2.964, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["C1CCOCC1", { name: "tetrahydropyran", E: 0.275, S: 0.47, A: 0, B: 0.55, V: 0.7632, L: 3.057, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["OCC(F)(F)F", { name: "2,2,2-trifluoroethanol", E: 0.015, S: 0.6, A: 0.57, B: 0.25, V: 0.5022, L: 1.224, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["FC(Cl)(Cl)Cl", { name: "fluorotrichloromethane", E: 0.318, S: 0.23, A: 0, B: 0.05, V: 0.6344, L: 1.9168, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CC=O", { name: "acetaldehyde", E: 0.208, S: 0.67, A: 0, B: 0.45, V: 0.4061, L: 1.23, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CC(C)OC(C)C", { name: "diisopropyl ether", E: 0, S: 0.19, A: 0, B: 0.45, V: 1.0127, L: 2.482, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["FC(F)(Cl)Cl", { name: "difluorodichloromethane", E: 0.071, S: 0.09, A: 0, B: 0.02, V: 0.5297, L: 1.112, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CCC=O", { name: "propionaldehyde", E: 0.196, S: 0.65, A: 0, B: 0.45, V: 0.547, L: 1.815, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CI", { name: "iodomethane", E: 0.676, S: 0.43, A: 0, B: 0.12, V: 0.5077, L: 2.106, lSource: "Abraham-inhouse", provenance: "literature", source: "Abraham-inhouse" }],
+  ["CCCCC(C)=O", { name: "hexan-2-one", E: 0.136, S: 0.68, A: 0, B: 0.51, V: 0.9697, L: 3.262, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCC(C)=O", { name: "pentan-2-one", E: 0.143, S: 0.68, A: 0, B: 0.51, V: 0.8288, L: 2.755, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCC(C)=O", { name: "heptan-2-one", E: 0.123, S: 0.68, A: 0, B: 0.51, V: 1.1106, L: 3.76, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
+  ["CCCCCC", { name: "n-hexane", E: 0, S: 0, A: 0, B: 0, V: 0.954, L: 2.668, lSource: "Abraham-1994", provenance: "literature", source: "Abraham-1994" }],
 ]);
 
 /** Canonical SMILES of the library's solvents, so a water-miscible solvent can be treated as a solute. */
