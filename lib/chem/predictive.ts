@@ -266,6 +266,17 @@ export function predictiveOf(model: GroupModel, c: PredictiveCase): Predictive {
   };
 }
 
+/**
+ * How much of the engine's parameter error for this case's family is still open: the family term's posterior sd over
+ * the engine's own spread (1 when the group has no outcome of the family yet, towards 0 as its outcomes pin it down).
+ */
+export function parameterErrorOpen(model: GroupModel, c: PredictiveCase): number {
+  const i = c.family ? model.names.indexOf(`family.${c.family}`) : -1;
+  const prior = Math.sqrt(engineLog(c.engine).variance);
+  if (i < 0 || !(prior > 0)) return 1;
+  return Math.min(1, Math.sqrt(Math.max(0, model.cov[i]?.[i] ?? 0)) / prior);
+}
+
 export type OutcomeStatusCode = "as_expected" | "below" | "above" | "inconclusive";
 
 export interface Judgement {

@@ -5,7 +5,7 @@
 import { type LibraryOverrides } from "@/lib/chem/library";
 import { handlingEvents } from "@/lib/chem/handling";
 import {
-  FLAG_PROBABILITY, INTERVAL_LEVEL, fitGroupModel, judgeOutcome, predictiveOf, recoveryInterval,
+  FLAG_PROBABILITY, INTERVAL_LEVEL, fitGroupModel, judgeOutcome, parameterErrorOpen, predictiveOf, recoveryInterval,
   type AssayMethod, type GroupModel, type PredictiveCase,
 } from "@/lib/chem/predictive";
 import { type WorkupInput } from "@/lib/chem/schema";
@@ -127,6 +127,7 @@ export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
         input: spec, productKey: product.key, engineRecovery: predictiveCase.engine.recovery,
         logMean: predictive.logMean, logSd: predictive.logSd, observedLog, crudeLog: predictive.crudeLog, crudeAssayed: assayed,
         ...(inputs.causeFrequencies ? { frequencies: inputs.causeFrequencies } : {}),
+        parameterOpen: parameterErrorOpen(model, predictiveCase),
       }, inputs.simulate ?? engineRecoveryOf(library, product.key));
     }
   } else if (reported && reported.productMmol === 0 && predicted) {

@@ -4,13 +4,21 @@
  * closed form (a loss taken off the product, a reaction that gave less). Pure.
  */
 import { type Operation, type WorkupInput } from "@/lib/chem/schema";
+import { solventTranslationSd } from "@/lib/chem/uncertainty";
 import { type CauseCode } from "./causes";
 
 export interface CauseSize {
   /** Prior weight of this size (normalised per cause). */
   weight: number;
+  /**
+   * Likelihood ratio of what else the record holds (a pH reading) under this size against the workup as recorded;
+   * 1 when the record says nothing. Not normalised: it is evidence, not prior.
+   */
+  evidence?: number;
   words: string;
   input?: WorkupInput;
+  /** The workup as recorded, re-run with the same parameter shift as `input` (default: the recorded workup). */
+  baseline?: WorkupInput;
   /** Closed-form change of log recovery; otherwise the input is re-run. */
   effect?: number;
 }
@@ -58,10 +66,51 @@ function withOperations(input: WorkupInput, operations: Operation[]): WorkupInpu
   return { ...input, operations };
 }
 
+/** The product's log P and log K values shifted by d (a more or less polar product than assumed). */
+function shiftProduct(input: WorkupInput, productIndex: number, d: number): WorkupInput {
+  return {
+    ...input,
+    components: input.components.map((c, k) => (k !== productIndex ? c : {
+      ...c,
+      logK: Object.fromEntries(Object.entries(c.logK).map(([s, v]) => [s, { ...v, value: v.value + d }])),
+      ...(c.logP ? { logP: { ...c.logP, value: c.logP.value + d } } : {}),
+    })),
+  };
+}
+
+/**
+ * A procedural slip's effect depends on how well the product partitions, which the engine knows only to its stated
+ * spread: the slip is re-run at the product's log P and at ±√3 σ around it (three-point Gauss–Hermite rule, weights
+ * 1/6, 2/3, 1/6), each against the recorded workup at the same log P. σ: the stated se of log P combined with the
+ * Collander translation error to the extraction solvent, as in the engine's Monte Carlo.
+ */
+function acrossPartition(input: WorkupInput, productIndex: number, size: CauseSize & { input: WorkupInput }): CauseSize[] {
+  const product = input.components[productIndex];
+  const sigma = Math.hypot(product?.logP?.se ?? 0.3, solventTranslationSd(input));
+  return [-1, 0, 1].map((k) => {
+    const d = k * Math.sqrt(3) * sigma;
+    if (d === 0) return size;
+    return { ...size, weight: size.weight / 4, input: shiftProduct(size.input, productIndex, d), baseline: shiftProduct(input, productIndex, d) };
+  });
+}
+
+/** Reading error of pH paper or a quick meter check of a funnel layer (common practice: about half a unit). */
+export const PH_READING_SD = 0.5;
+
+/**
+ * Likelihood ratio of the pH readings recorded at the adjusted steps if the pH was really off by d, against the pH
+ * being as targeted (which every other cause assumes): a reading near the target speaks against a wrong pH, one far
+ * from it for a wrong pH of about that size.
+ */
+function readingRatio(readings: readonly { target: number; read: number }[], d: number): number {
+  return readings.reduce((r, { target, read }) => r * Math.exp((((read - target) ** 2) - (read - target - d) ** 2) / (2 * PH_READING_SD ** 2)), 1);
+}
+
 function wrongPh(input: WorkupInput, productIndex: number): CauseCandidate | null {
   const deltas = [...range(-4, -0.5, 0.5), ...range(0.5, 4, 0.5)];
-  const weight = (d: number) => Math.exp(-Math.abs(d) / 1.5);
+  const prior = (d: number) => Math.exp(-Math.abs(d) / 1.5);
   const adjusted = input.operations.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "adjust_ph" && op.targetPh !== undefined);
+  const readings = adjusted.flatMap(({ op }) => (op.type === "adjust_ph" && op.targetPh !== undefined && op.observed?.pH !== undefined ? [{ target: op.targetPh, read: op.observed.pH }] : []));
   if (adjusted.length > 0) {
     const steps = adjusted.map((a) => a.i + 1).join(", ");
     const at = (d: number) => ({
@@ -71,7 +120,7 @@ function wrongPh(input: WorkupInput, productIndex: number): CauseCandidate | nul
     });
     return {
       code: "wrong_ph", title: "Aqueous pH off target", step: (adjusted[0]?.i ?? 0) + 1, share: 1, simulated: true,
-      sizes: deltas.map((d) => ({ weight: weight(d), ...at(d) })), refine: (t, i) => at(lerp(deltas, i, t)),
+      sizes: deltas.map((d) => ({ weight: prior(d), evidence: readingRatio(readings, d), ...at(d) })), refine: (t, i) => at(lerp(deltas, i, t)),
     };
   }
   const product = input.components[productIndex];
@@ -84,7 +133,7 @@ function wrongPh(input: WorkupInput, productIndex: number): CauseCandidate | nul
   });
   return {
     code: "wrong_ph", title: "Product ionized at the wash pH (wrong reagent or pH)", share: 1, simulated: true,
-    sizes: deltas.map((d) => ({ weight: weight(d), ...at(d) })), refine: (t, i) => at(lerp(deltas, i, t)),
+    sizes: deltas.map((d) => ({ weight: prior(d), ...at(d) })), refine: (t, i) => at(lerp(deltas, i, t)),
   };
 }
 
@@ -109,7 +158,7 @@ function polarProduct(input: WorkupInput, productIndex: number): CauseCandidate 
   };
 }
 
-function cosolventLeft(input: WorkupInput): CauseCandidate | null {
+function cosolventLeft(input: WorkupInput, productIndex: number): CauseCandidate | null {
   const removals = input.operations.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "remove_cosolvent");
   if (removals.length === 0) return null;
   const steps = removals.map((r) => r.i + 1).join(", ");
@@ -124,11 +173,11 @@ function cosolventLeft(input: WorkupInput): CauseCandidate | null {
   });
   return {
     code: "cosolvent_not_removed", title: "Water-miscible co-solvent not removed before the extraction", step: (removals[0]?.i ?? 0) + 1,
-    share: 1, simulated: true, sizes: lefts.map((l) => ({ weight: 1, ...at(l) })), refine: (t, i) => at(lerp(lefts, i, t)),
+    share: 1, simulated: true, sizes: lefts.flatMap((l) => acrossPartition(input, productIndex, { weight: 1, ...at(l) })),
   };
 }
 
-function oneFewerExtraction(input: WorkupInput): CauseCandidate | null {
+function oneFewerExtraction(input: WorkupInput, productIndex: number): CauseCandidate | null {
   const ops = input.operations;
   const extractions = ops.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "extract");
   const multi = extractions.filter(({ op }) => op.type === "extract" && op.portions > 1).at(-1);
@@ -137,18 +186,18 @@ function oneFewerExtraction(input: WorkupInput): CauseCandidate | null {
     const fewer = { ...multi.op, portions: multi.op.portions - 1 };
     return {
       code: "one_fewer_extraction", title, step: multi.i + 1, share: 1, simulated: true,
-      sizes: [{ weight: 1, words: `step ${multi.i + 1}: ${multi.op.portions} → ${multi.op.portions - 1} portions`, input: withOperations(input, ops.map((op, i) => (i === multi.i ? fewer : op))) }],
+      sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${multi.i + 1}: ${multi.op.portions} → ${multi.op.portions - 1} portions`, input: withOperations(input, ops.map((op, i) => (i === multi.i ? fewer : op))) }),
     };
   }
   const last = extractions.at(-1);
   if (extractions.length < 2 || !last) return null;
   return {
     code: "one_fewer_extraction", title, step: last.i + 1, share: 1, simulated: true,
-    sizes: [{ weight: 1, words: `step ${last.i + 1} (extraction) left out`, input: withOperations(input, ops.filter((_, i) => i !== last.i)) }],
+    sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${last.i + 1} (extraction) left out`, input: withOperations(input, ops.filter((_, i) => i !== last.i)) }),
   };
 }
 
-function wrongLayers(input: WorkupInput): CauseCandidate[] {
+function wrongLayers(input: WorkupInput, productIndex: number): CauseCandidate[] {
   const ops = input.operations;
   const sites = ops.map((op, i) => ({ op, i })).filter(({ op }) => SEPARATIONS.has(op.type) && "keep" in op && (op.keep === "organic" || op.keep === "aqueous"));
   return sites.map(({ op, i }) => {
@@ -156,7 +205,7 @@ function wrongLayers(input: WorkupInput): CauseCandidate[] {
     const flipped = { ...op, keep: keep === "organic" ? "aqueous" : "organic" } as Operation;
     return {
       code: "wrong_layer" as const, title: "Wrong layer kept", step: i + 1, share: 1 / sites.length, simulated: true,
-      sizes: [{ weight: 1, words: `step ${i + 1} kept the ${keep === "organic" ? "aqueous" : "organic"} layer instead of the ${keep}`, input: withOperations(input, ops.map((o, k) => (k === i ? flipped : o))) }],
+      sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${i + 1} kept the ${keep === "organic" ? "aqueous" : "organic"} layer instead of the ${keep}`, input: withOperations(input, ops.map((o, k) => (k === i ? flipped : o))) }),
     };
   });
 }
@@ -169,8 +218,8 @@ export function causeSpace(input: WorkupInput, productKey: string, crudeAssayed:
     emulsionLoss(input),
     wrongPh(input, productIndex),
     polarProduct(input, productIndex),
-    cosolventLeft(input),
-    oneFewerExtraction(input),
-    ...wrongLayers(input),
+    cosolventLeft(input, productIndex),
+    oneFewerExtraction(input, productIndex),
+    ...wrongLayers(input, productIndex),
   ].filter((c): c is CauseCandidate => c !== null);
 }

@@ -45,6 +45,13 @@ export const CAUSE_PRIOR: Record<CauseCode, number> = {
 export const CAUSE_PRIOR_WEIGHT = 20;
 /** An emulsion or rag is noted at the separation in most workups that lost product to one (common practice). */
 const EMULSION_NOTED = { ifEmulsion: 0.8, otherwise: 0.1 };
+/**
+ * Absolute error of an isolated amount, as a fraction of the reference amount (common practice: the residue of a
+ * near-empty flask still weighs a few mg of grease, solvent and impurities, about 1 % of a typical batch). Near zero
+ * recovery it dominates the multiplicative scatter, so that "almost nothing" is compared as almost nothing: 0.2 %
+ * and 0.01 % are the same outcome to a balance, not a factor of twenty apart.
+ */
+export const ABSOLUTE_FLOOR = 0.01;
 /** Causes below this posterior plausibility, or closing less than this share of the gap, are not listed. */
 const MIN_PLAUSIBILITY = 0.02;
 const MIN_SHARE = 0.05;
@@ -63,6 +70,12 @@ export interface CauseQuestion {
   crudeAssayed: boolean;
   /** Cause frequencies of the group (defaults to CAUSE_PRIOR). */
   frequencies?: Partial<Record<CauseCode, number>>;
+  /**
+   * How much of the engine's parameter error for this product and procedure is still open: the posterior sd of the
+   * family term over its prior sd (1 without history of the family). A parameter error the group's own outcomes of
+   * the same family have pinned down is already in the prediction, so it can no longer explain this one's shortfall.
+   */
+  parameterOpen?: number;
 }
 
 export type Simulator = (input: WorkupInput) => number | null;
@@ -93,27 +106,43 @@ function logSum(values: readonly number[]): number {
   return max === -Infinity ? -Infinity : max + Math.log(values.reduce((s, v) => s + Math.exp(v - max), 0));
 }
 
+/**
+ * The likelihood's scale: log(amount + floor) relative to the median, with the multiplicative scatter and the absolute
+ * floor combined. For ordinary recoveries this is the log scale of the predictive distribution.
+ */
+function likelihoodScale(q: CauseQuestion) {
+  const median = Math.exp(q.logMean);
+  const at = (effect: number) => {
+    const r = median * Math.exp(effect);
+    return { x: Math.log(r + ABSOLUTE_FLOOR) - Math.log(median + ABSOLUTE_FLOOR), sd: Math.hypot((q.logSd * r) / (r + ABSOLUTE_FLOOR), ABSOLUTE_FLOOR / (r + ABSOLUTE_FLOOR)) };
+  };
+  return { at, target: Math.log(Math.exp(q.observedLog) + ABSOLUTE_FLOOR) - Math.log(median + ABSOLUTE_FLOOR) };
+}
+
 function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator): Scored | null {
   const target = q.observedLog - q.logMean;
   const logR0 = Math.log(Math.max(q.engineRecovery, 1e-12));
-  const points: { effect: number; logWeight: number; words: string }[] = [];
+  const scale = likelihoodScale(q);
+  const points: { effect: number; x: number; sd: number; logWeight: number; words: string }[] = [];
+  let totalWeight = -Infinity;
   for (const size of candidate.sizes) {
-    const effect = size.effect ?? effectOf(size.input, simulate, logR0);
+    const effect = size.effect ?? effectOf(size.input, simulate, size.baseline ? baselineOf(size.baseline, simulate) : logR0);
     if (effect === null) continue;
-    points.push({ effect, logWeight: Math.log(size.weight), words: size.words });
+    totalWeight = logSum([totalWeight, Math.log(size.weight)]);
+    points.push({ effect, ...scale.at(effect), logWeight: Math.log(size.weight) + Math.log(size.evidence ?? 1), words: size.words });
   }
   if (points.length === 0) return null;
-  const totalWeight = logSum(points.map((p) => p.logWeight));
-  const terms = points.map((p) => p.logWeight - totalWeight + logNormalDensity(target, p.effect, q.logSd));
+  const terms = points.map((p) => p.logWeight - totalWeight + logNormalDensity(scale.target, p.x, p.sd));
   // Evidence: the size prior spread evenly between neighbouring sizes, the effect linear in between, so that a
   // steep effect curve is not missed between two grid points (the normal density integrated over each segment).
   const segments = points.slice(1).map((b, i) => {
     const a = points[i]!;
     const mass = (Math.exp(a.logWeight - totalWeight) + Math.exp(b.logWeight - totalWeight)) / 2;
-    const width = Math.abs(b.effect - a.effect);
-    const density = width < 1e-3 * q.logSd
-      ? Math.exp(logNormalDensity(target, a.effect, q.logSd))
-      : (Math.abs(normalCdf((b.effect - target) / q.logSd) - normalCdf((a.effect - target) / q.logSd)) / width) * Math.sqrt(2 * Math.PI);
+    const width = Math.abs(b.x - a.x);
+    const sd = (a.sd + b.sd) / 2;
+    const density = width < 1e-3 * sd
+      ? Math.exp(logNormalDensity(scale.target, a.x, sd))
+      : (Math.abs(normalCdf((b.x - scale.target) / sd) - normalCdf((a.x - scale.target) / sd)) / width) * Math.sqrt(2 * Math.PI);
     return Math.log(mass * density + 1e-300);
   });
   let bestIndex = 0;
@@ -129,14 +158,19 @@ function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator)
       const t = a.effect === b.effect ? 0.5 : (target - a.effect) / (b.effect - a.effect);
       const refined = refine(t, bracket - 1);
       const effect = refined.effect ?? effectOf(refined.input, simulate, logR0);
-      if (effect !== null && Math.abs(effect - target) < Math.abs(best.effect - target)) best = { effect, logWeight: 0, words: refined.words };
+      if (effect !== null && Math.abs(effect - target) < Math.abs(best.effect - target)) best = { ...best, effect, logWeight: 0, words: refined.words };
     }
   }
   return { candidate, logEvidence: segments.length > 0 ? logSum(segments) : logSum(terms), best: { effect: best.effect, words: best.words } };
 }
 
-function effectOf(input: WorkupInput | undefined, simulate: Simulator, logR0: number): number | null {
-  if (!input) return null;
+function baselineOf(input: WorkupInput, simulate: Simulator): number | null {
+  const r = simulate(input);
+  return r === null ? null : Math.log(Math.max(r, 1e-6));
+}
+
+function effectOf(input: WorkupInput | undefined, simulate: Simulator, logR0: number | null): number | null {
+  if (!input || logR0 === null) return null;
   const r = simulate(input);
   return r === null ? null : Math.log(Math.max(r, 1e-6)) - logR0;
 }
@@ -156,7 +190,8 @@ export function rankCauses(q: CauseQuestion, simulate: Simulator): LikelyCause[]
     const seen = s.candidate.code === "emulsion_loss"
       ? (noted ? EMULSION_NOTED.ifEmulsion : 1 - EMULSION_NOTED.ifEmulsion)
       : (noted ? EMULSION_NOTED.otherwise : 1 - EMULSION_NOTED.otherwise);
-    return Math.log(frequencies[s.candidate.code] * s.candidate.share) + Math.log(seen) + s.logEvidence;
+    const open = s.candidate.code === "product_logp_lower" ? Math.min(1, Math.max(1e-3, q.parameterOpen ?? 1)) : 1;
+    return Math.log(frequencies[s.candidate.code] * s.candidate.share * open) + Math.log(seen) + s.logEvidence;
   });
   const total = logSum(logPosts);
   const median = Math.exp(q.logMean - q.crudeLog);
