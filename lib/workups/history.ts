@@ -18,9 +18,12 @@ async function requireWorkup(db: Db, groupId: string, workupId: string): Promise
   if (!found) throw new NotFoundError("workup");
 }
 
-/** Newest first. */
-export async function listVersions(db: Db, groupId: string, workupId: string): Promise<VersionEntry[]> {
-  await requireWorkup(db, groupId, workupId);
+/**
+ * Newest first. `found`: the caller looks this workup up in this group itself and answers its absence (the detail
+ * page, in parallel), so it is not looked up twice; the queries stay scoped by group either way.
+ */
+export async function listVersions(db: Db, groupId: string, workupId: string, options: { found?: boolean } = {}): Promise<VersionEntry[]> {
+  if (!options.found) await requireWorkup(db, groupId, workupId);
   const [versions, predictions] = await Promise.all([
     db.workupVersion.findMany({
       where: { workupId, groupId }, orderBy: { version: "desc" },

@@ -42,7 +42,7 @@ export default async function WorkupsPage({ searchParams }: { searchParams: Prom
     errors = error.fieldErrors;
   }
   const [flagged, compounds, members, overrides] = await Promise.all([
-    flaggedWorkups(member), compoundChoices(member), groupMembers(member), groupLibrary(db, member.group.id),
+    flaggedWorkups(db, member.group.id), compoundChoices(db, member.group.id), groupMembers(member), groupLibrary(db, member.group.id),
   ]);
   const library = resolveLibrary(overrides);
   const solvents = Object.values(library.solvents).map((s) => ({ value: s.key, label: s.name })).sort((a, b) => a.label.localeCompare(b.label, "en"));

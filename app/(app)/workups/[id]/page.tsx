@@ -37,10 +37,12 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
   const { id } = await params;
   const member = await requirePageMember("data:read", { returnTo: `/workups/${id}` });
   const db = await getDb();
-  const workup = await getWorkupDetail(db, member.group.id, id).catch(pageFailure);
-  const [overrides, versions, attachments] = await Promise.all([
-    groupLibrary(db, member.group.id), listVersions(db, member.group.id, id), listAttachments(db, member.group.id, id),
-  ]);
+  // One round of queries: the workup, its library, versions and attachments together (all scoped by group; a miss
+  // is the 404 whichever answers first).
+  const [workup, overrides, versions, attachments] = await Promise.all([
+    getWorkupDetail(db, member.group.id, id), groupLibrary(db, member.group.id),
+    listVersions(db, member.group.id, id, { found: true }), listAttachments(db, member.group.id, id),
+  ]).catch(pageFailure);
   const library = resolveLibrary(overrides);
   const stored = workup.prediction;
   const prediction = stored?.result.prediction ?? null;

@@ -1,6 +1,5 @@
 // Loaders of the list page beyond the list itself: choices for the filters and the flagged strip. Scoped by group.
-import { getDb } from "@/lib/db/client";
-import { type MemberContext } from "@/lib/authz";
+import { type Db } from "@/lib/db/client";
 import { type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { gapShareWords } from "@/lib/workups/causes";
 import { type StoredPredictionResult } from "@/lib/workups/prediction";
@@ -10,10 +9,9 @@ const COMPOUND_CHOICES = 500;
 /** Flagged workups shown above the list. */
 const FLAGGED_SHOWN = 4;
 
-export async function compoundChoices(member: MemberContext): Promise<{ id: string; name: string }[]> {
-  const db = await getDb();
+export async function compoundChoices(db: Db, groupId: string): Promise<{ id: string; name: string }[]> {
   return db.compound.findMany({
-    where: { groupId: member.group.id, components: { some: { groupId: member.group.id } } },
+    where: { groupId, components: { some: { groupId } } },
     orderBy: [{ name: "asc" }, { id: "asc" }],
     take: COMPOUND_CHOICES,
     select: { id: true, name: true },
@@ -29,9 +27,8 @@ export interface FlaggedItem {
   reasons: { title: string; detail: string }[];
 }
 
-export async function flaggedWorkups(member: MemberContext): Promise<{ items: FlaggedItem[]; total: number }> {
-  const db = await getDb();
-  const where = { groupId: member.group.id, flagged: true };
+export async function flaggedWorkups(db: Db, groupId: string): Promise<{ items: FlaggedItem[]; total: number }> {
+  const where = { groupId, flagged: true };
   const [rows, total] = await Promise.all([
     db.workup.findMany({
       where,

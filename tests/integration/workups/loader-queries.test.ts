@@ -1,0 +1,92 @@
+// The read paths behind the workup list, workup page and review page send a fixed number of SQL statements however
+// many workups the group holds (no query per row), and the workup page does not look its workup up more than once.
+// Counted on a real in-memory PGlite: every statement Prisma sends runs.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { compoundChoices, flaggedWorkups } from "@/app/(app)/workups/_lib/list-data";
+import { loadReview } from "@/lib/review/queries";
+import { listVersions } from "@/lib/workups/history";
+import { groupLibrary } from "@/lib/workups/library";
+import { reportOutcome } from "@/lib/workups/outcome";
+import { getWorkupDetail, listWorkups } from "@/lib/workups/queries";
+import { createWorkup, updateWorkup } from "@/lib/workups/service";
+import { createCountingDb, type CountingDb } from "@/tests/integration/helpers/counting-db";
+import { exampleSpec, header, makeLab, type Lab } from "./fixtures";
+
+/** Intervals are not looked at here: a few draws keep the set-up quick. */
+const QUICK = { draws: 20 };
+
+describe("statements per page load", () => {
+  let c: CountingDb;
+  let lab: Lab;
+  const ids: string[] = [];
+
+  async function addWorkups(n: number): Promise<void> {
+    for (let i = 0; i < n; i++) {
+      const saved = await createWorkup(c.db, lab.member, {
+        header: header({ title: `Acid-base run ${ids.length + 1}`, performedOn: `2026-05-${String(ids.length + 1).padStart(2, "0")}`, chemistId: lab.member.userId }),
+        spec: exampleSpec("acid-base-separation"),
+        links: [],
+      }, QUICK);
+      ids.push(saved.id);
+      // A second version and an outcome, so versions, predictions and analyses have more than one row to join.
+      const v2 = await updateWorkup(c.db, lab.member, saved.id, {
+        baseVersion: saved.version, header: header({ title: `Acid-base run ${ids.length} (rev.)`, performedOn: "2026-05-28", chemistId: lab.member.userId }),
+        spec: exampleSpec("acid-base-separation"), links: [],
+      }, QUICK);
+      await reportOutcome(c.db, lab.member, v2.id, { isolatedMassMg: 300 + 10 * i, purityPct: 97, purityMethod: "qnmr" });
+    }
+    await c.db.workup.updateMany({ where: { id: { in: ids.slice(0, 2) } }, data: { flagged: true } });
+  }
+
+  const viewer = () => ({ groupId: lab.groupId, userId: lab.lead.userId, isLead: true });
+  const loaders = {
+    list: () => Promise.all([
+      listWorkups(c.db, lab.groupId, {}), flaggedWorkups(c.db, lab.groupId), compoundChoices(c.db, lab.groupId), groupLibrary(c.db, lab.groupId),
+    ]),
+    detail: (id: string) => Promise.all([
+      getWorkupDetail(c.db, lab.groupId, id), groupLibrary(c.db, lab.groupId), listVersions(c.db, lab.groupId, id, { found: true }),
+    ]),
+    review: () => loadReview(c.db, viewer(), {}),
+  };
+
+  async function counts(): Promise<Record<keyof typeof loaders, number>> {
+    await groupLibrary(c.db, lab.groupId); // the instance's copy of the library is warm on a running server
+    return {
+      list: (await c.count(loaders.list)).statements.length,
+      detail: (await c.count(() => loaders.detail(ids[0]!))).statements.length,
+      review: (await c.count(loaders.review)).statements.length,
+    };
+  }
+
+  beforeAll(async () => {
+    c = await createCountingDb();
+    lab = await makeLab(c.db, "Counting Lab");
+  });
+  afterAll(async () => {
+    await c?.dispose();
+  });
+
+  it("does not grow with the number of workups", async () => {
+    await addWorkups(2);
+    const few = await counts();
+    await addWorkups(6);
+    const many = await counts();
+    expect(many).toEqual(few);
+    expect((await c.count(loaders.list)).result[0].rows).toHaveLength(8);
+    expect((await c.count(loaders.review)).result.rows).toHaveLength(8);
+  }, 240_000);
+
+  it("looks the workup up once on its page", async () => {
+    const { statements } = await c.count(() => loaders.detail(ids[1]!));
+    const lookups = statements.filter((s) => /^SELECT .* FROM "public"\."Workup" WHERE/.test(s));
+    expect(lookups).toHaveLength(1);
+    // The detail with its components, outcome, prediction and people; the library's stamp; versions with their
+    // predictions and editors.
+    expect(statements.length).toBeLessThanOrEqual(10);
+  });
+
+  it("reads an unchanged library with its stamp alone", async () => {
+    const { statements } = await c.count(() => groupLibrary(c.db, lab.groupId));
+    expect(statements).toEqual([expect.stringContaining(`"libraryVersion"`)]);
+  });
+});
