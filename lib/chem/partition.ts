@@ -48,6 +48,23 @@ export function partitionModelSe(solvent: SolventProps): number {
   return solvent.partition?.se ?? 1;
 }
 
+/**
+ * The solvent-translation standard error a component's log P carries in the Monte Carlo (perturb.ts), given the
+ * immiscible solvents of the work-up and the Collander-line figure `lineSd` for them: the validated Abraham
+ * standard error of each solvent the component's estimated descriptors cover (a log P draw reaches that log K
+ * through anchoring), nothing for measured descriptors (their log K does not follow log P), `lineSd` otherwise.
+ */
+export function componentTranslationSd(c: Pick<Component, "smiles" | "abraham">, solventKeys: readonly string[], lineSd: number): number {
+  if (!(lineSd > 0)) return 0;
+  const estimated = componentDescriptors(c)?.provenance === "estimated";
+  let sd = 0;
+  for (const key of solventKeys) {
+    const ab = componentAbraham(c, key);
+    sd = Math.max(sd, ab ? (estimated ? ab.se : 0) : lineSd);
+  }
+  return sd;
+}
+
 /** The octanol–water log P, or one back-calculated from any solvent log K the component carries. */
 export function effectiveLogP(c: Pick<Component, "logP" | "logK" | "pKas">, solvents: Readonly<Record<string, SolventProps>>): LogValue | null {
   if (c.logP) return c.logP;

@@ -10,8 +10,9 @@
  *  - every volume ±5 % (issue 3), reagent amounts ±5 % (same figure, by analogy), and a pH set with paper or a
  *    meter ±0.3 (from memory: the resolution of wide-range pH paper).
  */
+import { SOLVENTS } from "./data/solvents";
 import { type WorkupParameters } from "./parameters";
-import { LOGP_SE_BY_PROVENANCE } from "./partition";
+import { componentTranslationSd, LOGP_SE_BY_PROVENANCE } from "./partition";
 import type { Component, Operation, Provenance, WorkupInput } from "./schema";
 
 export interface UncertaintyDefaults {
@@ -87,9 +88,17 @@ function operationPlan(op: Operation, d: UncertaintyDefaults): OperationPlan {
   };
 }
 
+/** Solvents named in the work-up that are not known to be water-miscible (their partition is what log P translates into). */
+function immiscibleSolvents(input: WorkupInput): string[] {
+  const named = new Set<string>(input.mixture.solvents.map((s) => s.solvent));
+  for (const op of input.operations) if ("solvent" in op && typeof op.solvent === "string") named.add(op.solvent);
+  return [...named].filter((k) => SOLVENTS[k]?.waterMiscible !== true);
+}
+
 /**
  * The uncertain sites of `input`. `extraLogSd` adds the solvent-translation error (Collander relation) to every
- * log P that is not backed by a solvent-specific log K.
+ * log P that is not backed by a solvent-specific log K; a component with Abraham descriptors gets the model's own
+ * validated figure instead (componentTranslationSd, partition.ts).
  */
 export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaults = DEFAULT_UNCERTAINTY, extraLogSd = 0): PerturbationPlan {
   const sites: UncertainInput[] = [];
@@ -101,7 +110,9 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
     slotField.push(field);
     slotIndex.push(index);
   };
-  const comps = input.components.map((c) => componentPlan(c, defaults, extraLogSd));
+  // The translation error per component: the Abraham model's validated figure where it applies (partition.ts).
+  const immiscible = immiscibleSolvents(input);
+  const comps = input.components.map((c) => componentPlan(c, defaults, componentTranslationSd(c, immiscible, extraLogSd)));
   let logKAt = 0, pKaAt = 0;
   comps.forEach((p, i) => {
     if (p.logP > 0) site(`components.${i}.logP`, p.logP, "log", "logP", i);
