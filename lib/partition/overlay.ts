@@ -7,7 +7,7 @@
  * And, after the overlay, where each component's partition coefficient in each solvent comes from, for display.
  * Pure: the database side is group-values.ts.
  */
-import { collanderLogK, isHBondDonor, LOGP_SE_BY_PROVENANCE, partitionModelSe, effectiveLogP } from "@/lib/chem/partition";
+import { LOGP_SE_BY_PROVENANCE, solventLogK, type SolventLogK } from "@/lib/chem/partition";
 import { type Component, type LogValue, type PKa, type WorkupInput } from "@/lib/chem/schema";
 import { type SolventProps } from "@/lib/chem/data/solvents";
 
@@ -47,8 +47,9 @@ export interface PartitionSource {
   /** log K of the neutral form between the solvent and water as the prediction used it. */
   logK: number;
   se: number;
-  origin: "group" | "component" | "log_p";
-  /** e.g. "group data, n = 4, ±0.12", "estimated from structure". */
+  /** "abraham": the solvation model from the compound's descriptors; "log_p": the Collander line from log P. */
+  origin: "group" | "component" | "abraham" | "log_p";
+  /** e.g. "group data, n = 4, ±0.12", "Abraham model (literature descriptors), ±0.19", "estimated from structure". */
   label: string;
 }
 
@@ -67,6 +68,12 @@ function labelOfOwn(v: LogValue): string {
   return `${v.provenance}${v.source ? `: ${v.source}` : ""}`;
 }
 
+/** How an estimate without group data was made, with its standard error for the Abraham model. */
+export function estimateLabel(k: SolventLogK): string {
+  if (k.origin === "abraham") return `Abraham model (${k.provenance === "estimated" ? "estimated" : "literature"} descriptors), ±${k.se.toFixed(2)}`;
+  return k.provenance === "estimated" ? "estimated from structure" : `from ${k.provenance} log P via the solvent's Collander line`;
+}
+
 /** Where each component's log K in each organic solvent of the spec comes from. */
 export function partitionSources(spec: WorkupInput, solvents: Readonly<Record<string, SolventProps>>): PartitionSource[] {
   const out: PartitionSource[] = [];
@@ -81,13 +88,10 @@ export function partitionSources(spec: WorkupInput, solvents: Readonly<Record<st
         });
         continue;
       }
-      const logP = effectiveLogP(c, solvents);
-      if (!logP) continue;
-      const se = Math.hypot(logP.se ?? LOGP_SE_BY_PROVENANCE[logP.provenance], partitionModelSe(solvent));
-      out.push({
-        component: c.key, solvent: solventKey, logK: collanderLogK(logP.value, solvent, isHBondDonor(c)), se, origin: "log_p",
-        label: logP.provenance === "estimated" ? "estimated from structure" : `from ${logP.provenance} log P via the solvent's Collander line`,
-      });
+      // The engine's own estimate (Abraham model, else the Collander line), so the page shows what it predicted with.
+      const k = solventLogK(c, solvent, solvents);
+      if (!k) continue;
+      out.push({ component: c.key, solvent: solventKey, logK: k.value, se: k.se, origin: k.origin === "abraham" ? "abraham" : "log_p", label: estimateLabel(k) });
     }
   }
   return out;

@@ -1,11 +1,13 @@
 // Reads for the partition pages and the partition API, scoped by group.
 import { resolveLibrary } from "@/lib/chem/library";
-import { collanderLogK, isHBondDonor } from "@/lib/chem/partition";
+import { isHBondDonor, solventLogK } from "@/lib/chem/partition";
+import { type PKa } from "@/lib/chem/schema";
 import { readStoredPKas } from "@/lib/compounds/schemas";
 import { type Db } from "@/lib/db/client";
 import { NotFoundError } from "@/lib/errors";
 import { groupLibrary } from "@/lib/workups/library";
 import { pooledValues } from "./group-values";
+import { estimateLabel } from "./overlay";
 import { poolHistory, poolObservations, type PooledPoint, type PooledValue } from "./pooled";
 
 export interface PartitionSummaryRow {
@@ -74,8 +76,11 @@ export interface SolventPartition {
   solventName: string;
   pooled: PooledValue;
   history: PooledPoint[];
-  /** What the engine would use without group data: the Collander line from the compound's log P. */
-  structureEstimate: { value: number; label: string } | null;
+  /**
+   * What the engine would use without group data: the Abraham model from the compound's descriptors (measured ones
+   * looked up by its structure), else the Collander line from its log P; with the estimate's standard error.
+   */
+  structureEstimate: { value: number; se: number; origin: "abraham" | "collander"; label: string } | null;
 }
 
 export interface CompoundPartition {
@@ -87,7 +92,7 @@ export interface CompoundPartition {
 }
 
 export async function compoundPartition(db: Db, groupId: string, compoundId: string): Promise<CompoundPartition> {
-  const compound = await db.compound.findFirst({ where: { id: compoundId, groupId }, select: { id: true, name: true, logP: true, crippenLogP: true, pKas: true } });
+  const compound = await db.compound.findFirst({ where: { id: compoundId, groupId }, select: { id: true, name: true, canonicalSmiles: true, logP: true, crippenLogP: true, pKas: true } });
   if (!compound) throw new NotFoundError("compound");
   const [rows, library] = await Promise.all([
     db.partitionObservation.findMany({ where: { groupId, compoundId }, orderBy: [{ createdAt: "desc" }, { id: "desc" }] }),
@@ -105,8 +110,12 @@ export async function compoundPartition(db: Db, groupId: string, compoundId: str
   const keys = [...new Set(rows.map((r) => r.solventKey))].sort((a, b) => (solvents[a]?.name ?? a).localeCompare(solvents[b]?.name ?? b));
   const pooledBySolvent = new Map(keys.map((k) => [k, poolObservations(rows.filter((r) => r.solventKey === k))]));
   const outliers = new Set([...pooledBySolvent.values()].flatMap((p) => p.outliers));
-  const donor = isHBondDonor({ pKas: readStoredPKas(compound.pKas).map((p) => ({ value: p.value, kind: p.kind, provenance: p.provenance })) });
-  const logP = compound.logP ?? compound.crippenLogP;
+  const pKas: PKa[] = readStoredPKas(compound.pKas).map((p) => ({ value: p.value, kind: p.kind, provenance: p.provenance }));
+  const donor = isHBondDonor({ pKas });
+  // The compound as the engine would see it: its structure, and its log P (measured/literature, else Crippen's).
+  const logP = compound.logP !== null ? { value: compound.logP, provenance: "literature" as const }
+    : compound.crippenLogP !== null ? { value: compound.crippenLogP, provenance: "estimated" as const } : undefined;
+  const asComponent = { smiles: compound.canonicalSmiles, logK: {}, pKas, ...(logP ? { logP } : {}) };
   return {
     compound: { id: compound.id, name: compound.name, logP: compound.logP, crippenLogP: compound.crippenLogP, hasAcidSite: donor },
     observations: rows.map((r) => ({
@@ -118,11 +127,13 @@ export async function compoundPartition(db: Db, groupId: string, compoundId: str
     })),
     solvents: keys.map((k) => {
       const solvent = solvents[k];
-      const estimate = solvent?.partition && logP !== null ? collanderLogK(logP, solvent, donor) : null;
+      const estimate = solvent && !solvent.waterMiscible ? solventLogK(asComponent, solvent, solvents) : null;
       return {
         solventKey: k, solventName: solvent?.name ?? k, pooled: pooledBySolvent.get(k) ?? poolObservations([]),
         history: poolHistory(rows.filter((r) => r.solventKey === k)),
-        structureEstimate: estimate === null ? null : { value: estimate, label: compound.logP !== null ? "from log P" : "estimated from structure" },
+        structureEstimate: estimate === null || estimate.origin === "component" ? null
+          : { value: estimate.value, se: estimate.se, origin: estimate.origin,
+            label: estimate.origin === "abraham" ? estimateLabel(estimate) : `${estimateLabel(estimate)}, ±${estimate.se.toFixed(2)}` },
       };
     }),
     solventChoices: Object.values(solvents).filter((s) => !s.waterMiscible && s.partition).map((s) => ({ key: s.key, name: s.name })).sort((a, b) => a.name.localeCompare(b.name)),
