@@ -85,6 +85,26 @@ describe("statements per page load", () => {
     expect(statements.length).toBeLessThanOrEqual(10);
   });
 
+  it("reads the flagged strip in one statement, with each workup's causes or else its danger flags", async () => {
+    await c.db.workup.updateMany({ where: { id: { in: ids.slice(0, 3) } }, data: { flagged: true } });
+    const { result, statements } = await c.count(() => flaggedWorkups(c.db, lab.groupId));
+    expect(statements).toHaveLength(1);
+    expect(result.total).toBe(3);
+    const stored = await c.db.workup.findMany({
+      where: { groupId: lab.groupId, flagged: true }, orderBy: [{ performedOn: "desc" }, { id: "desc" }],
+      select: { id: true, outcome: { select: { analysis: true } }, predictions: { orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1, select: { result: true } } },
+    });
+    expect(result.items.map((i) => i.id)).toEqual(stored.map((w) => w.id));
+    for (const [i, w] of stored.entries()) {
+      const causes = ((w.outcome?.analysis as { causes?: { title: string }[] } | null)?.causes ?? []).slice(0, 3).map((x) => x.title);
+      const danger = ((w.predictions[0]?.result as { prediction?: { flags?: { title: string; severity: string }[] } } | null)?.prediction?.flags ?? [])
+        .filter((f) => f.severity === "danger").slice(0, 2).map((f) => f.title);
+      expect(result.items[i]?.reasons.map((r) => r.title)).toEqual(causes.length > 0 ? causes : danger);
+    }
+    await c.db.workup.updateMany({ where: { groupId: lab.groupId }, data: { flagged: false } });
+    expect(await flaggedWorkups(c.db, lab.groupId)).toEqual({ items: [], total: 0 });
+  });
+
   it("reads an unchanged library with its stamp alone", async () => {
     const { statements } = await c.count(() => groupLibrary(c.db, lab.groupId));
     expect(statements).toEqual([expect.stringContaining(`"libraryVersion"`)]);
