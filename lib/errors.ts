@@ -4,7 +4,7 @@
 import { randomUUID } from "node:crypto";
 import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
-import { isRecordNotFound, isUniqueViolation } from "@/lib/db/errors";
+import { isOverloadError, isRecordNotFound, isUniqueViolation } from "@/lib/db/errors";
 import { findUnsafeText } from "@/lib/validation/safe-text";
 
 export type FieldErrors = Record<string, string[]>;
@@ -102,9 +102,25 @@ export class RateLimitedError extends AppError {
   }
 }
 
+/**
+ * The instance is saturated (its engine threads or its database connections are all busy for longer than a request
+ * may wait): 503 with Retry-After, nothing written. Clients retry after the stated seconds.
+ */
+export class ServiceUnavailableError extends AppError {
+  readonly status = 503;
+  readonly code = "overloaded";
+  constructor(
+    message = "The server is busy right now; nothing was saved. Try again in a few seconds.",
+    readonly retryAfterSeconds = 5,
+  ) {
+    super(message);
+  }
+}
+
 /** Normalises anything thrown into an AppError when we know what it means, else undefined. */
 export function asAppError(error: unknown): AppError | undefined {
   if (error instanceof AppError) return error;
+  if (isOverloadError(error)) return new ServiceUnavailableError();
   if (error instanceof z.ZodError) return ValidationError.fromZod(error);
   if (isRecordNotFound(error)) return new NotFoundError();
   if (isUniqueViolation(error)) return new ConflictError("A record with these values already exists.");
@@ -129,7 +145,7 @@ export function errorResponse(error: unknown, where = "route handler"): Response
     const body: ErrorBody = { error: { code: known.code, message: known.message } };
     if (known instanceof ValidationError) body.error.fields = known.fieldErrors;
     const headers: Record<string, string> = {};
-    if (known instanceof RateLimitedError) headers["Retry-After"] = String(known.retryAfterSeconds);
+    if (known instanceof RateLimitedError || known instanceof ServiceUnavailableError) headers["Retry-After"] = String(known.retryAfterSeconds);
     return Response.json(body, { status: known.status, headers });
   }
   const id = logUnexpected(error, where);
@@ -139,7 +155,7 @@ export function errorResponse(error: unknown, where = "route handler"): Response
 
 export type ActionResult<T = undefined> =
   | { ok: true; data: T; message?: string }
-  | { ok: false; status: number; message: string; fieldErrors?: FieldErrors };
+  | { ok: false; status: number; message: string; fieldErrors?: FieldErrors; retryAfterSeconds?: number };
 
 /** The same mapping for server actions, whose results travel to a form instead of an HTTP body. */
 export function actionFailure(error: unknown, where = "server action"): ActionResult<never> {
@@ -151,6 +167,7 @@ export function actionFailure(error: unknown, where = "server action"): ActionRe
       status: known.status,
       message: known.message,
       ...(known instanceof ValidationError ? { fieldErrors: known.fieldErrors } : {}),
+      ...(known instanceof RateLimitedError || known instanceof ServiceUnavailableError ? { retryAfterSeconds: known.retryAfterSeconds } : {}),
     };
   }
   const id = logUnexpected(error, where);

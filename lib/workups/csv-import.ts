@@ -1,7 +1,9 @@
 /**
  * CSV import of past workups and their outcomes (columns: csv-columns.ts). Every row is checked and predicted first,
  * with its errors named by row, line and column; only when no row has an error is anything written, all rows in one
- * transaction. Progress is reported per row through `onProgress` (the route streams it as NDJSON).
+ * transaction. Progress is reported per row through `onProgress` (the route streams it as NDJSON). Each row's engine
+ * work is checked against the engine budget (a row beyond it is that row's error) and runs on an engine thread; the
+ * caller holds the importing user's heavy slot for the whole import.
  */
 import { type Db } from "@/lib/db/client";
 import { ValidationError } from "@/lib/errors";
@@ -14,7 +16,8 @@ import { newRecordId } from "./ids";
 import { loadGroupJudgement } from "./group-model";
 import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
-import { computePrediction, IMPORT_DRAWS, seedFromId, type ComputedPrediction } from "./prediction";
+import { IMPORT_DRAWS, seedFromId, type ComputedPrediction } from "./prediction";
+import { assertEngineBudget, predictInPool } from "@/lib/workers/engine";
 import { headerColumns, plainJson, searchTextOf, snapshotHeader, solventKeysOf, type JsonObject } from "./record";
 import { columnErrors, readRow, templateLookup, type RowContext } from "./csv-rows";
 import { type CreateWorkup, type OutcomeInput } from "./schemas";
@@ -84,7 +87,9 @@ export async function importWorkupsCsv(db: Db, actor: Actor, text: string, optio
       const id = newRecordId();
       try {
         const groupValues = await groupValuesForLinks(db, actor.groupId, input.links);
-        const prediction = computePrediction(spec, { library, seed: seedFromId(id), draws: options.draws ?? IMPORT_DRAWS, groupValues });
+        const draws = options.draws ?? IMPORT_DRAWS;
+        assertEngineBudget(spec, draws);
+        const prediction = await predictInPool(spec, { library, seed: seedFromId(id), draws, groupValues });
         const analysis = outcome
           ? analyzeOutcome({
               outcome, spec: prediction.parsed, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies,

@@ -1,6 +1,7 @@
 /**
  * Saving workups. The server validates with the same schemas as the editor, recomputes the prediction (point +
- * Monte Carlo interval, seeded from the workup id) and keeps every edit as a version. An update names the version
+ * Monte Carlo interval, seeded from the workup id) on an engine thread after checking the engine budget
+ * (lib/workers/engine.ts), and keeps every edit as a version. An update names the version
  * it was based on; the check and the write are one conditional UPDATE inside one transaction, so two people saving
  * at once cannot both win, and the loser is told who changed the record and when.
  */
@@ -17,7 +18,8 @@ import { isFlagged, type DeviationStatus } from "./deviation";
 import { newRecordId } from "./ids";
 import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
-import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "./prediction";
+import { seedFromId, SAVE_DRAWS, type ComputedPrediction } from "./prediction";
+import { assertEngineBudget, predictOffThread } from "@/lib/workers/engine";
 import { siteFlags } from "./site-flags";
 import { headerColumns, plainJson, searchTextOf, snapshotHeader, solventKeysOf, type WorkupSnapshot } from "./record";
 import { createWorkupSchema, updateWorkupSchema, type CreateWorkup } from "./schemas";
@@ -73,7 +75,8 @@ export async function createWorkup(db: Db, actor: Actor, input: unknown, options
   const parsed = parseInput(createWorkupSchema, input);
   const library = await groupLibrary(db, actor.groupId);
   const id = newRecordId();
-  const prediction = computePrediction(rawSpecOf(input), {
+  assertEngineBudget(rawSpecOf(input), options.draws ?? SAVE_DRAWS);
+  const prediction = await predictOffThread(actor.userId, rawSpecOf(input), {
     library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
     extraFlags: await siteFlags(rawSpecOf(input)),
   });
@@ -102,8 +105,9 @@ export async function updateWorkup(db: Db, actor: Actor, id: string, input: unkn
   const current = await db.workup.findFirst({ where: { id, groupId: actor.groupId }, select: { version: true } });
   if (!current) throw new NotFoundError("workup");
   if (current.version !== parsed.baseVersion) throw await staleVersionError(db, id, current.version, parsed.baseVersion);
+  assertEngineBudget(rawSpecOf(input), options.draws ?? SAVE_DRAWS);
   const library = await groupLibrary(db, actor.groupId);
-  const prediction = computePrediction(rawSpecOf(input), {
+  const prediction = await predictOffThread(actor.userId, rawSpecOf(input), {
     library, seed: seedFromId(id), draws: options.draws ?? SAVE_DRAWS, groupValues: await groupValuesForLinks(db, actor.groupId, parsed.links),
     extraFlags: await siteFlags(rawSpecOf(input)),
   });
