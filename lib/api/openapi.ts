@@ -16,7 +16,9 @@ const STATUS_TEXT: Record<number, string> = {
   404: "No such record in the caller's group (another group's ids answer the same)",
   409: "Conflict: the record changed since the version the caller read",
   413: "The body is larger than the route's limit",
-  422: "Validation failed; `error.fields` names each field with its messages",
+  422: "Validation failed; `error.fields` names each field with its messages (also: more engine work than one request may ask for, the limit stated)",
+  429: "The caller already has as many heavy requests running as allowed; wait the Retry-After seconds",
+  503: "The instance is saturated (engine threads or database connections busy past the wait limit); nothing was written; retry after Retry-After seconds",
   500: "Unexpected error; quote `error.id`",
 };
 

@@ -9,7 +9,7 @@ const person = z.object({ id: z.string(), name: z.string() });
 
 export const errorBodySchema = z.object({
   error: z.object({
-    code: z.string().describe("unauthenticated, forbidden, not_found, conflict, bad_request, payload_too_large, validation, internal"),
+    code: z.string().describe("unauthenticated, forbidden, not_found, conflict, bad_request, payload_too_large, validation, rate_limited (429, Retry-After), overloaded (503, Retry-After), internal"),
     message: z.string(),
     fields: z.record(z.string(), z.array(z.string())).optional().describe("validation messages by field path, e.g. spec.operations.2.volume.value"),
     id: z.string().optional().describe("reference of an unexpected error in the server log"),

@@ -35,6 +35,8 @@ export interface ApiRoute {
 
 const readErrors = [403, 404, 422];
 const writeErrors = [400, 403, 404, 413, 422];
+/** Routes that run the engine or import in bulk: 429 when the caller's heavy slots are taken, 503 when the instance is saturated. */
+const heavyErrors = [429, 503];
 
 export const API_ROUTES: ApiRoute[] = [
   { method: "get", path: "/api/v1/me", summary: "Who the caller is, in which group, with which permissions", permission: "data:read",
@@ -44,13 +46,13 @@ export const API_ROUTES: ApiRoute[] = [
     query: workupListFilterSchema, success: { status: 200, name: "WorkupListPage", schema: listPageSchema, description: "one page" }, errors: [403, 422] },
   { method: "post", path: "/api/v1/workups", summary: "Create a workup; the server computes and stores its prediction", permission: "data:write",
     body: { name: "CreateWorkup", schema: createWorkupSchema, limit: "1 MB" },
-    success: { status: 201, name: "SavedWorkup", schema: savedWorkupSchema, description: "created at version 1" }, errors: [400, 403, 413, 422] },
+    success: { status: 201, name: "SavedWorkup", schema: savedWorkupSchema, description: "created at version 1" }, errors: [400, 403, 413, 422, ...heavyErrors] },
   { method: "get", path: "/api/v1/workups/{id}", summary: "A workup with its spec, latest prediction and outcome", permission: "data:read",
     success: { status: 200, name: "WorkupDetail", schema: workupDetailSchema, description: "the workup" }, errors: readErrors },
   { method: "put", path: "/api/v1/workups/{id}", summary: "Save a new version", permission: "data:write",
     description: "`baseVersion` must be the version you read; a stale one is refused with 409 and nothing is saved.",
     body: { name: "UpdateWorkup", schema: updateWorkupSchema, limit: "1 MB" },
-    success: { status: 200, name: "SavedWorkup", schema: savedWorkupSchema, description: "the new version" }, errors: [...writeErrors, 409] },
+    success: { status: 200, name: "SavedWorkup", schema: savedWorkupSchema, description: "the new version" }, errors: [...writeErrors, 409, ...heavyErrors] },
   { method: "delete", path: "/api/v1/workups/{id}", summary: "Delete a workup with its versions, predictions and outcome", permission: "data:write",
     success: { status: 204, description: "deleted" }, errors: [403, 404] },
   { method: "post", path: "/api/v1/workups/{id}/outcome", summary: "Report what was isolated; answers recovery, deviation, status and likely causes", permission: "data:write",
@@ -70,7 +72,7 @@ export const API_ROUTES: ApiRoute[] = [
       "streams one line per row checked or written ({type: progress, phase, done, total}) and ends with {type: result, ok, created | errors}; " +
       `otherwise 201 with the created rows or 422 with every row's errors. Columns: ${CSV_COLUMNS_DOC}.`,
     body: { name: "WorkupCsv", schema: looseObject, contentType: "text/csv", limit: "10 MB" },
-    success: { status: 201, schema: looseObject, description: "created rows (or NDJSON progress lines and a result line)" }, errors: [400, 403, 413, 422] },
+    success: { status: 201, schema: looseObject, description: "created rows (or NDJSON progress lines and a result line)" }, errors: [400, 403, 413, 422, ...heavyErrors] },
   { method: "get", path: "/api/v1/review/calibration", summary: "How often the group's predictive intervals contained the reported outcome, by level", permission: "data:read",
     query: reviewFilterSchema,
     success: { status: 200, name: "CalibrationReport", schema: calibrationReportSchema, description: "coverage per interval level" }, errors: [403, 422] },
@@ -80,8 +82,9 @@ export const API_ROUTES: ApiRoute[] = [
     body: { name: "GroupExport", schema: groupExportSchema, limit: "100 MB" },
     success: { status: 201, name: "ImportCounts", schema: looseObject, description: "rows created per kind" }, errors: [400, 403, 409, 413, 422] },
   { method: "post", path: "/api/v1/predict", summary: "Predict a workup with the group's library, saving nothing", permission: "data:read",
+    description: "The engine's work is bounded: portion-steps × (components + 4) × (draws + 1) at most 600,000 work units and portion-steps × components at most 20,000; beyond either, 422 names the field and states the limit.",
     body: { name: "PredictRequest", schema: predictRequestSchema, limit: "1 MB" },
-    success: { status: 200, name: "PredictResponse", schema: predictResponseSchema, description: "point prediction and interval" }, errors: [400, 403, 413, 422] },
+    success: { status: 200, name: "PredictResponse", schema: predictResponseSchema, description: "point prediction and interval" }, errors: [400, 403, 413, 422, ...heavyErrors] },
   { method: "get", path: "/api/v1/compounds", summary: "List or search the group's compounds (mode=similarity|substructure|text)", permission: "data:read",
     query: listCompoundsSchema, success: { status: 200, schema: looseObject, description: "compounds or search hits" }, errors: [403, 422] },
   { method: "post", path: "/api/v1/compounds", summary: "Register compounds from SMILES, SDF or MOL text, all or nothing", permission: "data:write",

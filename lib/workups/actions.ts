@@ -87,6 +87,7 @@ export async function predictAction(spec: unknown, workupId?: string, links?: Pr
   return memberAction("data:read", async (member) => previewPrediction(await getDb(), member.group.id, actionArg("spec", objectArg("spec"), spec), {
     workupId: actionArg("workupId", recordIdArg("workupId").optional(), workupId),
     links: actionArg("links", listArg("links", 50).optional(), links),
+    userKey: member.user.id,
   }));
 }
 

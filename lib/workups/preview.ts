@@ -6,7 +6,8 @@ import { groupValuesForLinks } from "@/lib/partition/group-values";
 import { type GroupValues } from "@/lib/partition/overlay";
 import { type Client } from "./context";
 import { groupLibrary } from "./library";
-import { computePrediction, seedFromId } from "./prediction";
+import { assertEngineBudget, predictOffThread } from "@/lib/workers/engine";
+import { SAVE_DRAWS, seedFromId } from "./prediction";
 import { siteFlags } from "./site-flags";
 import { componentLinkSchema } from "./schemas";
 import { type PredictionSummary } from "./service";
@@ -25,15 +26,19 @@ export async function previewGroupValues(db: Client, groupId: string, links: unk
  * follows the workup id (or the group's id for a new workup), as on save.
  */
 export async function previewPrediction(
-  db: Client, groupId: string, spec: unknown, options: { workupId?: string; links?: unknown } = {},
+  db: Client, groupId: string, spec: unknown, options: { workupId?: string; links?: unknown; userKey?: string } = {},
 ): Promise<PredictionSummary> {
+  assertEngineBudget(spec, SAVE_DRAWS);
   const links = options.links !== undefined
     ? parseInput(previewLinksSchema, options.links)
     : options.workupId
       ? await db.workupComponent.findMany({ where: { groupId, workupId: options.workupId }, select: { key: true, compoundId: true } })
       : [];
   const [library, groupValues] = await Promise.all([groupLibrary(db, groupId), groupValuesForLinks(db, groupId, links)]);
-  const p = computePrediction(spec, { library, seed: seedFromId(options.workupId ?? groupId), groupValues, extraFlags: await siteFlags(spec) });
+  // On an engine thread in the caller's heavy slots (lib/workers/engine.ts), like a save.
+  const p = await predictOffThread(options.userKey ?? groupId, spec, {
+    library, seed: seedFromId(options.workupId ?? groupId), draws: SAVE_DRAWS, groupValues, extraFlags: await siteFlags(spec),
+  });
   const { flags, cautions } = p.result.prediction;
   return { engineVersion: p.engineVersion, productKey: p.productKey, productRecovery: p.productRecovery, recoveryLow: p.recoveryLow, recoveryHigh: p.recoveryHigh, flags, cautions };
 }
