@@ -9,6 +9,21 @@ import { findUnsafeText } from "@/lib/validation/safe-text";
 
 export type FieldErrors = Record<string, string[]>;
 
+/**
+ * Messages grouped by field path. The paths come from the client's own keys, so they are collected in a Map and
+ * made into own properties: a key such as "constructor" or "__proto__" must not reach Object.prototype.
+ */
+function fieldErrorsOf(issues: readonly { path: readonly PropertyKey[]; message: string }[]): FieldErrors {
+  const byField = new Map<string, string[]>();
+  for (const issue of issues) {
+    const key = issue.path.length > 0 ? issue.path.map(String).join(".") : "_form";
+    const messages = byField.get(key) ?? [];
+    messages.push(issue.message);
+    byField.set(key, messages);
+  }
+  return Object.fromEntries(byField);
+}
+
 export abstract class AppError extends Error {
   abstract readonly status: number;
   abstract readonly code: string;
@@ -82,12 +97,7 @@ export class ValidationError extends AppError {
   }
 
   static fromZod(error: z.ZodError): ValidationError {
-    const fieldErrors: FieldErrors = {};
-    for (const issue of error.issues) {
-      const key = issue.path.length > 0 ? issue.path.map(String).join(".") : "_form";
-      (fieldErrors[key] ??= []).push(issue.message);
-    }
-    return new ValidationError(fieldErrors);
+    return new ValidationError(fieldErrorsOf(error.issues));
   }
 }
 
@@ -186,9 +196,7 @@ export function parseInput<S extends z.ZodType>(schema: S, input: unknown): z.ou
 export function refuseUnsafeText(input: unknown): void {
   const problems = findUnsafeText(input);
   if (problems.length === 0) return;
-  const fieldErrors: FieldErrors = {};
-  for (const p of problems) (fieldErrors[p.path.length > 0 ? p.path.map(String).join(".") : "_form"] ??= []).push(p.message);
-  throw new ValidationError(fieldErrors);
+  throw new ValidationError(fieldErrorsOf(problems));
 }
 
 /** A form's fields as a plain object (files and repeated names are not used by our forms). */
