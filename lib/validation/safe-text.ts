@@ -16,30 +16,51 @@ export function unsafeTextMessage(text: string): string | null {
   return null;
 }
 
-/** Every string (and object key) in `value` that cannot be stored, with its path; at most `limit` problems. */
+/** A visited value and where it sits: the parent's link and the key, so no path is copied until one is reported. */
+type Place = { value: unknown; key: string | number | null; parent: Place | null; /** A field name's own problem, reported at the object. */ keyProblem?: string };
+
+function pathOf(place: Place): (string | number)[] {
+  const path: (string | number)[] = [];
+  for (let p: Place | null = place; p !== null && p.key !== null; p = p.parent) path.push(p.key);
+  return path.reverse();
+}
+
+/**
+ * Every string (and object key) in `value` that cannot be stored, with its path; at most `limit` problems. Walks
+ * with its own stack, not by recursion: a body of a few thousand nested arrays must be answered, not overflow the
+ * call stack (and paths are linked, not copied, so a deep body costs linear time).
+ */
 export function findUnsafeText(value: unknown, limit = 20): UnsafeTextProblem[] {
   const problems: UnsafeTextProblem[] = [];
   const seen = new Set<object>();
-  const visit = (v: unknown, path: (string | number)[]) => {
-    if (problems.length >= limit) return;
+  const stack: Place[] = [{ value, key: null, parent: null }];
+  while (stack.length > 0 && problems.length < limit) {
+    const place = stack.pop()!;
+    if (place.keyProblem !== undefined) {
+      problems.push({ path: pathOf(place.parent ?? place), message: place.keyProblem });
+      continue;
+    }
+    const v = place.value;
     if (typeof v === "string") {
       const message = unsafeTextMessage(v);
-      if (message) problems.push({ path, message });
-      return;
+      if (message) problems.push({ path: pathOf(place), message });
+      continue;
     }
-    if (v === null || typeof v !== "object" || seen.has(v)) return;
+    if (v === null || typeof v !== "object" || seen.has(v)) continue;
     seen.add(v);
+    if (v instanceof Date || v instanceof Uint8Array || (typeof Blob !== "undefined" && v instanceof Blob)) continue;
+    const children: Place[] = [];
     if (Array.isArray(v)) {
-      v.forEach((x, i) => visit(x, [...path, i]));
-      return;
+      v.forEach((x, i) => children.push({ value: x, key: i, parent: place }));
+    } else {
+      for (const [k, x] of Object.entries(v)) {
+        const keyProblem = unsafeTextMessage(k);
+        if (keyProblem) children.push({ value: null, key: null, parent: place, keyProblem: `a field name ${keyProblem}` });
+        children.push({ value: x, key: k, parent: place });
+      }
     }
-    if (v instanceof Date || v instanceof Uint8Array || (typeof Blob !== "undefined" && v instanceof Blob)) return;
-    for (const [k, x] of Object.entries(v)) {
-      const keyProblem = unsafeTextMessage(k);
-      if (keyProblem) problems.push({ path: [...path], message: `a field name ${keyProblem}` });
-      visit(x, [...path, k]);
-    }
-  };
-  visit(value, []);
+    // Pushed in reverse so they are visited in document order.
+    for (let i = children.length - 1; i >= 0; i--) stack.push(children[i]!);
+  }
   return problems;
 }

@@ -1,5 +1,6 @@
 // JSON bodies shaped to break the server rather than the schema: field names that are also names of
-// Object.prototype's members ("constructor", "__proto__"). Each is a 422 naming the field, and nothing is written.
+// Object.prototype's members ("constructor", "__proto__"), and values nested thousands of levels deep. Each is a 422
+// naming the field, and nothing is written.
 // Through the real guard with an API token, on each database.
 import "./next-runtime";
 import { beforeAll, expect, it } from "vitest";
@@ -32,6 +33,16 @@ describeWithAppDatabase("hostile JSON bodies are a 4xx and write nothing", (t) =
     const reported = await callRoute(outcome.POST, "POST", `/api/v1/workups/${id}/outcome`, { token, params: { id }, rawBody: proto, headers: { "content-type": "application/json" } });
     expect(reported.status).toBe(422);
     expect(Object.keys((await json<ErrorJson>(reported)).error.fields ?? {})).toEqual(["__proto__"]);
+    expect(await footprint(t.db)).toEqual(before);
+  });
+
+  it("refuses a value nested thousands of levels deep with 422 naming the field", async () => {
+    const before = await footprint(t.db);
+    const deep = `${"[".repeat(5000)}${"]".repeat(5000)}`;
+    const body = JSON.stringify({ header: header({ title: "@@" }), spec: exampleSpec() }).replace('"@@"', deep);
+    const res = await callRoute(workups.POST, "POST", "/api/v1/workups", { token, rawBody: body, headers: { "content-type": "application/json" } });
+    expect(res.status).toBe(422);
+    expect(Object.keys((await json<ErrorJson>(res)).error.fields ?? {})).toEqual(["header.title"]);
     expect(await footprint(t.db)).toEqual(before);
   });
 });
