@@ -7,7 +7,8 @@
  *   3. kill -9 of the server under concurrent writers, several rounds: acknowledged writes missing after restart.
  *
  *   npm run bench:reliability -- --backend pglite|postgres [--parts authz,fuzz,kill] [--fuzz 2400] [--rounds 5]
- *                                [--writers 16] [--admin-url postgresql://postgres@127.0.0.1:5432/postgres] [--no-write]
+ *                                [--writers 16] [--admin-url postgresql://postgres@127.0.0.1:5432/postgres]
+ *                                [--no-write] [--out file.json]   (a trial run: keep bench/results as it is)
  *
  * Needs a production build (built here if missing or stale, scripts/ensure-build.mjs). Each run gets a database of
  * its own (a temp PGlite folder, or a PostgreSQL database created and dropped) and a server on a free port on
@@ -37,6 +38,7 @@ const { values: args } = parseArgs({
     writers: { type: "string", default: "16" },
     "admin-url": { type: "string", default: "postgresql://postgres@127.0.0.1:5432/postgres" },
     "no-write": { type: "boolean", default: false },
+    out: { type: "string" },
   },
 });
 
@@ -138,6 +140,7 @@ async function main(): Promise<void> {
     command: `npm run bench:reliability -- --backend ${backend}${args.parts !== "authz,fuzz,kill" ? ` --parts ${args.parts}` : ""}`,
     matrix, fuzz, kill,
   };
+  if (args.out) fs.writeFileSync(args.out, `${JSON.stringify(report, null, 2)}\n`);
   if (!args["no-write"]) {
     const dir = path.join(root, "bench", "results");
     fs.mkdirSync(dir, { recursive: true });
