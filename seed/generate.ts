@@ -5,7 +5,7 @@
 import { createRng } from "@/lib/chem/random";
 import type { WorkupInputRaw } from "@/lib/chem/schema";
 import type { SeedCompound } from "./compounds";
-import { demoGroup, emulsionLoss, families, type WorkupFamily } from "./scenario";
+import { demoGroup, emulsionMishap, families, HANDLING_LOSS, type WorkupFamily, type WrittenPoor } from "./scenario";
 
 /** What the generator needs to know of a registered compound. */
 export interface CompoundFacts {
@@ -24,8 +24,29 @@ export interface GeneratedWorkup {
   expectedProductMmol: number;
   spec: WorkupInputRaw;
   componentCompoundIds: Record<string, string>;
-  /** Null: no outcome reported yet. */
-  outcome: null | { factor: number; purityPct: number; method: "qnmr" | "hplc" | "weight_only"; note: string };
+  /** Set when the scenario writes this workup as a poor one (its family's procedure, or a mishap at the bench). */
+  poor: WrittenPoor | null;
+  /**
+   * What happened, by the story; null: no outcome reported yet. The isolated product is expected × reactionYield ×
+   * the written procedure's recovery × (1 − handlingLoss) × (1 − mishapLoss); purity as reported; a weight alone
+   * (weight_only) also weighs residual solvent, `weighedExcess` of the product's mass.
+   */
+  outcome: null | {
+    reactionYield: number; handlingLoss: number; mishapLoss: number; purityPct: number; weighedExcess: number;
+    method: "qnmr" | "hplc" | "weight_only"; note: string;
+  };
+}
+
+const SEPARATIONS = new Set(["wash", "extract", "back_extract", "separate"]);
+
+/** Notes an emulsion at the second separation (the first when there is only one); returns the step (1-based). */
+function withEmulsion(operations: WorkupFamily["operations"]): { operations: WorkupFamily["operations"]; step: number } {
+  const separations = operations.map((op, i) => ({ op, i })).filter(({ op }) => SEPARATIONS.has(op.type));
+  const at = (separations[1] ?? separations[0])!.i;
+  return {
+    operations: operations.map((op, i) => (i === at ? { ...op, observed: { ...(op.observed ?? {}), interface: "emulsion" as const } } : op)),
+    step: at + 1,
+  };
 }
 
 const WORKUP_COUNT = 60;
@@ -55,6 +76,8 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
   const rng = createRng(20260601);
   const chemists = demoGroup.people.filter((p) => p.role !== "viewer").map((p) => p.email);
   const out: GeneratedWorkup[] = [];
+  // About one workup in thirteen meets an emulsion; it falls on the next workup whose procedure is sound.
+  let emulsionDue = false;
   for (let i = 0; i < WORKUP_COUNT; i++) {
     // A stride coprime with the number of families, so every family recurs through the months.
     const family = families[(i * 5 + Math.floor(i / families.length)) % families.length]!;
@@ -68,6 +91,11 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
       return componentSpec(facts, c.role, c.mmol * scale);
     });
     const volumeScale = Math.max(0.6, Math.min(1.8, scale));
+    if (i % 13 === 5) emulsionDue = true;
+    const emulsion = emulsionDue && !family.poor;
+    if (emulsion) emulsionDue = false;
+    const scaled = family.operations.map((op) => scaleOperation(op, volumeScale));
+    const noted = emulsion ? withEmulsion(scaled) : { operations: scaled, step: 0 };
     const spec: WorkupInputRaw = {
       name: family.title,
       components,
@@ -75,10 +103,9 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
         solvents: family.solvents.map((s) => ({ solvent: s.solvent, volume: { value: Math.round(s.ml * volumeScale), unit: "mL" } })),
         reagents: (family.reagents ?? []).map((r) => ({ reagent: r.reagent, volume: { value: Math.round(r.ml * volumeScale), unit: "mL" } })),
       },
-      operations: family.operations.map((op) => scaleOperation(op, volumeScale)),
+      operations: noted.operations,
       funnel: { value: volumeScale > 1.2 ? 500 : 250, unit: "mL" },
     };
-    const emulsion = i % 13 === 5;
     const reported = i < WORKUP_COUNT - 5; // the last few are waiting for analysis
     out.push({
       title: family.title,
@@ -89,11 +116,19 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
       expectedProductMmol: Number((product.mmol * scale).toFixed(2)),
       spec,
       componentCompoundIds: Object.fromEntries(family.components.map((c) => [c.compound, compounds.get(c.compound)!.id])),
+      poor: emulsion ? { kind: "mishap", cause: emulsionMishap.cause, loss: emulsionMishap.loss, words: emulsionMishap.note(noted.step) } : family.poor ?? null,
       outcome: !reported ? null : {
-        factor: (emulsion ? emulsionLoss.factor : family.outcomeFactor) * (1 + 0.06 * (rng.uniform() - 0.5)),
+        // Run-to-run scatter of the reaction (±2 %) and of the mishap's size (±5 % of the product).
+        reactionYield: Math.min(1, family.reactionYield * (1 + 0.04 * (rng.uniform() - 0.5))),
+        handlingLoss: HANDLING_LOSS.low + (HANDLING_LOSS.high - HANDLING_LOSS.low) * rng.uniform(),
+        mishapLoss: (() => {
+          const poor = emulsion ? emulsionMishap : family.poor?.kind === "mishap" ? family.poor : null;
+          return poor ? Math.min(0.95, Math.max(0, poor.loss + 0.1 * (rng.uniform() - 0.5))) : 0;
+        })(),
         purityPct: Math.min(99.5, family.purityPct + 3 * (rng.uniform() - 0.5)),
+        weighedExcess: 0.04 * rng.uniform(),
         method: i % 3 === 0 ? "weight_only" : i % 3 === 1 ? "qnmr" : "hplc",
-        note: emulsion ? emulsionLoss.note : family.note ?? "",
+        note: emulsion ? emulsionMishap.note(noted.step) : family.note ?? "",
       },
     });
   }

@@ -9,7 +9,7 @@ import { DEFAULT_LIBRARY } from "@/lib/chem/library";
 import { describeStructure, loadRDKit } from "@/lib/chem/structure";
 import type { Db } from "@/lib/db/client";
 import { seedCompounds } from "./compounds";
-import { type CompoundFacts } from "./generate";
+import { type CompoundFacts, type GeneratedWorkup } from "./generate";
 import { DEMO_PASSWORD, demoGroup, otherGroup, type SeedPerson } from "./scenario";
 import { drainQueue } from "@/lib/jobs/worker";
 import { seedPartition } from "./partition";
@@ -20,6 +20,8 @@ export interface SeedSummary {
   people: number;
   compounds: number;
   workups: number;
+  /** The demo group's workups as the scenario writes them (notebook reference, poor or not and why). */
+  written: { notebookRef: string; poor: GeneratedWorkup["poor"]; reported: boolean }[];
 }
 
 /** True when the database holds no group yet (the first start of an empty database). */
@@ -98,5 +100,8 @@ export async function seedDemo(db: Db): Promise<SeedSummary> {
   const otherLead = other.users.get(otherGroup.people[0].email)!;
   await registerCompounds(db, other.groupId, otherLead);
 
-  return { groups: 2, people: main.users.size + other.users.size, compounds: compounds.size * 2, workups };
+  return {
+    groups: 2, people: main.users.size + other.users.size, compounds: compounds.size * 2, workups: workups.length,
+    written: workups.map((w) => ({ notebookRef: w.notebookRef, poor: w.poor, reported: w.outcome !== null })),
+  };
 }

@@ -3,8 +3,15 @@
  * each other's records). People, groups and notebook numbers are made up; the molecules and their properties are
  * real (seed/compounds.ts). Work-ups are generated deterministically from a handful of families, each the kind of
  * work-up a group runs every week, with variants that go wrong in the ways work-ups usually go wrong.
+ *
+ * Outcomes follow the story, not the judgement: what the chemist isolates is the product the reaction gave (each
+ * family's reaction yield), carried through the written procedure (its physics: the engine re-run on the literature
+ * values the scenario states), less ordinary handling (2–6 %) and less whatever the story says was lost (an emulsion,
+ * a rag layer). A poor procedure therefore reports a poor outcome because its chemistry loses the product, and a
+ * mishap reports the loss the note describes.
  */
 import type { OperationRaw } from "@/lib/chem/schema";
+import type { CauseCode } from "@/lib/workups/causes";
 
 export const DEMO_PASSWORD = "layerwise-demo";
 
@@ -38,6 +45,15 @@ export interface SeedComponentRef {
   mmol: number;
 }
 
+/**
+ * How the scenario writes a workup as a poor one, and what the review should name: a procedure whose written chemistry
+ * loses the product (the engine's danger-level risk it earns, known before any outcome), or a mishap at the bench
+ * that loses product the procedure itself would have kept (the likely cause the outcome should point to).
+ */
+export type WrittenPoor =
+  | { kind: "procedure"; risk: string; words: string }
+  | { kind: "mishap"; cause: CauseCode; loss: number; words: string };
+
 export interface WorkupFamily {
   key: string;
   title: string;
@@ -46,9 +62,14 @@ export interface WorkupFamily {
   /** Aqueous reagents already in the reaction mixture (the base of a saponification). */
   reagents?: { reagent: string; ml: number }[];
   operations: OperationRaw[];
-  /** What the chemist really recovered relative to the prediction (1 = as predicted); < 0.8 makes a poor outcome. */
-  outcomeFactor: number;
+  /**
+   * Share of the expected product the reaction really gave, in the crude before the workup (common practice: a
+   * reaction run as planned gives 90–100 % of what the chemist expected).
+   */
+  reactionYield: number;
   purityPct: number;
+  /** Set when the scenario writes the family as a poor one. */
+  poor?: WrittenPoor;
   note?: string;
 }
 
@@ -79,7 +100,7 @@ export const families: WorkupFamily[] = [
     ],
     solvents: [{ solvent: "dcm", ml: 40 }],
     operations: [washes.acid(20), washes.bicarb(20), washes.brine(20), ...dryAndStrip()],
-    outcomeFactor: 0.96, purityPct: 97,
+    reactionYield: 0.97, purityPct: 97,
   },
   {
     key: "acetanilide-etoac", title: "Acetanilide (aniline, acetic anhydride, EtOAc)",
@@ -90,7 +111,7 @@ export const families: WorkupFamily[] = [
     ],
     solvents: [{ solvent: "etoac", ml: 40 }],
     operations: [washes.acid(15), washes.bicarb(20, 3), washes.brine(15), ...dryAndStrip()],
-    outcomeFactor: 0.93, purityPct: 96,
+    reactionYield: 0.95, purityPct: 96,
   },
   {
     key: "lidocaine-swing", title: "Lidocaine by pH swing (toluene, 3 M HCl, NaOH, hexane)",
@@ -106,7 +127,7 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "hexane", volume: mL(15), portions: 3, keep: "organic", label: "free base into hexane" },
       ...dryAndStrip("na2so4", 3),
     ],
-    outcomeFactor: 0.9, purityPct: 95,
+    reactionYield: 0.94, purityPct: 95,
   },
   {
     key: "lidocaine-low-ph", title: "Lidocaine by pH swing, basified only to pH 8",
@@ -121,7 +142,8 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "hexane", volume: mL(15), portions: 1, keep: "organic" },
       ...dryAndStrip("na2so4", 3),
     ],
-    outcomeFactor: 0.95, purityPct: 93,
+    reactionYield: 0.95, purityPct: 93,
+    poor: { kind: "procedure", risk: "F3", words: "basified only to pH 8, about lidocaine's pKa (7.9): half of it stays protonated in the water" },
     note: "Aqueous layer still cloudy after the extraction.",
   },
   {
@@ -140,7 +162,7 @@ export const families: WorkupFamily[] = [
       washes.brine(15),
       ...dryAndStrip("na2so4", 4),
     ],
-    outcomeFactor: 0.95, purityPct: 98,
+    reactionYield: 0.97, purityPct: 98,
   },
   {
     key: "ibuprofen-thf-left", title: "Ibuprofen from its ethyl ester, THF not removed before extraction",
@@ -149,10 +171,11 @@ export const families: WorkupFamily[] = [
     reagents: [{ reagent: "naoh_1m", ml: 20 }],
     operations: [
       { type: "adjust_ph", reagent: "hcl_3m", targetPh: 2 },
-      { type: "extract", solvent: "etoac", volume: mL(20), portions: 2, keep: "organic" },
+      { type: "extract", solvent: "etoac", volume: mL(20), portions: 2, keep: "organic", observed: { interface: "rag" } },
       ...dryAndStrip("na2so4", 4),
     ],
-    outcomeFactor: 0.7, purityPct: 94,
+    reactionYield: 0.97, purityPct: 94,
+    poor: { kind: "mishap", cause: "emulsion_loss", loss: 0.25, words: "THF left in: the layers were slow to separate and a rag layer holding about a quarter of the product was left behind" },
     note: "Layers slow to separate; a rag layer was left behind.",
   },
   {
@@ -167,7 +190,7 @@ export const families: WorkupFamily[] = [
       { type: "charge", solvent: "etoac", volume: mL(40) },
       washes.bicarb(20, 2), washes.brine(20), ...dryAndStrip(),
     ],
-    outcomeFactor: 0.94, purityPct: 97,
+    reactionYield: 0.94, purityPct: 97,
   },
   {
     key: "caffeine-dcm", title: "Caffeine from theobromine (MeI, K₂CO₃, DMF), DCM extraction from brine",
@@ -178,7 +201,7 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "dcm", volume: mL(20), portions: 4, keep: "organic" },
       washes.licl(10, 2), ...dryAndStrip("na2so4", 3),
     ],
-    outcomeFactor: 0.92, purityPct: 95,
+    reactionYield: 0.93, purityPct: 95,
   },
   {
     key: "caffeine-etoac", title: "Caffeine from theobromine, one EtOAc extraction",
@@ -188,7 +211,8 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "etoac", volume: mL(30), portions: 1, keep: "organic" },
       washes.water(20, 2), ...dryAndStrip("mgso4", 2),
     ],
-    outcomeFactor: 0.9, purityPct: 88,
+    reactionYield: 0.93, purityPct: 88,
+    poor: { kind: "procedure", risk: "F5", words: "one EtOAc extraction of a product that hardly partitions out of water (caffeine log P −0.07)" },
   },
   {
     key: "benzophenone-ether", title: "Benzophenone (Grignard addition and oxidation), NH₄Cl quench, ether extraction",
@@ -205,7 +229,7 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "et2o", volume: mL(20), portions: 2, keep: "organic" },
       washes.brine(20), ...dryAndStrip(),
     ],
-    outcomeFactor: 0.97, purityPct: 94,
+    reactionYield: 0.97, purityPct: 94,
   },
   {
     key: "phenol-swing", title: "p-Cresol recovered from a naphthalene mixture by NaOH back-extraction",
@@ -220,7 +244,7 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "mtbe", volume: mL(20), portions: 3, keep: "organic" },
       washes.brine(15), ...dryAndStrip("na2so4", 3),
     ],
-    outcomeFactor: 0.92, purityPct: 96,
+    reactionYield: 0.96, purityPct: 96,
   },
   {
     key: "phenol-bicarb", title: "p-Cresol from a naphthalene mixture, bicarbonate instead of NaOH",
@@ -235,7 +259,8 @@ export const families: WorkupFamily[] = [
       { type: "extract", solvent: "mtbe", volume: mL(20), portions: 3, keep: "organic" },
       ...dryAndStrip("na2so4", 3),
     ],
-    outcomeFactor: 0.9, purityPct: 80,
+    reactionYield: 0.96, purityPct: 80,
+    poor: { kind: "procedure", risk: "F12", words: "bicarbonate (pH 8–9) does not deprotonate p-cresol (pKa 10.27): it stays in the MTBE, which goes to waste" },
   },
   {
     key: "acetylation-dmap", title: "Acetanilide with DMAP/pyridine, CuSO₄ and HCl washes",
@@ -247,7 +272,7 @@ export const families: WorkupFamily[] = [
     ],
     solvents: [{ solvent: "etoac", ml: 40 }],
     operations: [washes.acid(20, 3), washes.bicarb(20, 2), washes.brine(20), ...dryAndStrip()],
-    outcomeFactor: 0.95, purityPct: 97,
+    reactionYield: 0.96, purityPct: 97,
   },
   {
     key: "lidocaine-acid-wash", title: "Lidocaine amide coupling washed with 1 M HCl like a neutral amide",
@@ -257,10 +282,20 @@ export const families: WorkupFamily[] = [
     ],
     solvents: [{ solvent: "etoac", ml: 40 }],
     operations: [washes.acid(20, 2), washes.brine(20), ...dryAndStrip()],
-    outcomeFactor: 1.0, purityPct: 90,
+    reactionYield: 0.95, purityPct: 90,
+    poor: { kind: "procedure", risk: "F2", words: "1 M HCl washes protonate the amine (pKa 7.9) and carry it into the discarded water" },
     note: "Almost nothing left after evaporation; the acid washes were discarded.",
   },
 ];
 
-/** Families with a poor outcome the group meeting should see: the deviation is not explained by the model. */
-export const emulsionLoss = { factor: 0.55, note: "Heavy emulsion in the second wash; about a third of the organic layer was lost with it." };
+/**
+ * A mishap the group meeting should see, on workups whose procedure is sound: an emulsion at a separation that took
+ * about a third of the organic layer (and so of the product) with it. The record notes the emulsion at that step.
+ */
+export const emulsionMishap = {
+  cause: "emulsion_loss" as const,
+  loss: 1 / 3,
+  note: (step: number) => `Heavy emulsion at step ${step}; about a third of the organic layer was lost with it.`,
+};
+/** Ordinary handling losses of a careful bench workup, beyond what the procedure's chemistry loses (common practice). */
+export const HANDLING_LOSS = { low: 0.02, high: 0.06 };

@@ -1,12 +1,13 @@
 /**
  * Saves the generated demo workups through the same service the editor and the API use (validation, prediction,
  * versions, outcome analysis), so the demo exercises the real path. The reported mass is what a chemist would have
- * weighed: the predicted recovery times the family's outcome factor, at the reported purity.
+ * weighed by the story (seed/scenario.ts): the product the reaction gave, carried through the written procedure (the
+ * engine's point recovery on the scenario's literature values, no Monte Carlo spread), less handling and any mishap.
  */
 import type { Db } from "@/lib/db/client";
 import { reportOutcome } from "@/lib/workups/outcome";
 import { createWorkup } from "@/lib/workups/service";
-import { generateWorkups, type CompoundFacts } from "./generate";
+import { generateWorkups, type CompoundFacts, type GeneratedWorkup } from "./generate";
 
 /** Fewer Monte Carlo draws than an interactive save: the demo loads 60 workups on first start. */
 const SEED_DRAWS = 200;
@@ -16,7 +17,7 @@ export async function seedWorkups(
   groupId: string,
   users: ReadonlyMap<string, string>,
   compounds: ReadonlyMap<string, CompoundFacts>,
-): Promise<number> {
+): Promise<GeneratedWorkup[]> {
   const generated = generateWorkups(compounds);
   for (const w of generated) {
     const chemistId = users.get(w.chemistEmail) ?? null;
@@ -35,15 +36,16 @@ export async function seedWorkups(
     }, { draws: SEED_DRAWS });
     if (!w.outcome) continue;
     const product = w.spec.components.find((c) => c.role === "product")!;
-    const predicted = saved.prediction.productRecovery ?? 0;
-    const productMg = w.expectedProductMmol * product.molarMass * predicted * w.outcome.factor;
-    const purity = w.outcome.method === "weight_only" ? 100 : w.outcome.purityPct;
+    const procedure = saved.prediction.productRecovery ?? 0;
+    const o = w.outcome;
+    const productMg = w.expectedProductMmol * product.molarMass * o.reactionYield * procedure * (1 - o.handlingLoss) * (1 - o.mishapLoss);
+    const weighedMg = o.method === "weight_only" ? productMg * (1 + o.weighedExcess) : (productMg * 100) / o.purityPct;
     await reportOutcome(db, actor, saved.id, {
-      isolatedMassMg: Number(((productMg * 100) / purity).toFixed(1)),
-      purityPct: w.outcome.method === "weight_only" ? null : Number(purity.toFixed(1)),
+      isolatedMassMg: Number(Math.max(0.1, weighedMg).toFixed(1)),
+      purityPct: w.outcome.method === "weight_only" ? null : Number(w.outcome.purityPct.toFixed(1)),
       purityMethod: w.outcome.method,
       notes: w.outcome.note,
     });
   }
-  return generated.length;
+  return generated;
 }

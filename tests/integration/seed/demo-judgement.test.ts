@@ -1,0 +1,57 @@
+// The demo tells the truth: seeded through the real services (about a minute on PGlite), its review flags fall on the
+// workups the scenario writes as poor ones, and each names the written reason first.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { type OutcomeAnalysis } from "@/lib/workups/analysis";
+import { seedDemo, type SeedSummary } from "@/seed/load";
+import { createTestDatabase, type TestDatabase } from "@/tests/integration/helpers/databases";
+
+describe("the demo scenario's judgement", () => {
+  let t: TestDatabase;
+  let seeded: SeedSummary;
+  beforeAll(async () => {
+    t = await createTestDatabase("pglite");
+    seeded = await seedDemo(t.db);
+  }, 900_000);
+  afterAll(async () => {
+    await t?.dispose();
+  });
+
+  it("flags exactly the workups written as poor, each for the written reason", async () => {
+    const rows = await t.db.workup.findMany({
+      where: { group: { slug: "holloway" } },
+      select: { notebookRef: true, title: true, status: true, flagged: true, outcome: { select: { analysis: true } } },
+    });
+    const written = new Map(seeded.written.map((w) => [w.notebookRef, w]));
+    expect(rows).toHaveLength(seeded.written.length);
+    const lines: string[] = [];
+    for (const w of rows) {
+      const story = written.get(w.notebookRef ?? "");
+      expect(story, w.notebookRef ?? "").toBeDefined();
+      const analysis = w.outcome?.analysis as unknown as OutcomeAnalysis | undefined;
+      const poor = story!.poor;
+      const where = `${w.notebookRef} ${w.title}: ${w.status}${w.flagged ? ", flagged" : ""}, danger ${analysis?.dangerFlags.join("+") || "none"}, causes ${analysis?.causes.map((c) => c.code).join(", ") || "none"}`;
+      lines.push(where);
+      if (!poor) {
+        // A sound procedure and an ordinary outcome: never flagged, never "below".
+        expect(w.flagged, where).toBe(false);
+        expect(w.status, where).not.toBe("below");
+        continue;
+      }
+      expect(w.flagged, where).toBe(true);
+      if (poor.kind === "procedure") {
+        // The written chemistry loses the product: a danger-level procedure risk, known before any outcome, and the
+        // outcome is the poor one that chemistry gives.
+        expect(analysis?.dangerFlags ?? [], where).toContain(poor.risk);
+      } else if (story!.reported) {
+        expect(w.status, where).toBe("below");
+        expect(analysis?.causes[0]?.code, where).toBe(poor.cause);
+      }
+    }
+    const judged = rows.filter((w) => w.outcome);
+    const flagged = judged.filter((w) => w.flagged);
+    const byRisk = flagged.filter((w) => written.get(w.notebookRef ?? "")?.poor?.kind === "procedure").length;
+    const statuses = Object.entries(Object.groupBy(judged, (w) => w.status)).map(([s, ws]) => `${ws?.length ?? 0} ${s}`).join(" / ");
+    console.log(`demo: ${judged.length} judged workups, ${flagged.length} flagged (${byRisk} for a danger-level procedure risk, ${flagged.length - byRisk} below with the mishap named first); statuses ${statuses}`);
+    if (process.env["DEMO_VERBOSE"]) console.log(lines.sort().join("\n"));
+  }, 120_000);
+});
