@@ -91,8 +91,9 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
       return componentSpec(facts, c.role, c.mmol * scale);
     });
     const volumeScale = Math.max(0.6, Math.min(1.8, scale));
+    const reported = i < WORKUP_COUNT - 5; // the last few are waiting for analysis
     if (i % 13 === 5) emulsionDue = true;
-    const emulsion = emulsionDue && !family.poor;
+    const emulsion = emulsionDue && !family.poor && reported;
     if (emulsion) emulsionDue = false;
     const scaled = family.operations.map((op) => scaleOperation(op, volumeScale));
     const noted = emulsion ? withEmulsion(scaled) : { operations: scaled, step: 0 };
@@ -106,7 +107,6 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
       operations: noted.operations,
       funnel: { value: volumeScale > 1.2 ? 500 : 250, unit: "mL" },
     };
-    const reported = i < WORKUP_COUNT - 5; // the last few are waiting for analysis
     out.push({
       title: family.title,
       chemistEmail,
@@ -116,7 +116,10 @@ export function generateWorkups(compounds: ReadonlyMap<string, CompoundFacts>): 
       expectedProductMmol: Number((product.mmol * scale).toFixed(2)),
       spec,
       componentCompoundIds: Object.fromEntries(family.components.map((c) => [c.compound, compounds.get(c.compound)!.id])),
-      poor: emulsion ? { kind: "mishap", cause: emulsionMishap.cause, loss: emulsionMishap.loss, words: emulsionMishap.note(noted.step) } : family.poor ?? null,
+      // A mishap is written only where an outcome shows it; a poor procedure is poor before any outcome.
+      poor: emulsion
+        ? { kind: "mishap", cause: emulsionMishap.cause, loss: emulsionMishap.loss, words: emulsionMishap.note(noted.step) }
+        : family.poor && (family.poor.kind === "procedure" || reported) ? family.poor : null,
       outcome: !reported ? null : {
         // Run-to-run scatter of the reaction (±2 %) and of the mishap's size (±5 % of the product).
         reactionYield: Math.min(1, family.reactionYield * (1 + 0.04 * (rng.uniform() - 0.5))),

@@ -31,18 +31,22 @@ describe("the demo scenario's judgement", () => {
       const poor = story!.poor;
       const where = `${w.notebookRef} ${w.title}: ${w.status}${w.flagged ? ", flagged" : ""}, danger ${analysis?.dangerFlags.join("+") || "none"}, causes ${analysis?.causes.map((c) => c.code).join(", ") || "none"}`;
       lines.push(where);
+      if (process.env["DEMO_VERBOSE"]) console.log(`${poor ? "POOR" : "    "} ${where}`);
       if (!poor) {
         // A sound procedure and an ordinary outcome: never flagged, never "below".
         expect(w.flagged, where).toBe(false);
         expect(w.status, where).not.toBe("below");
         continue;
       }
-      expect(w.flagged, where).toBe(true);
       if (poor.kind === "procedure") {
-        // The written chemistry loses the product: a danger-level procedure risk, known before any outcome, and the
-        // outcome is the poor one that chemistry gives.
-        expect(analysis?.dangerFlags ?? [], where).toContain(poor.risk);
-      } else if (story!.reported) {
+        // The written chemistry loses the product: a danger-level procedure risk, known before any outcome (flagged
+        // with or without one), and the outcome is the poor one that chemistry gives.
+        expect(w.flagged, where).toBe(true);
+        if (analysis) expect(analysis.dangerFlags, where).toContain(poor.risk);
+      } else {
+        // A mishap at the bench shows only in the outcome: below, with the written cause first.
+        expect(story!.reported, where).toBe(true);
+        expect(w.flagged, where).toBe(true);
         expect(w.status, where).toBe("below");
         expect(analysis?.causes[0]?.code, where).toBe(poor.cause);
       }
@@ -50,8 +54,10 @@ describe("the demo scenario's judgement", () => {
     const judged = rows.filter((w) => w.outcome);
     const flagged = judged.filter((w) => w.flagged);
     const byRisk = flagged.filter((w) => written.get(w.notebookRef ?? "")?.poor?.kind === "procedure").length;
-    const statuses = Object.entries(Object.groupBy(judged, (w) => w.status)).map(([s, ws]) => `${ws?.length ?? 0} ${s}`).join(" / ");
+    const counts = new Map<string, number>();
+    for (const w of judged) counts.set(w.status, (counts.get(w.status) ?? 0) + 1);
+    const statuses = [...counts].map(([status, n]) => `${n} ${status}`).join(" / ");
     console.log(`demo: ${judged.length} judged workups, ${flagged.length} flagged (${byRisk} for a danger-level procedure risk, ${flagged.length - byRisk} below with the mishap named first); statuses ${statuses}`);
-    if (process.env["DEMO_VERBOSE"]) console.log(lines.sort().join("\n"));
+
   }, 120_000);
 });
