@@ -12,3 +12,4 @@ export { SITE_CLASSES, type SiteClass } from "./site-classes";
 export { NO_SITE_WARNING, type SiteWarning, estimateSitesWithWarnings, unrecognisedProtonGroups } from "./site-warnings";
 export { mcGowanVolume, mcGowanVolumeOf } from "./mcgowan";
 export { type StructureAbraham, abrahamForStructure } from "./abraham";
+export { type EstimatedDescriptors, estimateAbrahamDescriptors } from "./abraham-estimate";
