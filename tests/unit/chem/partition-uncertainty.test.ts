@@ -25,9 +25,11 @@ describe("solvent-translation error per component", () => {
   it("no descriptors: the Collander line's error (assumed 1.0 for the alkanes) on top of log P's own 0.2", () => {
     expect(logPSd(input({}))).toBeCloseTo(Math.hypot(0.2, 1.0), 6);
   });
-  it("estimated descriptors (anchored on log P): heptane's validated 0.26 instead of the line's 1.0", () => {
+  it("estimated descriptors (anchored on log P): their validated 0.64 instead of the alkane line's assumed 1.0", () => {
+    // 0.64: RMSE of log K from group-contribution descriptors anchored on the measured octanol log P, over the
+    // validation rows of compounds without measured descriptors (MNSol, seven solvents, n = 98; bench:partition).
     const estimated = { abraham: { E: 0.601, S: 0.52, A: 0, B: 0.14, V: 0.8573, provenance: "estimated" } };
-    expect(logPSd(input(estimated))).toBeCloseTo(Math.hypot(0.2, 0.26), 6);
+    expect(logPSd(input(estimated))).toBeCloseTo(Math.hypot(0.2, 0.64), 6);
   });
   it("measured descriptors (toluene): log P does not drive the heptane log K, so it carries only its own error", () => {
     expect(logPSd(input({ smiles: "Cc1ccccc1" }))).toBeCloseTo(0.2, 6);
