@@ -11,6 +11,10 @@ export const PURITY_METHODS = ["qnmr", "hplc", "gc", "weight_only"] as const;
 export type PurityMethodName = (typeof PURITY_METHODS)[number];
 /** How each purity method is named on screen and in messages. */
 export const PURITY_METHOD_WORDS: Record<PurityMethodName, string> = { qnmr: "qNMR", hplc: "HPLC", gc: "GC", weight_only: "weight only" };
+/** A stored purity method in words; one this version does not know is shown without its underscores. */
+export function purityMethodWords(method: string): string {
+  return (PURITY_METHOD_WORDS as Record<string, string | undefined>)[method] ?? method.replace(/_/g, " ");
+}
 export const OUTCOME_STATUSES = ["as_expected", "below", "above", "inconclusive", "unknown"] as const;
 export type OutcomeStatusName = (typeof OUTCOME_STATUSES)[number];
 

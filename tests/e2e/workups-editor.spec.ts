@@ -119,9 +119,11 @@ test("the editor works from the keyboard, puts messages beside their fields and 
   await volume.fill("25");
   await expect(steps.first().getByText("volume per portion must be a number")).toHaveCount(0);
 
-  // Saving without a title puts the message by the title and the focus on it.
+  // Saving without a title puts the message by the title and in the summary, whose link puts the focus on it.
   await page.getByRole("button", { name: "Save workup" }).click();
-  await expect(page.getByText("Give the workup a title")).toBeVisible();
+  await expect(page.locator("[data-field-messages='header.title']")).toHaveText("Give the workup a title");
+  await expect(page.getByTestId("error-summary")).toBeFocused();
+  await page.getByTestId("error-summary").getByRole("link", { name: "Give the workup a title" }).click();
   await expect(page.getByLabel("Title")).toBeFocused();
 
   // Leaving with unsaved edits asks first; declining stays on the page.

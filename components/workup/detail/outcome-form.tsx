@@ -10,11 +10,41 @@ import { reportOutcomeAction } from "@/lib/workups/actions";
 import { LAYER_PHASES, outcomeInputSchema, PURITY_METHODS, type OutcomeInputRaw, type PurityMethodName } from "@/lib/workups/schemas";
 import { newClientId } from "@/lib/workups-client/ids";
 import { parseNumber } from "@/lib/workups-client/to-spec";
-import { Messages, QuantityControl, SelectControl, TextControl } from "@/components/workup/editor/controls";
+import { fieldId, Messages, QuantityControl, SelectControl, TextControl } from "@/components/workup/editor/controls";
+import { ErrorSummary } from "@/components/ui/error-summary";
+import { inFormWords, summaryLine, type FieldLabel } from "@/lib/workups-client/field-labels";
 
 export const PURITY_METHOD_LABELS: Record<PurityMethodName, string> = {
   qnmr: "qNMR with an internal standard", hplc: "HPLC (calibrated)", gc: "GC (calibrated)", weight_only: "Weight only (purity not measured)",
 };
+
+const PHASE_LABELS: Record<(typeof LAYER_PHASES)[number], string> = { organic: "Organic layer", aqueous: "Aqueous layer", emulsion: "Emulsion", solid: "Solid" };
+
+/** A layer assay's fields: the schema's name, the control's key suffix and label. */
+const ASSAY_FIELDS: Record<string, { control: string; label: string; unit: string | null }> = {
+  step: { control: "step", label: "Step", unit: null }, phase: { control: "phase", label: "Layer", unit: null },
+  compoundKey: { control: "compound", label: "Component", unit: null }, amountMmol: { control: "amount", label: "Amount (mmol)", unit: "mmol" },
+  volumeMl: { control: "volume", label: "Layer volume (mL)", unit: "mL" }, portion: { control: "step", label: "Portion", unit: null },
+};
+
+const TOP_FIELDS: Record<string, { targetId: string; label: string }> = {
+  isolatedMassMg: { targetId: fieldId("outcome.isolatedMassMg"), label: "Isolated mass" },
+  purityMethod: { targetId: fieldId("outcome.purityMethod"), label: "Purity measured by" },
+  purityPct: { targetId: fieldId("outcome.purityPct"), label: "Purity (mass %)" },
+  notes: { targetId: "outcome-notes", label: "Notes" },
+  layerAssays: { targetId: "outcome-assays", label: "Assays of single layers" },
+};
+
+/** Where a message of the outcome schema belongs: the control's id and the words to name it by. */
+function placeOf(path: string): { targetId: string; name: FieldLabel; field: string } {
+  const [head, index, field] = path.split(".");
+  if (head === "layerAssays" && index !== undefined && field !== undefined) {
+    const f = ASSAY_FIELDS[field] ?? { control: "step", label: "Assay", unit: null };
+    return { targetId: fieldId(`outcome.assay.${index}.${f.control}`), name: { place: `Assay ${Number(index) + 1}`, label: f.label, unit: f.unit }, field };
+  }
+  const top = TOP_FIELDS[head ?? ""];
+  return { targetId: top?.targetId ?? "outcome-form", name: { place: null, label: top?.label ?? null, unit: null }, field: head ?? "" };
+}
 
 interface AssayRow { id: string; step: string; phase: string; compoundKey: string; amountMmol: string; volumeMl: string }
 
@@ -38,6 +68,7 @@ export function OutcomeForm({ workupId, steps, components, productKey, defaults 
   const [failure, setFailure] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
+  const [attempt, setAttempt] = useState(0);
 
   /** What was typed, for the schema to judge (a blank mass is left out so the schema names it). */
   const payload = (): Record<string, unknown> => {
@@ -62,6 +93,7 @@ export function OutcomeForm({ workupId, steps, components, productKey, defaults 
       const out: Record<string, string[]> = {};
       for (const i of checked.error.issues) (out[i.path.map(String).join(".") || "form"] ??= []).push(i.message);
       setErrors(out);
+      setAttempt((n) => n + 1);
       return;
     }
     setErrors({});
@@ -73,15 +105,24 @@ export function OutcomeForm({ workupId, steps, components, productKey, defaults 
         router.refresh();
       } else {
         setErrors(result.fieldErrors ?? {});
-        setFailure(result.message);
+        // Field messages go to the summary; a refusal without them (a lost connection, a stale page) is said here.
+        setFailure(result.fieldErrors ? null : result.message);
+        if (result.fieldErrors) setAttempt((n) => n + 1);
       }
     });
   };
 
-  const err = (k: string) => errors[k] ?? [];
+  const worded = (path: string) => { const p = placeOf(path); return (errors[path] ?? []).map((m) => inFormWords(m, p.name, p.field)); };
+  const err = worded;
+  const summary = Object.keys(errors).flatMap((path) => {
+    const p = placeOf(path);
+    return worded(path).map((text) => ({ targetId: p.targetId, text: summaryLine(text, p.name) }));
+  });
   const setAssay = (id: string, patch: Partial<AssayRow>) => setAssays((rows) => rows.map((r) => (r.id === id ? { ...r, ...patch } : r)));
   return (
-    <form className="space-y-3" aria-label="Report the outcome" onSubmit={(e) => { e.preventDefault(); submit(); }} noValidate>
+    <form id="outcome-form" className="space-y-3" aria-label="Report the outcome" onSubmit={(e) => { e.preventDefault(); submit(); }} noValidate>
+      <ErrorSummary id="outcome-errors" items={summary} attempt={attempt}
+        title={`Not saved: ${summary.length} problem${summary.length === 1 ? "" : "s"} to fix`} />
       <div className="flex flex-wrap items-start gap-3">
         <QuantityControl fieldKey="outcome.isolatedMassMg" label="Isolated mass" quantity={mass} units={["mg", "g"]} className="w-40" messages={err("isolatedMassMg")} onChange={setMass} />
         <SelectControl fieldKey="outcome.purityMethod" label="Purity measured by" value={method} className="min-w-56" messages={err("purityMethod")}
@@ -89,14 +130,14 @@ export function OutcomeForm({ workupId, steps, components, productKey, defaults 
         <TextControl fieldKey="outcome.purityPct" label="Purity (mass %)" numeric value={purity} className="w-32" messages={err("purityPct")} onChange={setPurity}
           hint={method === "weight_only" ? "Optional: without it the mass is taken as pure product." : undefined} />
       </div>
-      <fieldset className="space-y-2">
+      <fieldset id="outcome-assays" className="space-y-2">
         <legend className="text-xs font-medium text-stone-700">Assays of single layers (optional: locate where product went)</legend>
         {assays.map((a, i) => (
           <div key={a.id} className="flex flex-wrap items-start gap-2">
             <SelectControl fieldKey={`outcome.assay.${i}.step`} label={`Assay ${i + 1}: step`} value={a.step} messages={err(`layerAssays.${i}.step`)}
               choices={steps.map((s, j) => ({ value: String(j + 1), label: `${j + 1}. ${s}` }))} onChange={(v) => setAssay(a.id, { step: v })} />
             <SelectControl fieldKey={`outcome.assay.${i}.phase`} label="Layer" value={a.phase} messages={err(`layerAssays.${i}.phase`)}
-              choices={LAYER_PHASES.map((p) => ({ value: p, label: p }))} onChange={(v) => setAssay(a.id, { phase: v })} />
+              choices={LAYER_PHASES.map((p) => ({ value: p, label: PHASE_LABELS[p] }))} onChange={(v) => setAssay(a.id, { phase: v })} />
             <SelectControl fieldKey={`outcome.assay.${i}.compound`} label="Component" value={a.compoundKey} messages={err(`layerAssays.${i}.compoundKey`)}
               choices={components.map((c) => ({ value: c.key, label: c.name }))} onChange={(v) => setAssay(a.id, { compoundKey: v })} />
             <TextControl fieldKey={`outcome.assay.${i}.amount`} label="Amount (mmol)" numeric value={a.amountMmol} className="w-28" messages={err(`layerAssays.${i}.amountMmol`)} onChange={(v) => setAssay(a.id, { amountMmol: v })} />

@@ -7,6 +7,9 @@ import { PredictionOverview, combineSteps } from "@/components/workup/prediction
 import { specInput } from "@/lib/workups-client/to-spec";
 import { stepElementId } from "./operation-card";
 import { useEditor } from "./editor-context";
+import { FieldLinks } from "@/components/ui/error-summary";
+import { placeMessages } from "@/lib/workups-client/field-errors";
+import { revealIn, summaryItems } from "./error-items";
 
 export function PredictionPanel() {
   const { live, state } = useEditor();
@@ -28,6 +31,9 @@ export function PredictionPanel() {
     <section aria-labelledby="prediction-heading" className="rounded-lg border border-stone-200 bg-white p-4 shadow-xs" data-testid="live-prediction" data-revision={live.revision}>
       <h2 id="prediction-heading" className="text-base font-semibold text-stone-900">Prediction</h2>
       <p aria-live="polite" className={`mt-0.5 text-xs ${live.status === "ready" ? "text-stone-500" : "text-amber-800"}`} data-testid="prediction-status">{status}</p>
+      {live.status === "invalid" && live.issues.length > 0 ? (
+        <FieldLinks items={summaryItems(placeMessages(live.issues, state), state)} onReveal={revealIn(state)} className="mt-1 list-disc space-y-0.5 pl-5 text-xs" />
+      ) : null}
       {p ? (
         <div className={`mt-3 ${live.stale ? "opacity-60" : ""}`}>
           <PredictionOverview prediction={p} intervals={live.interval?.components ?? null} intervalNote={intervalNote} combinedAt={steps} onStep={onStep} />

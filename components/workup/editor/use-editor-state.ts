@@ -38,9 +38,15 @@ export function useEditorState(initial: EditorState, library: LibraryOverrides, 
     return [...keys].filter((k) => k === prefix || k.startsWith(`${prefix}.`)).reduce((n, k) => n + visible(k).length, 0);
   }, [checked, server, visible]);
 
+  /** Every field key that shows a message now. */
+  const visibleKeys = useCallback(
+    () => [...new Set([...Object.keys(checked), ...Object.keys(server)])].filter((k) => visible(k).length > 0),
+    [checked, server, visible],
+  );
+
   return {
     state, input, checked, showAll, history,
-    apply, touch, visible, problemCount,
+    apply, touch, visible, visibleKeys, problemCount,
     undo: () => setHistory(undo),
     redo: () => setHistory(redo),
     replace: (next: EditorState) => { setHistory(reset(next)); setServer({}); },

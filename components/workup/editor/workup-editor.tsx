@@ -11,6 +11,7 @@ import { getWorkupAction } from "@/lib/workups/actions";
 import { type LibraryOverrides, resolveLibrary } from "@/lib/chem/library";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { ErrorSummary } from "@/components/ui/error-summary";
 import { createWorkupAction, updateWorkupAction } from "@/lib/workups/actions";
 import type { WorkupDetail } from "@/lib/workups/queries";
 import type { JsonValue, WorkupSnapshot } from "@/lib/workups/record";
@@ -19,6 +20,7 @@ import { browserStorage, clearDraft, loadDraft, saveDraft, type Draft } from "@/
 import { mergeSnapshots, same, type Choice, type MergeResult } from "@/lib/workups-client/merge";
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { saveInput } from "@/lib/workups-client/to-spec";
+import { wordedMessages } from "@/lib/workups-client/field-labels";
 import { useGroupValues } from "@/lib/workups-client/use-group-values";
 import { useLivePrediction } from "@/lib/workups-client/use-live-prediction";
 import { EditorContext, type EditorApi } from "./editor-context";
@@ -31,6 +33,7 @@ import { PredictionPanel } from "./prediction-panel";
 import { PredictionSheet, PredictionSummaryBar } from "./prediction-summary";
 import { ConflictPanel, type TheirVersion } from "./conflict-panel";
 import { ShortcutsHelp } from "./shortcuts-help";
+import { revealIn, summaryItems } from "./error-items";
 import { snapshotOfDetail, snapshotOfState } from "./snapshot";
 import { useEditorState } from "./use-editor-state";
 import { useLeaveGuard } from "./use-leave-guard";
@@ -90,16 +93,19 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   const [offeredDraft, setOfferedDraft] = useState<Draft | null>(null);
   const [announcement, setAnnouncement] = useState("");
   const [saving, startSaving] = useTransition();
+  const [attempt, setAttempt] = useState(0);
   const summaryRef = useRef<HTMLDivElement>(null);
   const dirty = JSON.stringify(input) !== baseline;
   useLeaveGuard(dirty && !saving);
   const names = Object.fromEntries(members.map((m) => [m.id, m.name]));
   const issueCount = Object.values(editor.checked).reduce((n, m) => n + m.length, 0);
 
-  const focusFirstProblem = () => requestAnimationFrame(() => {
-    const first = document.querySelector<HTMLElement>("[data-editor] [aria-invalid='true']");
-    (first ?? summaryRef.current)?.focus();
-  });
+  const messagesOf = (key: string) => wordedMessages(key, editor.visible(key), state);
+  // The error summary lists each field in error once per message, top to bottom as the form shows them.
+  const summary = attempt > 0 && editor.showAll
+    ? summaryItems(Object.fromEntries(editor.visibleKeys().map((k) => [k, editor.visible(k)])), state)
+    : [];
+  const focusFirstProblem = () => setAttempt((n) => n + 1);
 
   const save = () => {
     editor.revealAll();
@@ -213,7 +219,7 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
   };
 
   const api: EditorApi = {
-    state, apply: editor.apply, messages: editor.visible, problemCount: editor.problemCount, touch: editor.touch,
+    state, apply: editor.apply, messages: messagesOf, problemCount: editor.problemCount, touch: editor.touch,
     library: resolved, overrides: library, live,
   };
   return (
@@ -221,6 +227,8 @@ export function WorkupEditor({ workupId, baseVersion, initial, base, members, li
       <PredictionSummaryBar open={sheetOpen} onToggle={() => setSheetOpen((o) => !o)} />
       <div data-editor className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] xl:grid-cols-[minmax(0,1fr)_26rem]">
         <div role="form" aria-label={workupId ? "Edit workup" : "New workup"} className="min-w-0 space-y-5">
+          <ErrorSummary items={summary} attempt={attempt} onReveal={revealIn(state)}
+            title={`Not saved: ${summary.length} problem${summary.length === 1 ? "" : "s"} to fix`} />
           <Section title="Record" id="record"><HeaderFields members={members} /></Section>
           <Section title="Components" id="components">
             <div className="space-y-3">

@@ -3,6 +3,7 @@ import { useActionState } from "react";
 import { CopyField } from "@/components/ui/copy-field";
 import { Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { FieldErrorSummary } from "@/components/ui/error-summary";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { createApiTokenAction, revokeApiTokenAction } from "@/lib/auth/api-tokens/actions";
 
@@ -11,13 +12,14 @@ export function CreateApiTokenForm() {
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
     <div className="space-y-4">
+      <FieldErrorSummary errors={errors} attempt={state} title="Token not created: fix these first" fields={{ name: "Token name", expiresInDays: "Expires" }} />
       <form action={action} className="flex flex-wrap items-end gap-3">
         <div className="min-w-64 flex-1">
           <Field label="Token name" name="name" placeholder="e.g. plate-reader export script" maxLength={80} required errors={errors?.name} />
         </div>
         <div>
-          <label htmlFor="token-expiry" className="block text-sm font-medium text-stone-700">Expires</label>
-          <select id="token-expiry" name="expiresInDays" defaultValue="90" className={`${inputClass} mt-1 w-40`}>
+          <label htmlFor="field-expiresInDays" className="block text-sm font-medium text-stone-700">Expires</label>
+          <select id="field-expiresInDays" name="expiresInDays" defaultValue="90" className={`${inputClass} mt-1 w-40`}>
             <option value="7">after 7 days</option>
             <option value="30">after 30 days</option>
             <option value="90">after 90 days</option>

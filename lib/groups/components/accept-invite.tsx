@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useActionState, useEffect, useRef, useState, useTransition } from "react";
 import { Field, textField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { FieldErrorSummary } from "@/components/ui/error-summary";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { buttonClass } from "@/components/ui/button";
 import { joinWithAccountAction, joinWithNewAccountAction, type JoinedGroup } from "@/lib/groups/actions";
@@ -69,6 +70,8 @@ export function JoinWithNewAccount({ token }: { token: string }) {
       className="space-y-4"
     >
       {state && !state.ok && !errors ? <Notice tone="error">{state.message}</Notice> : null}
+      <FieldErrorSummary errors={errors} attempt={state} title="Not created: fix these first"
+        fields={{ name: "Your name", email: "Email", password: "Password", confirmPassword: "Password again" }} />
       {state?.ok ? (
         <Notice tone="success">
           Welcome to {state.data.groupName}. {signInFailed ? <a className="underline" href="/sign-in">Sign in</a> : "Signing you in…"}

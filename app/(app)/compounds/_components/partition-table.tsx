@@ -1,6 +1,7 @@
 import { Badge } from "@/components/ui/badge";
 import { formatDate, formatNumber } from "@/components/ui/format";
 import type { ObservationRow } from "@/lib/partition/queries";
+import { solventName } from "@/components/ui/solvent-name";
 
 /** The columns of a partition observation this table shows (the partition feature owns the full row). */
 export type PartitionRow = Pick<
@@ -31,7 +32,7 @@ export function PartitionTable({ observations }: { observations: PartitionRow[] 
         <tbody className="divide-y divide-stone-100">
           {observations.map((o) => (
             <tr key={o.id} className={o.excluded ? "text-stone-400 line-through" : ""}>
-              <td className="px-3 py-2">{o.solventKey}</td>
+              <td className="px-3 py-2">{solventName(o.solventKey)}</td>
               <td className="px-3 py-2 text-right tabular-nums">
                 {BOUND[o.bound]}{formatNumber(o.logK, 2)}{o.logKSe !== null ? ` ± ${formatNumber(o.logKSe, 2)}` : ""}
               </td>

@@ -3,6 +3,7 @@ import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, FieldErrors, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { ErrorSummary } from "@/components/ui/error-summary";
 import type { RegisterOutcome } from "@/lib/compounds/actions";
 import { type RegisterFormat } from "@/lib/compounds/schemas";
 import { RegisterReport } from "./register-report";
@@ -44,9 +45,14 @@ export function RegisterForm() {
     });
   }
 
+  const fieldProblems = [
+    ...(failure?.fields?.["text"] ?? []).map((m) => ({ targetId: source === "file" ? "structure-file" : "smiles-text", text: `${source === "file" ? "MOL or SD file" : "SMILES"}: ${m}` })),
+    ...(failure?.fields?.["tags"] ?? []).map((m) => ({ targetId: "field-tags", text: `Tags: ${m}` })),
+  ];
   const onlyDuplicates = outcome?.status === "rejected" && outcome.problems.every((p) => p.code.startsWith("duplicate_"));
   return (
     <div className="space-y-6">
+      <ErrorSummary items={fieldProblems} attempt={failure} title="Nothing registered: fix these first" />
       <form
         className="space-y-5 rounded-lg border border-stone-200 bg-white p-5 shadow-xs"
         onSubmit={(e) => {
@@ -79,7 +85,7 @@ export function RegisterForm() {
             <p className="text-xs text-stone-500">An SD file may hold many records; each record&apos;s title line (or a NAME data field) becomes its name.</p>
           </div>
         )}
-        <FieldErrors errors={failure?.fields?.["text"]} />
+        <FieldErrors id="structures-errors" errors={failure?.fields?.["text"]} />
         <Field label="Tags for every compound (optional)" name="tags" value={tags} onChange={(e) => setTags(e.target.value)} placeholder="e.g. amide coupling, series B" hint="Separate tags with commas." errors={failure?.fields?.["tags"]} />
         <label className="flex items-start gap-2 text-sm text-stone-700">
           <input type="checkbox" checked={skipDuplicates} onChange={(e) => setSkipDuplicates(e.target.checked)} className="mt-0.5" />
@@ -89,7 +95,7 @@ export function RegisterForm() {
           {pending ? "Checking and registering…" : "Register"}
         </Button>
       </form>
-      {failure && !failure.fields?.["text"] ? <Notice tone="error" title={failure.message} /> : null}
+      {failure && fieldProblems.length === 0 ? <Notice tone="error" title={failure.message} /> : null}
       {outcome ? <RegisterReport outcome={outcome} /> : null}
       {onlyDuplicates ? (
         <Button variant="secondary" disabled={pending} onClick={() => submit("skip")}>

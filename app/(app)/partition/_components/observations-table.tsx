@@ -3,6 +3,7 @@ import { Badge } from "@/components/ui/badge";
 import { formatDate } from "@/components/ui/format";
 import { ExclusionButton } from "@/lib/partition/components/exclusion-button";
 import { type ObservationRow } from "@/lib/partition/queries";
+import { solventName } from "@/components/ui/solvent-name";
 
 const BOUND = { value: "", lower: "≥ ", upper: "≤ " } as const;
 
@@ -26,7 +27,7 @@ export function ObservationsTable({ observations, compoundId, canExclude }: { ob
         <tbody className="divide-y divide-stone-100">
           {observations.map((o) => (
             <tr key={o.id} data-testid="observation-row" className={o.excluded ? "text-stone-400" : ""}>
-              <td className="px-3 py-2">{o.solventKey}</td>
+              <td className="px-3 py-2">{solventName(o.solventKey)}</td>
               <td className={`px-3 py-2 text-right tabular-nums ${o.excluded ? "line-through" : ""}`}>
                 {BOUND[o.bound]}{o.logK.toFixed(2)}{o.logKSe !== null ? ` ± ${o.logKSe.toFixed(2)}` : ""}
               </td>

@@ -9,6 +9,7 @@ import { formatDate, formatDateTime, formatNumber } from "@/components/ui/format
 import { getDb } from "@/lib/db/client";
 import { resolveLibrary } from "@/lib/chem/library";
 import { getWorkupDetail } from "@/lib/workups/queries";
+import { purityMethodWords } from "@/lib/workups/schemas";
 import { groupLibrary } from "@/lib/workups/library";
 import { listVersions } from "@/lib/workups/history";
 import { stepWords } from "@/lib/workups-client/describe";
@@ -92,7 +93,7 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
             {analysis ? <OutcomeResult analysis={analysis} /> : <p className="text-sm text-stone-600">{workup.outcome ? "Reported, but not compared with a prediction." : "No outcome reported yet."}</p>}
             {workup.outcome ? (
               <p className="mt-2 text-xs text-stone-500">
-                Isolated {formatNumber(workup.outcome.isolatedMassMg, 1)} mg{workup.outcome.purityPct !== null ? `, ${formatNumber(workup.outcome.purityPct, 1)} % pure` : ""} ({workup.outcome.purityMethod.replace("_", " ")})
+                Isolated {formatNumber(workup.outcome.isolatedMassMg, 1)} mg{workup.outcome.purityPct !== null ? `, ${formatNumber(workup.outcome.purityPct, 1)} % pure` : ""} ({purityMethodWords(workup.outcome.purityMethod)})
                 {workup.outcome.reportedBy ? `, reported by ${workup.outcome.reportedBy.name}` : ""}.
                 {workup.outcome.notes ? <span className="block italic">“{workup.outcome.notes}”</span> : null}
               </p>
