@@ -2,7 +2,20 @@
 // The distribution of deviations, and the mean deviation of each group of a factor with its n beside it
 // (workup-practice §6 view 3: "always show n per group").
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { type LegendItem } from "./legend";
 import { ABOVE_COLOR, BELOW_COLOR, MUTED_COLOR, PRINT_WIDTH } from "./palette";
+
+export const HISTOGRAM_LEGEND: LegendItem[] = [
+  { label: "Below the prediction", color: BELOW_COLOR, mark: "bar" },
+  { label: "Above the prediction", color: ABOVE_COLOR, mark: "bar" },
+  { label: "Bin straddles zero", color: MUTED_COLOR, mark: "bar" },
+];
+
+export const GROUP_LEGEND: LegendItem[] = [
+  { label: "Mean below the prediction", color: BELOW_COLOR, mark: "bar" },
+  { label: "Mean above the prediction", color: ABOVE_COLOR, mark: "bar" },
+  { label: "Fewer than three workups", color: MUTED_COLOR, mark: "bar" },
+];
 import { niceStep } from "./scale";
 
 export interface Bin {
@@ -14,7 +27,8 @@ export interface Bin {
 
 export function DeviationHistogram({ bins }: { bins: Bin[] }) {
   return (
-    <BarChart width={PRINT_WIDTH} height={300} data={bins} margin={{ top: 10, right: 20, bottom: 40, left: 10 }} barCategoryGap={1} accessibilityLayer>
+    <BarChart width={PRINT_WIDTH} height={300} data={bins} margin={{ top: 10, right: 20, bottom: 40, left: 10 }} barCategoryGap={1}
+      role="img" aria-label="Histogram of reported minus predicted recovery, in 5-point bins">
       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" vertical={false} />
       <XAxis dataKey="label" angle={-35} textAnchor="end" interval={0} height={50} tick={{ fontSize: 11 }}
         label={{ value: "Reported − predicted recovery (percentage points)", position: "insideBottom", offset: -30 }} />
@@ -47,7 +61,8 @@ export function GroupMeanChart({ groups }: { groups: GroupBar[] }) {
   const extent = 2 * step * Math.ceil(Math.max(10, ...data.map((d) => Math.abs(d.mean))) / (2 * step) + 0.05);
   const ticks = Array.from({ length: Math.round((2 * extent) / step) + 1 }, (_, i) => -extent + i * step);
   return (
-    <BarChart width={PRINT_WIDTH} height={Math.max(120, 34 * data.length + 60)} data={data} layout="vertical" margin={{ top: 10, right: 50, bottom: 25, left: 10 }} accessibilityLayer>
+    <BarChart width={PRINT_WIDTH} height={Math.max(120, 34 * data.length + 60)} data={data} layout="vertical" margin={{ top: 10, right: 50, bottom: 25, left: 10 }}
+      role="img" aria-label="Mean deviation of each group, in percentage points">
       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" horizontal={false} />
       <XAxis type="number" domain={[-extent, extent]} ticks={ticks} tickFormatter={(v: number) => v.toFixed(0)}
         label={{ value: "Mean deviation (percentage points)", position: "insideBottom", offset: -15 }} />

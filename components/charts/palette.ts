@@ -11,3 +11,13 @@ export const ABOVE_COLOR = "#0072B2";
 export const MUTED_COLOR = "#a8a29e";
 /** The width that fits an A4 page in portrait with 15 mm margins at 96 px per inch (180 mm ≈ 680 px). */
 export const PRINT_WIDTH = 680;
+
+/** The charts' background, on screen and in exported images. */
+export const CHART_BACKGROUND = "#ffffff";
+/** Legend text: the series colour is in the swatch beside it, never in the text (stone-800, 14.9:1 on white). */
+export const LEGEND_TEXT = "#292524";
+/** Axis labels and tick text drawn by the charts themselves (stone-600). */
+export const AXIS_TEXT = "#57534e";
+/** The reference lines: perfect agreement, and the ±10-point band. */
+export const IDENTITY_COLOR = "#57534e";
+export const BAND_COLOR = "#a8a29e";

@@ -2,7 +2,16 @@
 // The group's pooled log K as observations arrived: the estimate after each one with its 95 % interval as an error
 // bar, and the value predictions would use without group data (from log P or the structure) as a dashed reference.
 import { CartesianGrid, ComposedChart, ErrorBar, Line, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { type LegendItem } from "./legend";
 import { PRINT_WIDTH } from "./palette";
+
+/** The history chart's legend: the estimate with its interval, and the value used without group data. */
+export function pooledLegend(reference: { label: string } | undefined): LegendItem[] {
+  return [
+    { label: "Pooled log K with its 95 % interval", color: "#0072B2", mark: "dot" },
+    ...(reference ? [{ label: `Without group data (${reference.label})`, color: "#78716c", mark: "dash" as const }] : []),
+  ];
+}
 import { niceTicks } from "./scale";
 
 export interface PooledHistoryPoint {
@@ -27,7 +36,8 @@ export function PooledHistoryChart({ points, reference }: { points: PooledHistor
   const span = Math.max(last - first, 14 * DAY_MS);
   const domain: [number, number] = [first - span * 0.05 - (last === first ? 7 * DAY_MS : 0), last + span * 0.05 + (last === first ? 7 * DAY_MS : 0)];
   return (
-    <ComposedChart width={PRINT_WIDTH} height={260} data={data} margin={{ top: 16, right: 30, bottom: 30, left: 10 }} accessibilityLayer>
+    <ComposedChart width={PRINT_WIDTH} height={260} data={data} margin={{ top: 16, right: 30, bottom: 30, left: 10 }}
+      role="img" aria-label="Pooled log K after each observation, with its 95 % interval">
       <CartesianGrid strokeDasharray="3 3" stroke="#e7e5e4" />
       <XAxis type="number" dataKey="at" scale="time" domain={domain} tickCount={5} tickFormatter={(v: number) => dateFormat.format(new Date(v))}
         label={{ value: "Recorded", position: "insideBottom", offset: -18 }} />

@@ -8,7 +8,7 @@ import { PEOPLE } from "./people";
 /** Words of the schemas and the engine that must never reach a reader. */
 const INTERNAL_WORDS = /\b(as_expected|weight_only|adjust_ph|back_extract|remove_cosolvent|add_salt|hcl_1m|nh4cl_sat|purityPct|purityMethod|isolatedMassMg|amountMmol|volumeMl|targetPh|layerAssays|notebookUrl|baseVersion|P20\d\d)\b/;
 
-async function summaryLink(page: Page, text: string | RegExp) {
+function summaryLink(page: Page, text: string | RegExp) {
   return page.getByTestId("error-summary").getByRole("link", { name: text });
 }
 
@@ -37,14 +37,14 @@ test("the editor's summary names each field by label, step and unit, and its lin
   ]);
   expect(await summary.innerText()).not.toMatch(INTERNAL_WORDS);
 
-  await (await summaryLink(page, /Step 1 \(Wash\)/)).click();
+  await summaryLink(page, /Step 1 \(Wash\)/).click();
   const volume = step.getByRole("textbox", { name: "Volume per portion" });
   await expect(volume).toBeFocused();
   await expect(volume).toHaveAttribute("aria-invalid", "true");
 
-  await (await summaryLink(page, "Give the workup a title")).click();
+  await summaryLink(page, "Give the workup a title").click();
   await expect(page.getByLabel("Title")).toBeFocused();
-  await (await summaryLink(page, /Notebook entry address/)).click();
+  await summaryLink(page, /Notebook entry address/).click();
   const address = page.getByLabel("Notebook entry address (URL)");
   await expect(address).toBeFocused();
   // What was typed is still there, the bad address included, to be corrected rather than retyped.

@@ -101,27 +101,62 @@ test.describe.serial("review page", () => {
     const parity = section(page, "Predicted and reported recovery");
     await expect(points(page)).toHaveCount(4);
 
-    const [csv] = await Promise.all([page.waitForEvent("download"), parity.getByRole("button", { name: "CSV" }).click()]);
+    // Each chart is a named figure with its summary in words, never an unnamed "application".
+    await expect(page.locator("[role=application]")).toHaveCount(0);
+    const figure = page.getByRole("figure", { name: "Predicted and reported recovery" });
+    await expect(figure).toHaveAccessibleDescription(/^4 workups: \d within 10 points of the prediction/);
+    await expect(page.getByRole("figure", { name: "Spread of deviations" })).toHaveAccessibleDescription(/^\d+ workups?, from /);
+    const legend = parity.getByTestId("chart-legend").getByRole("listitem");
+    await expect(legend).toContainText(["Dichloromethane / water", "Ethyl acetate / water", "Perfect agreement", "±10 points"]);
+    // Legend text is dark on white (the colour is in the swatch), 4.5:1 or better.
+    for (const color of await legend.evaluateAll((items) => items.map((i) => getComputedStyle(i).color))) expect(color).toBe("rgb(41, 37, 36)");
+
+    // One export menu per chart.
+    const exportFrom = async (view: typeof parity, item: string) => {
+      await view.getByTestId("export-menu").locator("summary").click();
+      const [download] = await Promise.all([page.waitForEvent("download"), view.getByRole("button", { name: item }).click()]);
+      return download;
+    };
+    await expect(page.getByTestId("export-menu")).toHaveCount(await page.locator("section[data-view]").count());
+    const csv = await exportFrom(parity, "Data (CSV)");
     expect(csv.suggestedFilename()).toBe("parity.csv");
     const lines = fs.readFileSync(await csv.path(), "utf8").trim().split("\r\n");
     expect(lines[0]).toBe("workup_id,title,performed_on,solvent_system,predicted_pct,interval_low_pct,interval_high_pct,reported_pct");
     expect(lines).toHaveLength(5);
 
-    const [svg] = await Promise.all([page.waitForEvent("download"), parity.getByRole("button", { name: "SVG" }).click()]);
+    const svg = await exportFrom(parity, "Image with legend (SVG)");
     expect(svg.suggestedFilename()).toBe("parity.svg");
     const markup = fs.readFileSync(await svg.path(), "utf8");
     expect(markup).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     expect(markup).toContain("Predicted recovery (%)");
+    // The legend is inside the image, and no entry runs past its right edge.
+    const width = Number(/^<svg[^>]* width="(\d+)"/.exec(markup)?.[1]);
+    const legendMarkup = /<g data-legend="">(.*?)<\/g>/.exec(markup)?.[1] ?? "";
+    for (const label of ["Dichloromethane / water", "Ethyl acetate / water", "Perfect agreement", "±10 points"]) expect(legendMarkup).toContain(`>${label}</text>`);
+    const texts = await page.evaluate((m) => {
+      const doc = new DOMParser().parseFromString(m, "image/svg+xml");
+      const host = document.body.appendChild(document.createElement("div"));
+      host.appendChild(document.importNode(doc.documentElement, true));
+      const right = [...host.querySelectorAll("g[data-legend] text")].map((t) => (t as SVGTextElement).getBBox()).map((b) => b.x + b.width);
+      host.remove();
+      return right;
+    }, markup);
+    expect(texts.length).toBe(4);
+    for (const right of texts) expect(right).toBeLessThanOrEqual(width);
 
     const histogram = section(page, "Spread of deviations");
-    const [png] = await Promise.all([page.waitForEvent("download"), histogram.getByRole("button", { name: "PNG" }).click()]);
+    const png = await exportFrom(histogram, "Image with legend (PNG)");
     expect(png.suggestedFilename()).toBe("deviation-histogram.png");
-    expect(fs.readFileSync(await png.path()).subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+    const pngBytes = fs.readFileSync(await png.path());
+    expect(pngBytes.subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+    // Twice the chart's height plus the legend's row: the legend was not cut off.
+    const chartHeight = await histogram.locator(".recharts-wrapper > svg.recharts-surface").evaluate((e) => e.getBoundingClientRect().height);
+    expect(pngBytes.readUInt32BE(20)).toBeGreaterThanOrEqual(2 * (chartHeight + 20));
 
     await page.emulateMedia({ media: "print" });
     await expect(page.getByRole("navigation", { name: "Main" })).toBeHidden();
     await expect(page.getByRole("form", { name: "Review filters" })).toBeHidden();
-    await expect(parity.getByRole("button", { name: "CSV" })).toBeHidden();
+    await expect(parity.getByTestId("export-menu")).toBeHidden();
     await expect(parity.locator(".recharts-wrapper > svg.recharts-surface")).toBeVisible();
     const pdf = await page.pdf({ format: "A4", printBackground: true });
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");

@@ -1,7 +1,8 @@
 "use client";
 import { ChartFrame } from "@/components/charts/chart-frame";
 import { fileSlug } from "@/components/charts/csv";
-import { PooledHistoryChart } from "@/components/charts/pooled-history-chart";
+import { PooledHistoryChart, pooledLegend } from "@/components/charts/pooled-history-chart";
+import { pooledSummary } from "@/components/charts/summaries";
 import type { SolventPartition } from "@/lib/partition/queries";
 
 function summary(s: SolventPartition): string {
@@ -22,14 +23,13 @@ export function SolventHistory({ compoundName, solvent }: { compoundName: string
     ["recorded", "observation_id", "pooled_log_k", "low_95", "high_95", "n"],
     ...solvent.history.map((h) => [new Date(h.at).toISOString(), h.observationId, h.estimate, h.low, h.high, h.n]),
   ];
+  const points = solvent.history.map((h) => ({ at: new Date(h.at).getTime(), estimate: h.estimate, low: h.low, high: h.high, n: h.n }));
+  const reference = solvent.structureEstimate ? { value: solvent.structureEstimate.value, label: solvent.structureEstimate.label } : undefined;
   return (
     <ChartFrame title={`${solvent.solventName} / water`} description={summary(solvent)} csv={csv} fileBase={`pooled-${fileSlug(compoundName)}-${solvent.solventKey}`}
-      image={solvent.history.length > 0}>
+      image={solvent.history.length > 0} summary={pooledSummary(points)} legend={pooledLegend(reference)}>
       {solvent.history.length > 0 ? (
-        <PooledHistoryChart
-          points={solvent.history.map((h) => ({ at: new Date(h.at).getTime(), estimate: h.estimate, low: h.low, high: h.high, n: h.n }))}
-          reference={solvent.structureEstimate ? { value: solvent.structureEstimate.value, label: solvent.structureEstimate.label } : undefined}
-        />
+        <PooledHistoryChart points={points} reference={reference} />
       ) : (
         <p className="text-sm text-stone-500">Only bounds so far: no value to plot.</p>
       )}

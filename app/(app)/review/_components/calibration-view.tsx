@@ -2,6 +2,7 @@
 // Calibration of the predictive intervals (workup-practice §6 view 11): at each nominal level, the share of the
 // group's outcomes that fell inside the central interval. Points on the diagonal: intervals mean what they say.
 import { ChartFrame } from "@/components/charts/chart-frame";
+import { calibrationSummary } from "@/components/charts/summaries";
 import { type CalibrationPoint } from "@/lib/review/aggregate";
 
 const SIZE = 220;
@@ -14,10 +15,12 @@ export function CalibrationView({ levels }: { levels: CalibrationPoint[] }) {
   return (
     <ChartFrame title="Do the intervals hold?" className="review-view review-break" fileBase="calibration"
       description="For each interval level, the share of reported outcomes that fell inside the predicted interval. Near the diagonal, the intervals can be trusted; far below it, the model is over-confident (or many workups really failed); above it, it is too cautious."
-      csv={[["level", "outcomes", "inside", "share_inside"], ...levels.map((l) => [l.level, l.n, l.inside, l.share])]} image={shown.length > 0}>
+      csv={[["level", "outcomes", "inside", "share_inside"], ...levels.map((l) => [l.level, l.n, l.inside, l.share])]} image={shown.length > 0}
+      summary={calibrationSummary(levels)}
+      legend={[{ label: "Share inside the interval", color: "#0f766e", mark: "dot" }, { label: "Intervals that mean what they say", color: "#78716c", mark: "dash" }]}>
       {shown.length === 0 ? <p className="text-sm text-stone-500">No outcome in this selection was judged against a predictive distribution yet.</p> : (
         <div className="flex flex-wrap items-start gap-6">
-          <svg viewBox={`0 0 ${SIZE} ${SIZE}`} width={SIZE} height={SIZE} role="img" aria-label="Share of outcomes inside the interval against the interval level" data-testid="calibration-plot">
+          <svg viewBox={`0 0 ${SIZE} ${SIZE}`} width={SIZE} height={SIZE} role="img" aria-label="Share of outcomes inside the interval against the interval level" data-testid="calibration-plot" data-chart-surface>
             <rect x={at(0)} y={SIZE - at(1)} width={at(1) - at(0)} height={at(1) - at(0)} fill="none" stroke="#d6d3d1" />
             <line x1={at(0)} y1={SIZE - at(0)} x2={at(1)} y2={SIZE - at(1)} stroke="#78716c" strokeDasharray="4 3" />
             {[0, 0.5, 1].map((t) => (

@@ -4,8 +4,9 @@
 import { gapShareWords } from "@/lib/workups/causes";
 import Link from "next/link";
 import { ChartFrame } from "@/components/charts/chart-frame";
-import { DeviationHistogram, GroupMeanChart, type Bin } from "@/components/charts/bar-charts";
-import { ParityChart, type ParityPoint } from "@/components/charts/parity-chart";
+import { DeviationHistogram, GroupMeanChart, GROUP_LEGEND, HISTOGRAM_LEGEND, type Bin } from "@/components/charts/bar-charts";
+import { ParityChart, parityLegend, type ParityPoint } from "@/components/charts/parity-chart";
+import { groupSummary, histogramSummary, paritySummary } from "@/components/charts/summaries";
 import { FEW, type GroupStat, type ReviewRow } from "@/lib/review/aggregate";
 
 export interface ReviewViewsProps {
@@ -21,6 +22,15 @@ export interface ReviewViewsProps {
 
 const fmt = (v: number | null, digits = 1) => (v === null ? "" : v.toFixed(digits));
 const gapShare = (share: number) => gapShareWords(share);
+
+/** What the danger flags are about, for the flagged list (the engine names them by code). */
+const DANGER_WORDS: Record<string, string> = {
+  F1: "basic wash too close to the product's acidic pKa", F2: "acidic wash too close to the product's basic pKa", F3: "extraction at the wrong pH",
+  F5: "too few extractions", F6: "over-washing", F7: "water-miscible reaction solvent not removed", F11: "layer order may be misidentified",
+  F12: "layer with product sent to waste", F13: "CO₂ foaming or ejection", F14: "volatile product lost on concentration",
+  F29: "oxidant not destroyed before concentration",
+};
+const dangerWords = (codes: string[]) => codes.map((c) => DANGER_WORDS[c] ?? "a danger the engine flagged").join("; ");
 
 function GroupTable({ stats, factor }: { stats: GroupStat[]; factor: string }) {
   return (
@@ -57,7 +67,8 @@ function statsCsv(factor: string, stats: GroupStat[]) {
 
 function GroupView({ title, factor, stats, description, className = "" }: { title: string; factor: string; stats: GroupStat[]; description: string; className?: string }) {
   return (
-    <ChartFrame title={title} description={description} csv={statsCsv(factor, stats)} className={`review-view ${className}`} image={stats.length > 0}>
+    <ChartFrame title={title} description={description} csv={statsCsv(factor, stats)} className={`review-view ${className}`} image={stats.length > 0}
+      legend={GROUP_LEGEND} summary={groupSummary(stats.map((s) => ({ label: s.label, mean: s.mean, n: s.n, few: s.n < FEW })), "groups")}>
       {stats.length > 0 ? (
         <>
           <GroupMeanChart groups={stats.map((s) => ({ label: s.label, mean: s.mean, n: s.n, few: s.n < FEW }))} />
@@ -77,7 +88,7 @@ export function ReviewViews(props: ReviewViewsProps) {
     <div className="space-y-6">
       <ChartFrame title="Predicted and reported recovery" className="review-view"
         description="One point per workup; the horizontal bar is the predicted 95 % interval, the solid line is perfect agreement and the dashed lines ±10 points. Points below the band recovered less than predicted. Each point opens its record."
-        csv={parityCsv} fileBase="parity">
+        csv={parityCsv} fileBase="parity" image={points.length > 0} legend={parityLegend(points, solventLabel)} summary={paritySummary(points)}>
         {points.length > 0 ? <ParityChart points={points} seriesLabel={solventLabel} /> : <p className="text-sm text-stone-500">No workups with both a prediction and a reported recovery in this selection.</p>}
         {points.length > 0 ? (
           <details className="mt-2 text-sm print:hidden">
@@ -93,7 +104,8 @@ export function ReviewViews(props: ReviewViewsProps) {
 
       <ChartFrame title="Spread of deviations" className="review-view review-break"
         description="Reported minus predicted recovery, in 5-point bins. A cluster left of zero is a systematic loss the model does not see."
-        csv={[["from_points", "to_points", "workups"], ...bins.map((b) => [b.from, b.to, b.count])]} fileBase="deviation-histogram" image={bins.length > 0}>
+        csv={[["from_points", "to_points", "workups"], ...bins.map((b) => [b.from, b.to, b.count])]} fileBase="deviation-histogram" image={bins.length > 0}
+        legend={HISTOGRAM_LEGEND} summary={histogramSummary(bins)}>
         {bins.length > 0 ? <DeviationHistogram bins={bins} /> : <p className="text-sm text-stone-500">No deviations to show.</p>}
       </ChartFrame>
 
@@ -119,7 +131,7 @@ export function ReviewViews(props: ReviewViewsProps) {
                   <span className="ml-2 text-stone-500">{r.performedOn} · {r.solventSystem ? solventLabel(r.solventSystem) : "—"}</span>
                   <p className="text-stone-700">
                     {r.deviationPct !== null ? `Reported ${fmt(r.reported, 0)} % against ${fmt(r.predicted, 0)} % predicted (${r.deviationPct > 0 ? "+" : ""}${fmt(r.deviationPct)} points)` : "No reported recovery"}
-                    {r.dangerFlags.length > 0 ? `; danger flags ${r.dangerFlags.join(", ")}` : ""}
+                    {r.dangerFlags.length > 0 ? `; danger: ${dangerWords(r.dangerFlags)}` : ""}
                   </p>
                   {r.causes.length > 0 ? (
                     <p className="text-xs text-stone-500">Likely causes: {r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; ")}</p>
