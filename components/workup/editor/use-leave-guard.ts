@@ -16,6 +16,8 @@ export function useLeaveGuard(active: boolean): void {
       if (e.defaultPrevented || e.button !== 0 || e.metaKey || e.ctrlKey || e.shiftKey || e.altKey) return;
       const link = e.target instanceof Element ? e.target.closest("a[href]") : null;
       if (!link || link.getAttribute("target") === "_blank" || link.hasAttribute("download")) return;
+      // A link to a place on this page (the error summary's links to fields) does not leave it.
+      if (link.getAttribute("href")?.startsWith("#")) return;
       if (!window.confirm(LEAVE_MESSAGE)) {
         e.preventDefault();
         e.stopPropagation();
