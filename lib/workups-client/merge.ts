@@ -9,7 +9,17 @@
  */
 import { type JsonObject, type JsonValue, type SnapshotHeader, type WorkupSnapshot } from "@/lib/workups/record";
 import { withStepIds } from "@/lib/workups/step-ids";
+import { COMMON_OPERATION_FIELDS, listOperationTypes } from "@/lib/chem/operation-types";
 import { fieldWords } from "./field-words";
+
+/** Operation types and their fields as the editor names them ("Adjust pH", "Volume per portion"), never the keys. */
+const STEP_TYPES = new Map(listOperationTypes().map((t) => [t.type as string, t]));
+
+function stepFieldWords(type: unknown, field: string): string {
+  const meta = typeof type === "string" ? STEP_TYPES.get(type) : undefined;
+  const own = [...(meta?.fields ?? []), ...COMMON_OPERATION_FIELDS].find((f) => f.name === field);
+  return own?.label ?? fieldWords(field);
+}
 
 /** Where a change or conflict is. `field: null` on an item means the item as a whole (added, removed, retyped). */
 export type MergePath =
@@ -177,9 +187,9 @@ class Merger {
 }
 
 const describeStep = (op: Item | undefined, position: number): string => {
-  const type = typeof op?.["type"] === "string" ? op["type"] : "step";
+  const type = typeof op?.["type"] === "string" ? (STEP_TYPES.get(op["type"])?.label ?? fieldWords(op["type"])) : "step";
   const label = typeof op?.["label"] === "string" && op["label"].trim() ? `, ${op["label"].trim()}` : "";
-  return `step ${position} (${type}${label})`;
+  return `Step ${position} (${type}${label})`;
 };
 
 export function mergeSnapshots(base: WorkupSnapshot, theirs: WorkupSnapshot, mine: WorkupSnapshot, choices: Readonly<Record<string, Choice>> = {}): MergeResult {
@@ -196,7 +206,7 @@ export function mergeSnapshots(base: WorkupSnapshot, theirs: WorkupSnapshot, min
     const c = mc.items.get(key) ?? tc.items.get(key) ?? bc.items.get(key);
     return typeof c?.["name"] === "string" && c["name"] ? c["name"] : key;
   };
-  const components = merger.items("component", bc.items, tc.items, mc.items, (key, field) => `component ${componentName(key)}${field ? `: ${field}` : ""}`);
+  const components = merger.items("component", bc.items, tc.items, mc.items, (key, field) => `Component ${componentName(key)}${field ? `: ${fieldWords(field)}` : ""}`);
   const componentOrder = merger.order("components", bc.order, tc.order, mc.order, components);
 
   const [bs, ts, ms] = [stepItems(base), stepItems(theirs), stepItems(mine)];
@@ -207,7 +217,8 @@ export function mergeSnapshots(base: WorkupSnapshot, theirs: WorkupSnapshot, min
     }
     return id;
   };
-  const steps = merger.items("step", bs.items, ts.items, ms.items, (id, field) => `${stepName(id)}${field ? `: ${field}` : ""}`);
+  const stepType = (id: string) => (ms.items.get(id) ?? ts.items.get(id) ?? bs.items.get(id))?.["type"];
+  const steps = merger.items("step", bs.items, ts.items, ms.items, (id, field) => `${stepName(id)}${field ? `: ${stepFieldWords(stepType(id), field)}` : ""}`);
   const stepOrder = merger.order("steps", bs.order, ts.order, ms.order, steps);
 
   const spec: JsonObject = { ...settings };

@@ -33,8 +33,8 @@ describe("merging a stale save", () => {
     expect(ops(r.merged)[1]!.volume).toEqual({ value: 30, unit: "mL" });
     expect(ops(r.merged)[2]!.portions).toBe(2);
     expect(r.conflicts).toEqual([]);
-    expect(r.theirChanges.map((c) => c.label)).toEqual(["step 2 (wash, sat. NaHCO₃ wash): volume"]);
-    expect(r.myChanges.map((c) => c.label)).toEqual(["step 3 (wash): portions"]);
+    expect(r.theirChanges.map((c) => c.label)).toEqual(["Step 2 (Wash, sat. NaHCO₃ wash): Volume per portion"]);
+    expect(r.myChanges.map((c) => c.label)).toEqual(["Step 3 (Wash): Portions"]);
   });
 
   it("lists the colleague's changes against the version the form was opened from, not against their own version", () => {
@@ -54,7 +54,7 @@ describe("merging a stale save", () => {
     const r = mergeSnapshots(base, theirs, mine);
     expect(r.conflicts).toHaveLength(1);
     const conflict = r.conflicts[0]!;
-    expect(conflict).toMatchObject({ label: "step 2 (wash, sat. NaHCO₃ wash): volume", base: { value: 35, unit: "mL" }, mine: { value: 40, unit: "mL" }, theirs: { value: 30, unit: "mL" } });
+    expect(conflict).toMatchObject({ label: "Step 2 (Wash, sat. NaHCO₃ wash): Volume per portion", base: { value: 35, unit: "mL" }, mine: { value: 40, unit: "mL" }, theirs: { value: 30, unit: "mL" } });
     expect(ops(r.merged)[1]!.volume).toEqual({ value: 40, unit: "mL" });
     const chosen = mergeSnapshots(base, theirs, mine, { [conflict.id]: "theirs" });
     expect(ops(chosen.merged)[1]!.volume).toEqual({ value: 30, unit: "mL" });
@@ -79,7 +79,7 @@ describe("merging a stale save", () => {
     const mine = clone(base);
     ops(mine).splice(0, 1);
     const r = mergeSnapshots(base, theirs, mine);
-    expect(r.conflicts.map((c) => c.label)).toEqual(["step 1 (wash)"]);
+    expect(r.conflicts.map((c) => c.label)).toEqual(["Step 1 (Wash)"]);
     expect(ops(r.merged).map((o) => o.id)).toEqual(["s2", "s3"]);
     const kept = mergeSnapshots(base, theirs, mine, { [r.conflicts[0]!.id]: "theirs" });
     expect(ops(kept.merged).map((o) => o.id)).toEqual(["s1", "s2", "s3"]);
