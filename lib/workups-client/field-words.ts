@@ -1,3 +1,12 @@
+import { listOperationTypes } from "@/lib/chem/operation-types";
+
+const STEP_TYPE_WORDS = new Map(listOperationTypes().map((t) => [t.type as string, t.label]));
+
+/** An operation type as the editor names it ("Adjust pH", "Back-extract"), never its key. */
+export function stepTypeWords(type: string): string {
+  return STEP_TYPE_WORDS.get(type) ?? type.replace(/_/g, " ");
+}
+
 /** How the record's fields are named on screen (history, merge panel): the form's labels, never the stored keys. */
 const FIELD_WORDS: Record<string, string> = {
   title: "Title", performedOn: "Date", chemistId: "Chemist", notebookRef: "Notebook reference", notebookUrl: "Notebook entry address", scaleMmol: "Scale (mmol)",

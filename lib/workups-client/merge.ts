@@ -10,7 +10,7 @@
 import { type JsonObject, type JsonValue, type SnapshotHeader, type WorkupSnapshot } from "@/lib/workups/record";
 import { withStepIds } from "@/lib/workups/step-ids";
 import { COMMON_OPERATION_FIELDS, listOperationTypes } from "@/lib/chem/operation-types";
-import { fieldWords } from "./field-words";
+import { fieldWords, stepTypeWords } from "./field-words";
 
 /** Operation types and their fields as the editor names them ("Adjust pH", "Volume per portion"), never the keys. */
 const STEP_TYPES = new Map(listOperationTypes().map((t) => [t.type as string, t]));
@@ -187,7 +187,7 @@ class Merger {
 }
 
 const describeStep = (op: Item | undefined, position: number): string => {
-  const type = typeof op?.["type"] === "string" ? (STEP_TYPES.get(op["type"])?.label ?? fieldWords(op["type"])) : "step";
+  const type = typeof op?.["type"] === "string" ? stepTypeWords(op["type"]) : "step";
   const label = typeof op?.["label"] === "string" && op["label"].trim() ? `, ${op["label"].trim()}` : "";
   return `Step ${position} (${type}${label})`;
 };

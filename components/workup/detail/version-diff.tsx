@@ -2,7 +2,7 @@
 // header fields, components and steps, each old → new.
 import type { FieldChange, VersionDiff } from "@/lib/workups/diff";
 import type { JsonValue } from "@/lib/workups/record";
-import { fieldWords } from "@/lib/workups-client/field-words";
+import { fieldWords, stepTypeWords } from "@/lib/workups-client/field-words";
 
 export function jsonText(v: JsonValue | undefined): string {
   if (v === null || v === undefined) return "—";
@@ -50,11 +50,11 @@ export function VersionDiffView({ diff, names }: { diff: VersionDiff; names?: Re
         <div>
           <p className="font-medium">Steps</p>
           <ul className="ml-4 list-disc space-y-0.5">
-            {ops.added.map((o) => <li key={`a-${o.step}`} className="text-emerald-800">Added step {o.step}: {o.label ?? o.type.replace(/_/g, " ")}</li>)}
-            {ops.removed.map((o) => <li key={`r-${o.step}`} className="text-red-800">Removed step {o.step}: {o.label ?? o.type.replace(/_/g, " ")}</li>)}
+            {ops.added.map((o) => <li key={`a-${o.step}`} className="text-emerald-800">Added step {o.step}: {o.label ?? stepTypeWords(o.type)}</li>)}
+            {ops.removed.map((o) => <li key={`r-${o.step}`} className="text-red-800">Removed step {o.step}: {o.label ?? stepTypeWords(o.type)}</li>)}
             {ops.changed.map((o) => (
               <li key={`c-${o.fromStep}-${o.toStep}`}>
-                Step {o.fromStep === o.toStep ? o.toStep : `${o.fromStep} → ${o.toStep}`} ({o.type.replace(/_/g, " ")})<Changes changes={o.changes} />
+                Step {o.fromStep === o.toStep ? o.toStep : `${o.fromStep} → ${o.toStep}`} ({stepTypeWords(o.type)})<Changes changes={o.changes} />
               </li>
             ))}
           </ul>

@@ -7,6 +7,10 @@ import { compareFormOrder, fieldLabel, formOrder, inFormWords, summaryLine, word
 import { type EditorState } from "@/lib/workups-client/editor-types";
 import { saveInput } from "@/lib/workups-client/to-spec";
 import { checkSave } from "@/lib/workups-client/validate";
+import { stepTypeWords } from "@/lib/workups-client/field-words";
+import { mergeSnapshots } from "@/lib/workups-client/merge";
+import { OPERATION_TYPES } from "@/lib/workups-client/operation-forms";
+import { PURITY_METHODS, purityMethodWords } from "@/lib/workups/schemas";
 
 function brokenState(): EditorState {
   const s = emptyEditorState("2026-11-02", "");
@@ -64,5 +68,31 @@ describe("messages in the form's words", () => {
     const wash = s.operations[0]!;
     const inLitres = { ...s, operations: [{ ...wash, values: { ...wash.values, "volume:unit": "L" } }, ...s.operations.slice(1)] };
     expect(wordedMessages(`op:${wash.id}.volume`, ["volume per portion must be > 0"], inLitres)).toEqual(["Volume per portion must be > 0 L"]);
+  });
+});
+
+describe("enum values reach the screen as words", () => {
+  const INTERNAL = /_|\b[a-z]{2,}[A-Z]/;
+
+  it("every operation type, purity method and step field the merge panel or history can name", () => {
+    for (const t of OPERATION_TYPES) {
+      expect(stepTypeWords(t.type)).not.toMatch(INTERNAL);
+      expect(stepTypeWords(t.type)).toBe(t.label);
+    }
+    for (const m of PURITY_METHODS) expect(purityMethodWords(m)).not.toMatch(INTERNAL);
+    // A method stored by a later version is still shown without its underscores.
+    expect(purityMethodWords("karl_fischer")).toBe("karl fischer");
+  });
+
+  it("the merge panel labels steps and their fields with the editor's words", () => {
+    const step = (volume: number) => ({ id: "s1", type: "adjust_ph", reagent: "hcl_1m", volume: { value: volume, unit: "mL" }, targetPh: 2 });
+    const snap = (volume: number, targetPh: number) => ({
+      header: { title: "t", performedOn: "2026-11-02", chemistId: null, notebookRef: "", notebookUrl: "", scaleMmol: null, expectedProductMmol: null, assayedProductMmol: null },
+      spec: { components: [], mixture: { solvents: [] }, operations: [{ ...step(volume), targetPh }] },
+      links: [],
+    });
+    const r = mergeSnapshots(snap(10, 2), snap(12, 2), snap(10, 3));
+    expect(r.theirChanges.map((c) => c.label)).toEqual(["Step 1 (Adjust pH): Volume"]);
+    expect(r.myChanges.map((c) => c.label)).toEqual(["Step 1 (Adjust pH): Target pH"]);
   });
 });
