@@ -6,13 +6,16 @@
  *  2. the same with a 1,000-draw uncertainty interval (target ≤ 10 ms);
  *  3. re-predicting 100,000 work-ups on two worker threads (target ≤ 5 s on 2 cores): recoveries only on a
  *     compiled work-up per worker (each new work-up loaded into it), and with every step, flag and caution.
- * The machine is shared: the load average (1, 5, 15 min) is printed before and after the figures.
+ * The machine is shared: the load average (1, 5, 15 min) is printed before and after the figures, and so are
+ * charge-balance evaluations per prediction and per draw, which do not depend on the load.
+ * `--no-bulk` skips part 3 (the two-worker run, which occupies both cores for a while).
  * Each figure is the median of several runs; the last line printed is one JSON object with every number.
  */
 import { availableParallelism, loadavg } from "node:os";
 import { pathToFileURL } from "node:url";
 import { Worker, isMainThread, parentPort, workerData } from "node:worker_threads";
 import { compileWorkup } from "../lib/chem/compiled";
+import { solverStats } from "../lib/chem/equilibrium";
 import { predictWorkup, simulateWorkup } from "../lib/chem/predict";
 import { workupInputSchema, type WorkupInput, type WorkupInputRaw } from "../lib/chem/schema";
 import { propagateUncertainty } from "../lib/chem/uncertainty";
@@ -143,6 +146,26 @@ async function main(): Promise<void> {
   const mcMs = timePerCall(() => propagateUncertainty(parsed, simulateWorkup, { draws: 1000, seed: 1 }), 5, runs) / 1000;
   console.log(`with 1,000-draw uncertainty: ${mcMs.toFixed(2)} ms (median of ${runs} runs; target ≤ 10 ms)`);
 
+  const countEvaluations = (fn: () => void): number => {
+    const before = solverStats.evaluations;
+    fn();
+    return solverStats.evaluations - before;
+  };
+  const evalsPerPrediction = countEvaluations(() => simulateWorkup(fresh[1] as WorkupInput, { steps: false, flags: false }));
+  const evalsPerDraw = countEvaluations(() => propagateUncertainty(parsed, simulateWorkup, { draws: 1000, seed: 1 })) / 1001;
+  console.log(`charge-balance evaluations: ${evalsPerPrediction} per prediction (new input), ${evalsPerDraw.toFixed(1)} per draw of the uncertainty run`);
+  if (process.argv.includes("--no-bulk")) {
+    console.log(loadLine());
+    console.log(JSON.stringify({
+      bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
+      predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
+      predictionFullUs: Number(fullUs.toFixed(2)), predictionValidatedUs: Number(validatedUs.toFixed(2)),
+      uncertainty1000Ms: Number(mcMs.toFixed(3)), evaluationsPerPrediction: evalsPerPrediction, evaluationsPerDraw: Number(evalsPerDraw.toFixed(2)),
+      cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))),
+    }));
+    return;
+  }
+
   const workers = 2;
   const bulk = async (detail: boolean) => {
     const runsOf: Array<{ seconds: number; secondsWithStartup: number }> = [];
@@ -159,7 +182,7 @@ async function main(): Promise<void> {
     bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
     predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
     predictionFullUs: Number(fullUs.toFixed(2)), predictionValidatedUs: Number(validatedUs.toFixed(2)),
-    uncertainty1000Ms: Number(mcMs.toFixed(3)),
+    uncertainty1000Ms: Number(mcMs.toFixed(3)), evaluationsPerPrediction: evalsPerPrediction, evaluationsPerDraw: Number(evalsPerDraw.toFixed(2)),
     bulk100kFastSeconds: Number(bulkFast.seconds.toFixed(3)), bulk100kFullSeconds: Number(bulkFull.seconds.toFixed(3)),
     bulk100kFullWithStartupSeconds: Number(bulkFull.withStartup.toFixed(3)), workers, cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))),
   }));

@@ -107,7 +107,7 @@ function rootAt(balance: SlopedChargeBalance, pH: number, h: number): number {
 }
 
 /** 10^−(x + step) from h = 10^−x. */
-function shiftH(h: number, x: number, step: number): number {
+export function shiftH(h: number, x: number, step: number): number {
   const u = -step * Math.LN10;
   return Math.abs(u) <= 0.35 ? h * expSmall(u) : tenToMinus(x + step);
 }
@@ -117,16 +117,18 @@ const MAX_OPEN_STEP = 3;
 
 /** Newton steps shorter than this (pH units) end the search; the step taken leaves an error of order its square
  * (about 1e-10, below solvePh's tolerance of 1e-9). */
-const NEWTON_STEP_TOLERANCE = 1e-5;
+export const NEWTON_STEP_TOLERANCE = 1e-5;
 
 /**
  * pH where the residual crosses zero, by Newton steps on the analytic slope kept inside a shrinking bracket,
  * with a bisection whenever a step would leave the bracket or fails to halve the step before it (the rule of
  * "rtsafe", Press et al., Numerical Recipes, §9.4); clamped to [−2, 16] as solvePh is. Started within a few
  * tenths of the root it converges quadratically: about four evaluations to a pH good to ~1e-10. `guessH`, if
- * given, is 10^−guess.
+ * given, is 10^−guess. A looser `stepTolerance` stops earlier, for a caller that refines the root itself; a caller
+ * that has just evaluated the balance at the guess passes `residualAtGuess` (the slope is read from the balance).
  */
-export function solvePhWithSlope(balance: SlopedChargeBalance, guess = NaN, guessH = NaN): number {
+export function solvePhWithSlope(balance: SlopedChargeBalance, guess = NaN, guessH = NaN, stepTolerance = NEWTON_STEP_TOLERANCE,
+  residualAtGuess = NaN): number {
   let lo = PH_MIN, hi = PH_MAX;
   let loChecked = false, hiChecked = false;
   const usable = Number.isFinite(guess) && guess > PH_MIN && guess < PH_MAX;
@@ -134,12 +136,12 @@ export function solvePhWithSlope(balance: SlopedChargeBalance, guess = NaN, gues
   let h = usable && guessH > 0 ? guessH : tenToMinus(x);
   let stepBefore = PH_MAX - PH_MIN, lastStep = stepBefore;
   for (let iter = 0; iter < 200; iter++) {
-    const f = balance.residualAt(x, h);
+    const f = iter === 0 && usable && !Number.isNaN(residualAtGuess) ? residualAtGuess : balance.residualAt(x, h);
     if (f === 0) return rootAt(balance, x, h);
     if (f > 0) { lo = x; loChecked = true; } else { hi = x; hiChecked = true; }
     const slope = balance.slope;
     const step = slope < 0 ? -f / slope : NaN;
-    if (Math.abs(step) < NEWTON_STEP_TOLERANCE) {
+    if (Math.abs(step) < stepTolerance) {
       const root = x + step;
       if (root > PH_MIN && root < PH_MAX) return rootAt(balance, root, shiftH(h, x, step));
       const clamped = root <= PH_MIN ? PH_MIN : PH_MAX;

@@ -11,7 +11,7 @@
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
 import { daviesTerm, dissociationFactor } from "./activity";
-import { CO2_SATURATION_M, KW, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
+import { CO2_SATURATION_M, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
@@ -31,8 +31,18 @@ export interface PhMemo {
 /** Change of −log γ± below which the ionic strength counts as settled (see equilibrate). */
 const ACTIVITY_TOLERANCE = 1e-9;
 
+/** Newton steps (pH) below which the joint pH–activity refinement takes over from the search with γ held, and
+ * above which it hands back; and its most steps. */
+const JOINT_ENTRY_STEP = 0.02;
+const JOINT_MAX_STEP = 0.1;
+const MAX_JOINT_STEPS = 20;
+
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
 const SYSTEM_Z2_WEIGHT = Float64Array.from(SYSTEM_Z0, (z0) => Math.max(1, z0 * z0));
+
+/** Charge-balance evaluations since the module loaded (all equilibrators): a machine-independent cost figure that
+ * bench/chem.bench.ts reports. */
+export const solverStats = { evaluations: 0 };
 
 export class Equilibrator implements SlopedChargeBalance {
   readonly phases: PhaseSplit;
@@ -77,6 +87,15 @@ export class Equilibrator implements SlopedChargeBalance {
   private carbonateCap = Number.POSITIVE_INFINITY;
   /** Ionic strength of the aqueous layer from every ion at the solved pH, mol/L (activity.ts). */
   ionicStrength = 0;
+  /** The same at the pH of the last residualAt() call, with the activity coefficients it used. */
+  private residualIonicStrength = 0;
+  /** Its derivative in pH (γ held), and that pH. */
+  private residualIonicSlope = 0;
+  private lastEvaluatedPh = Number.NaN;
+  /** Where refine() stopped without a root, and the residual there if evaluated with the γ now set (else NaN). */
+  private stopPh = Number.NaN;
+  private stopH = Number.NaN;
+  private stopResidual = Number.NaN;
   /** −log γ± the activity coefficients were last set for (daviesTerm); 1/γ± of singly charged ions; the systems'
    * concentration constants K′ at that ionic strength. */
   private activityTerm = 0;
@@ -150,18 +169,7 @@ export class Equilibrator implements SlopedChargeBalance {
     this.carbonateCap = carb > 0 ? CO2_SATURATION_M : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.setActivity(remembered && Number.isFinite(memo.ionicStrength) ? memo.ionicStrength : this.ionicStrengthEstimate(mix));
-    this.pH = remembered ? solvePhWithSlope(this, memo.pH, memo.h) : solvePhWithSlope(this, guess);
-    // The ionic strength at the root sets the activity coefficients; solved again from the root until they
-    // agree (a fixed point: I hardly depends on γ, so each round gains one to two digits, and a round whose
-    // root moves less than the Newton tolerance costs one evaluation). Tight, so that where the search started
-    // does not show in the result.
-    for (let round = 0; round < 10; round++) {
-      const i = this.ionicStrengthAt(this.rootH);
-      this.ionicStrength = i;
-      if (Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE) break;
-      this.setActivity(i);
-      this.pH = solvePhWithSlope(this, this.pH, this.rootH);
-    }
+    this.pH = remembered ? this.solveWithActivity(memo.pH, memo.h, true) : this.solveWithActivity(guess, Number.NaN, false);
     if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; memo.ionicStrength = this.ionicStrength; }
     this.carbonateCap = Number.POSITIVE_INFINITY;
     if (carb > 0) {
@@ -190,6 +198,75 @@ export class Equilibrator implements SlopedChargeBalance {
   }
 
   /**
+   * pH of the prepared contact with the activity coefficients of the ionic strength at that pH (a fixed point: I
+   * depends on the pH and, slightly, on γ). A bracketed Newton search with γ held finds the root to a few
+   * hundredths; from there each Newton step also resets γ to the ionic strength expected at the next pH (the
+   * residual computes I and its slope in the same pass), so the pH and γ settle together: three to five
+   * evaluations a contact where solving to 1e-10 and re-solving after each γ update took six to eleven. A start
+   * `nearRoot` (this contact's pH in an earlier run) goes straight to the joint steps. Same fixed point and
+   * tolerances as that scheme, which stays as the fallback should a step leave the Newton basin.
+   */
+  private solveWithActivity(guess: number, guessH: number, nearRoot: boolean): number {
+    let x = guess, h = guessH, known = Number.NaN;
+    if (nearRoot) {
+      const root = this.refine(x, h > 0 ? h : Math.exp(-x * Math.LN10), Number.NaN);
+      if (!Number.isNaN(root)) return root;
+      x = this.stopPh; h = this.stopH; known = this.stopResidual;
+    }
+    x = solvePhWithSlope(this, x, h, JOINT_ENTRY_STEP, known);
+    h = this.rootH;
+    if (x > PH_MIN && x < PH_MAX) {
+      // The search's last evaluation lies one step short of x: γ from the ionic strength expected at x.
+      const root = this.refine(x, h, this.residualIonicStrength + this.residualIonicSlope * (x - this.lastEvaluatedPh));
+      if (!Number.isNaN(root)) return root;
+      x = this.stopPh; h = this.stopH; known = this.stopResidual;
+    } else known = Number.NaN;
+    // Solved to 1e-10 with γ held, then again after each γ update until they agree (each round gains one to two
+    // digits; tight, so that where the search started does not show in the result).
+    x = solvePhWithSlope(this, x, h, NEWTON_STEP_TOLERANCE, known);
+    for (let round = 0; round < 10; round++) {
+      const i = this.ionicStrengthAt(this.rootH);
+      this.ionicStrength = i;
+      if (Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE) break;
+      this.setActivity(i);
+      x = solvePhWithSlope(this, x, this.rootH);
+    }
+    return x;
+  }
+
+  /**
+   * Joint Newton steps on pH and γ from pH x (h = 10^−x), γ first reset for ionic strength `next` (NaN: kept).
+   * The root, or NaN when a step grows past JOINT_MAX_STEP or leaves the range (stopPh/stopH: where it stopped).
+   */
+  private refine(x: number, h: number, next: number): number {
+    for (let iter = 0; iter < MAX_JOINT_STEPS; iter++) {
+      if (!Number.isNaN(next)) {
+        const term = daviesTerm(next);
+        if (Math.abs(term - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, term);
+      }
+      const f = this.residualAt(x, h);
+      const i = this.residualIonicStrength;
+      const settled = Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE;
+      const step = this.slope < 0 ? -f / this.slope : Number.NaN;
+      if (!(Math.abs(step) < JOINT_MAX_STEP)) { this.stopResidual = f; break; }
+      if (settled && Math.abs(step) < NEWTON_STEP_TOLERANCE) {
+        const root = x + step;
+        if (!(root > PH_MIN && root < PH_MAX)) { this.stopResidual = f; break; }
+        this.ionicStrength = i;
+        this.rootH = shiftH(h, x, step);
+        return root;
+      }
+      next = i + this.residualIonicSlope * step;
+      h = shiftH(h, x, step);
+      x += step;
+      this.stopResidual = Number.NaN;
+    }
+    this.stopPh = x;
+    this.stopH = h;
+    return Number.NaN;
+  }
+
+  /**
    * Net positive charge (mmol) of the aqueous layer of `mix` held at `pH`, no CO₂ leaving: positive when the
    * mixture's own pH lies above `pH`, negative below (the balance falls with pH). NaN without an aqueous layer.
    * Nearly linear in an added volume of acid or base, unlike the pH.
@@ -213,8 +290,7 @@ export class Equilibrator implements SlopedChargeBalance {
   }
 
   /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
-  private setActivity(i: number): void {
-    const term = daviesTerm(i);
+  private setActivity(i: number, term = daviesTerm(i)): void {
     this.activityTerm = term;
     const g = Math.exp(term * Math.LN10);
     this.invGamma1 = g;
@@ -373,7 +449,9 @@ export class Equilibrator implements SlopedChargeBalance {
    * Net positive charge (mol/L) in the aqueous layer at this pH, with components distributed between layers;
    * sets `slope` to its derivative in pH (a sum of negative terms: −ln10 times the buffer capacities).
    */
-  residualAt(_pH: number, a: number): number {
+  residualAt(pH: number, a: number): number {
+    solverStats.evaluations++;
+    this.lastEvaluatedPh = pH;
     // `a` is a(H⁺); with concentration constants (setActivity) the balance runs on [H⁺] = a/γ±, and sites on
     // h = a (acids: K′ = K/γ±; bases: K′ = K·γ±, so x = a/(a + K′·…) keeps the same form).
     const g = this.invGamma1;
@@ -383,25 +461,37 @@ export class Equilibrator implements SlopedChargeBalance {
     const oh = KW * hInv * g;
     let f = this.strongConc + hc - oh;
     let df = hc + oh;
+    // Σc·z² for the ionic strength, as ionicStrengthAt counts it (systems uncapped, each charged site as ±1).
+    let cz2 = this.strongZ2Conc + hc + oh;
+    // d(Σc·z²)/d pH over ln10.
+    let dcz2 = oh - hc;
     for (let k = 0; k < this.nActive; k++) {
       const s = this.active[k] as number;
       const ka = this.sysKa[s] as Float64Array;
-      let term = 1, sum = 1, lost = 0, lost2 = 0;
+      let term = 1, sum = 1, lost = 0, lost2 = 0, lost3 = 0;
       for (let i = 0; i < ka.length; i++) {
         term *= (ka[i] as number) * hInv;
         sum += term;
-        lost += (i + 1) * term;
-        lost2 += (i + 1) * (i + 1) * term;
+        const j = i + 1;
+        lost += j * term;
+        lost2 += j * j * term;
+        lost3 += j * j * j * term;
       }
       const conc = this.systemConc[s] as number;
+      const z0 = SYSTEM_Z0[s] as number;
+      const mean = lost / sum;
+      // Σ term_j·(z₀ − j)² over Σ term_j = z₀² − 2z₀·mean + lost2/sum.
+      const m2 = lost2 / sum;
+      cz2 += conc * (z0 * z0 - 2 * z0 * mean + m2);
+      // Moments of j move with ln(1/h): d mean = m2 − mean², d m2 = m3 − m2·mean.
+      dcz2 += conc * (-2 * z0 * (m2 - mean * mean) + lost3 / sum - m2 * mean);
       if (s === CARBONATE && conc > this.carbonateCap * sum) {
         // Capped at saturation: [H₂CO₃*] fixed, so [HCO₃⁻] = cap·K₁/h and [CO₃²⁻] = cap·K₁K₂/h² (z₀ = 0).
         f -= this.carbonateCap * lost;
         df += this.carbonateCap * lost2;
         continue;
       }
-      const mean = lost / sum;
-      f += conc * ((SYSTEM_Z0[s] as number) - mean);
+      f += conc * (z0 - mean);
       df += conc * (lost2 / sum - mean * mean);
     }
     const { comps, voOverVa } = this;
@@ -412,31 +502,45 @@ export class Equilibrator implements SlopedChargeBalance {
       const acid = comps.acidKa[c] as Float64Array;
       const base = comps.baseKa[c] as Float64Array;
       // Per site: charged fraction x; d x/d pH = ±ln10·x(1 − x). f₀ = Π(1 − x) moves by ln10·f₀·z.
-      let f0 = 1, z = 0, dz = 0;
+      let f0 = 1, z = 0, dz = 0, sites = 0, dSites = 0;
       for (let i = 0; i < acid.length; i++) {
         const ka = (acid[i] as number) * g;
         const x = ka / (h + ka);
+        const v = x * (1 - x);
         f0 *= 1 - x;
         z -= x;
-        dz += x * (1 - x);
+        dz += v;
+        sites += x;
+        dSites += v;
       }
       for (let i = 0; i < base.length; i++) {
         const ka = (base[i] as number) / g;
         const x = h / (h + ka);
+        const v = x * (1 - x);
         f0 *= 1 - x;
         z += x;
-        dz += x * (1 - x);
+        dz += v;
+        sites += x;
+        dSites -= v;
       }
-      const fixed = comps.fixedCharge[c] !== 0;
-      if (fixed) f0 = 0;
+      const fixedCharge = comps.fixedCharge[c] as number;
+      const fixed = fixedCharge !== 0;
+      if (fixed) {
+        f0 = 0;
+        if (Math.abs(fixedCharge) >= sites) { sites = Math.abs(fixedCharge); dSites = 0; }
+      }
       const kN = this.kNeutral[c] as number, kI = this.kIon[c] as number;
       const fa = 1 / (1 + (kN * f0 + kI * (1 - f0)) * voOverVa);
       f += nc * fa * z;
       // d fa/d pH = −fa²·(vo/va)·(kN − kI)·f₀·z·ln10; the ln10 is applied to the whole slope below.
       const dfa = fixed ? 0 : -fa * fa * voOverVa * (kN - kI) * f0 * z;
       df += nc * (fa * dz - dfa * z);
+      cz2 += nc * fa * sites;
+      dcz2 += nc * (fa * dSites + sites * dfa);
     }
     this.slope = -Math.LN10 * df;
+    this.residualIonicStrength = 0.5 * cz2;
+    this.residualIonicSlope = 0.5 * Math.LN10 * dcz2;
     return f;
   }
 
