@@ -9,7 +9,7 @@
  */
 import os from "node:os";
 import path from "node:path";
-import { Worker } from "node:worker_threads";
+import { Worker, type WorkerOptions } from "node:worker_threads";
 import { ServiceUnavailableError, ValidationError, type FieldErrors } from "@/lib/errors";
 import { type TaskName, type TaskResult, type TaskArgs, type WorkerReply } from "./protocol";
 
@@ -113,7 +113,9 @@ export class EnginePool {
   }
 
   private spawn(): Thread {
-    const worker = new Worker(bootFile(), { workerData: { entry: entryFile() } });
+    // Constructed by reflection so that the bundler does not follow the file into the server bundle: the thread runs
+    // the sources through tsx, which must not be bundled (Turbopack fails on esbuild's binary).
+    const worker = Reflect.construct<[string, WorkerOptions], Worker>(Worker, [bootFile(), { workerData: { entry: entryFile() } }]);
     worker.unref(); // an idle pool never keeps a process alive
     const thread: Thread = { worker, busy: null };
     worker.on("message", (reply: WorkerReply) => this.settle(thread, reply));
