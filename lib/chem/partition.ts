@@ -2,10 +2,13 @@
  * Solvent-specific partition coefficients of neutral solutes, and the corrections applied at each contact.
  *  - A group's own value for the compound and solvent (component.logK[solvent]) overrides every estimate.
  *  - Abraham solvation equations (abraham.ts) from the solute's descriptors (component.abraham, else the measured
- *    table looked up by canonical SMILES) and the solvent's published coefficients (data/abraham-solvents.ts).
+ *    table looked up by canonical SMILES) and the solvent's published coefficients (data/abraham-solvents.ts);
+ *    standard error from the validation against measured partition data (bench:partition). A measured octanol
+ *    log P anchors estimated descriptors only.
+ *  - Salting out moves the neutral form; the salt concentration is the aqueous layer's ionic strength (phases.ts).
  *  - Otherwise Collander-type lines log K_s = a·log P_oct + b (Collander 1951; Leo, Hansch & Elkins 1971), one
  *    line for H-bond-donor solutes and one for the rest; coefficients and their confidence in data/solvents.ts.
- *  - Salting out of neutrals (Setschenow): log K rises by K_s·c_salt; K_s from 0.04·log P + 0.114 L/mol
+ *  - Salting out of neutrals (Setschenow): log K rises by K_s·I; K_s per compound from 0.04·log P + 0.114 L/mol
  *    (correlation attributed to Ni & Yalkowsky, Int. J. Pharm. 2003, 254, 167; from memory) unless given.
  *  - Cosolvency (log-linear model, Yalkowsky & Roseman 1981): a water-miscible solvent at volume fraction f in
  *    the aqueous phase raises aqueous solubility by 10^(σ·f), so log K falls by σ·f; σ = m·log P + n
