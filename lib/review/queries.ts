@@ -3,10 +3,12 @@
  * needs comes from the Workup row and the stored outcome analysis (predicted and reported recovery, interval,
  * causes); the spec is read only for the solvent system and the kinds of operation.
  */
+import { Prisma } from "@/generated/prisma/client";
 import { resolveLibrary } from "@/lib/chem/library";
 import { type SolventProps } from "@/lib/chem/data/solvents";
 import { type Db } from "@/lib/db/client";
 import { type OutcomeAnalysis } from "@/lib/workups/analysis";
+import { type DeviationStatus } from "@/lib/workups/deviation";
 import { groupLibrary } from "@/lib/workups/library";
 import { type ReviewRow } from "./aggregate";
 import { type ReviewFilters } from "./filters";
@@ -26,17 +28,12 @@ export interface ReviewData {
   notice: string | null;
 }
 
-type RawOp = { type?: unknown; solvent?: unknown };
-
-function operationsOf(spec: unknown): RawOp[] {
-  const ops = (spec as { operations?: unknown } | null)?.operations;
-  return Array.isArray(ops) ? (ops as RawOp[]) : [];
-}
-
-/** The organic solvent of the workup's main separation: the first extraction's, else the first water-immiscible solvent. */
-export function solventSystemOf(spec: unknown, solventKeys: readonly string[], solvents: Readonly<Record<string, SolventProps>>): string | null {
-  const extract = operationsOf(spec).find((op) => op.type === "extract" && typeof op.solvent === "string");
-  if (extract) return String(extract.solvent).toLowerCase();
+/**
+ * The organic solvent of the workup's main separation: the first extraction's (`extractSolvent`, read from the spec
+ * by the query below), else the first water-immiscible solvent.
+ */
+export function solventSystemOf(extractSolvent: string | null, solventKeys: readonly string[], solvents: Readonly<Record<string, SolventProps>>): string | null {
+  if (extractSolvent !== null) return extractSolvent.toLowerCase();
   return solventKeys.find((k) => solvents[k]?.waterMiscible === false && k !== "water") ?? null;
 }
 
@@ -44,38 +41,51 @@ function percent(fraction: number | null | undefined): number | null {
   return fraction === null || fraction === undefined ? null : fraction * 100;
 }
 
+type ReviewRecord = {
+  id: string; title: string; performedOn: Date; chemistId: string | null; solventKeys: string[]; status: DeviationStatus;
+  flagged: boolean; deviationPct: number | null; analysis: unknown; operationTypes: string[]; extractSolvent: string | null;
+};
+
+/**
+ * The group's workups with an outcome, newest first, each with its outcome analysis, in one statement. Of the spec only
+ * what the views use is read (the kinds of operation, and the first extraction's solvent), not the whole document.
+ */
+function reviewRows(db: Db, groupId: string, filters: ReviewFilters): Promise<ReviewRecord[]> {
+  const operations = Prisma.sql`jsonb_array_elements(CASE WHEN jsonb_typeof(w."spec" -> 'operations') = 'array' THEN w."spec" -> 'operations' ELSE '[]'::jsonb END)`;
+  return db.$queryRaw<ReviewRecord[]>`
+    SELECT w."id", w."title", w."performedOn", w."chemistId", w."solventKeys", w."status"::text AS "status", w."flagged",
+           w."deviationPct", o."analysis",
+           ARRAY(SELECT DISTINCT op ->> 'type' FROM ${operations} AS op
+                  WHERE jsonb_typeof(op -> 'type') = 'string' AND op ->> 'type' <> '') AS "operationTypes",
+           (SELECT e.op ->> 'solvent' FROM ${operations} WITH ORDINALITY AS e(op, n)
+             WHERE e.op ->> 'type' = 'extract' AND jsonb_typeof(e.op -> 'solvent') = 'string' ORDER BY e.n LIMIT 1) AS "extractSolvent"
+      FROM "Workup" w
+      JOIN "Outcome" o ON o."workupId" = w."id" AND o."groupId" = w."groupId"
+     WHERE w."groupId" = ${groupId}
+       ${filters.from ? Prisma.sql`AND w."performedOn" >= ${new Date(`${filters.from}T00:00:00Z`)}` : Prisma.empty}
+       ${filters.to ? Prisma.sql`AND w."performedOn" <= ${new Date(`${filters.to}T00:00:00Z`)}` : Prisma.empty}
+       ${filters.chemist ? Prisma.sql`AND w."chemistId" = ${filters.chemist}` : Prisma.empty}
+       ${filters.solvent ? Prisma.sql`AND ${filters.solvent} = ANY(w."solventKeys")` : Prisma.empty}
+     ORDER BY w."performedOn" DESC, w."id" DESC
+     LIMIT ${MAX_REVIEW_ROWS + 1}`;
+}
+
 export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilters): Promise<ReviewData> {
   const { chemist, notice } = chemistFilterFor(viewer, requested.chemist);
   const filters = { ...requested, chemist };
   const [library, workups, members, usedSolvents] = await Promise.all([
     groupLibrary(db, viewer.groupId),
-    db.workup.findMany({
-      where: {
-        groupId: viewer.groupId,
-        outcome: { isNot: null },
-        ...(filters.from || filters.to
-          ? { performedOn: { ...(filters.from ? { gte: new Date(`${filters.from}T00:00:00Z`) } : {}), ...(filters.to ? { lte: new Date(`${filters.to}T00:00:00Z`) } : {}) } }
-          : {}),
-        ...(filters.chemist ? { chemistId: filters.chemist } : {}),
-        ...(filters.solvent ? { solventKeys: { has: filters.solvent } } : {}),
-      },
-      orderBy: [{ performedOn: "desc" }, { id: "desc" }],
-      take: MAX_REVIEW_ROWS + 1,
-      select: {
-        id: true, title: true, performedOn: true, chemistId: true, solventKeys: true, spec: true, status: true, flagged: true, deviationPct: true,
-        outcome: { select: { analysis: true } },
-      },
-    }),
+    reviewRows(db, viewer.groupId, filters),
     db.membership.findMany({ where: { groupId: viewer.groupId }, select: { user: { select: { id: true, name: true } } }, orderBy: { user: { name: "asc" } } }),
     db.$queryRaw<{ key: string }[]>`SELECT DISTINCT unnest("solventKeys") AS key FROM "Workup" WHERE "groupId" = ${viewer.groupId} ORDER BY key`,
   ]);
   const solvents = resolveLibrary(library).solvents;
   const rows: ReviewRow[] = workups.slice(0, MAX_REVIEW_ROWS).map((w) => {
-    const a = (w.outcome?.analysis ?? {}) as Partial<OutcomeAnalysis>;
+    const a = (w.analysis ?? {}) as Partial<OutcomeAnalysis>;
     return {
       id: w.id, title: w.title, performedOn: w.performedOn.toISOString().slice(0, 10), chemistId: w.chemistId,
-      solventSystem: solventSystemOf(w.spec, w.solventKeys, solvents),
-      operationTypes: [...new Set(operationsOf(w.spec).map((op) => (typeof op.type === "string" ? op.type : "")).filter(Boolean))].sort(),
+      solventSystem: solventSystemOf(w.extractSolvent, w.solventKeys, solvents),
+      operationTypes: [...w.operationTypes].sort(),
       status: w.status, flagged: w.flagged, deviationPct: w.deviationPct,
       predicted: percent(a.predicted?.recovery), low: percent(a.predicted?.low), high: percent(a.predicted?.high), reported: percent(a.reported?.recovery),
       causes: (a.causes ?? []).slice(0, 3).map((c) => ({ title: c.title, share: c.fractionOfGap })),

@@ -86,6 +86,7 @@ describe("statements per page load", () => {
   });
 
   it("reads the flagged strip in one statement, with each workup's causes or else its danger flags", async () => {
+    await c.db.workup.updateMany({ where: { groupId: lab.groupId }, data: { flagged: false } });
     await c.db.workup.updateMany({ where: { id: { in: ids.slice(0, 3) } }, data: { flagged: true } });
     const { result, statements } = await c.count(() => flaggedWorkups(c.db, lab.groupId));
     expect(statements).toHaveLength(1);
@@ -103,6 +104,18 @@ describe("statements per page load", () => {
     }
     await c.db.workup.updateMany({ where: { groupId: lab.groupId }, data: { flagged: false } });
     expect(await flaggedWorkups(c.db, lab.groupId)).toEqual({ items: [], total: 0 });
+  });
+
+  it("reads the review's workups with their analyses in one statement, without whole specs", async () => {
+    await groupLibrary(c.db, lab.groupId);
+    const { result, statements } = await c.count(loaders.review);
+    expect(statements.filter((s) => /"Workup"|"Outcome"/.test(s) && !/unnest/.test(s))).toHaveLength(1);
+    expect(statements.some((s) => /"Workup"\."spec"/.test(s))).toBe(false);
+    // The library's stamp, the rows, the members with their names, the solvents in use.
+    expect(statements.length).toBeLessThanOrEqual(5);
+    // The acid-base example washes, dries and concentrates an ethyl acetate solution (examples/acid-base-separation.json).
+    expect(result.rows[0]?.operationTypes.length).toBeGreaterThan(0);
+    expect(result.rows[0]?.solventSystem).not.toBeNull();
   });
 
   it("reads an unchanged library with its stamp alone", async () => {
