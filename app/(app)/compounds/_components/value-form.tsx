@@ -2,6 +2,7 @@
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
+import { ErrorSummary, type ErrorSummaryItem } from "@/components/ui/error-summary";
 
 export interface ValueDraft {
   value: string;
@@ -22,7 +23,7 @@ export function ValueForm({ label, initial, withKind = false, withSe = false, on
 }) {
   const id = useId();
   const [draft, setDraft] = useState(initial);
-  const [problem, setProblem] = useState<string | null>(null);
+  const [problems, setProblems] = useState<{ items: ErrorSummaryItem[]; attempt: number }>({ items: [], attempt: 0 });
   const set = <K extends keyof ValueDraft>(key: K, value: ValueDraft[K]) => setDraft((d) => ({ ...d, [key]: value }));
   return (
     <form
@@ -30,15 +31,17 @@ export function ValueForm({ label, initial, withKind = false, withSe = false, on
       onSubmit={(e) => {
         e.preventDefault();
         const value = Number(draft.value);
-        if (draft.value.trim() === "" || !Number.isFinite(value)) return setProblem(`${label} must be a number.`);
-        if (draft.source.trim().length < 3) return setProblem("Name the source: a notebook page, a paper or a handbook table.");
-        setProblem(null);
-        onReview(draft);
+        const items: ErrorSummaryItem[] = [];
+        if (draft.value.trim() === "" || !Number.isFinite(value)) items.push({ targetId: `${id}-value`, text: `${label} must be a number.` });
+        if (draft.source.trim().length < 3) items.push({ targetId: `${id}-source`, text: "Source: name a notebook page, a paper or a handbook table." });
+        setProblems((p) => ({ items, attempt: items.length > 0 ? p.attempt + 1 : p.attempt }));
+        if (items.length === 0) onReview(draft);
       }}
     >
+      <div className="sm:col-span-2"><ErrorSummary id={`${id}-errors`} items={problems.items} attempt={problems.attempt} title="Not ready to review: fix these first" /></div>
       <label className="space-y-1">
         <span className="block font-medium text-stone-800">{label}</span>
-        <input id={`${id}-value`} inputMode="decimal" value={draft.value} onChange={(e) => set("value", e.target.value)} className={inputClass} aria-label={`New ${label}`} />
+        <input id={`${id}-value`} inputMode="decimal" value={draft.value} onChange={(e) => set("value", e.target.value)} className={inputClass} aria-label={`New ${label}`} aria-invalid={problems.items.some((i) => i.targetId === `${id}-value`) || undefined} />
       </label>
       {withSe ? (
         <label className="space-y-1">
@@ -66,9 +69,8 @@ export function ValueForm({ label, initial, withKind = false, withSe = false, on
       </fieldset>
       <label className="space-y-1 sm:col-span-2">
         <span className="block font-medium text-stone-800">Source</span>
-        <input value={draft.source} onChange={(e) => set("source", e.target.value)} placeholder="e.g. notebook HG-2-0113 p. 4, or a handbook table" className={inputClass} aria-label="Source" />
+        <input id={`${id}-source`} value={draft.source} onChange={(e) => set("source", e.target.value)} placeholder="e.g. notebook HG-2-0113 p. 4, or a handbook table" className={inputClass} aria-label="Source" aria-invalid={problems.items.some((i) => i.targetId === `${id}-source`) || undefined} />
       </label>
-      {problem ? <p role="alert" className="text-red-700 sm:col-span-2">{problem}</p> : null}
       <div className="flex gap-2 sm:col-span-2">
         <Button type="submit">Review the change</Button>
         <Button variant="ghost" onClick={onCancel}>Cancel</Button>
