@@ -18,8 +18,16 @@ export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[];
   const bar = Math.min(28, Math.floor(260 / trail.length) - 4);
   const width = trail.length * (bar + 4) + 30;
   const used = KINDS.filter((k) => trail.some((t) => t.lost[k] > 0.0005));
+  const last = trail[trail.length - 1];
+  const worst = last ? [...KINDS].sort((a, b) => last.lost[b] - last.lost[a])[0] : undefined;
+  const summary = last
+    ? `${productName}: ${pct(last.kept)} carried forward after step ${last.step}` +
+      (last.saved > 0.0005 ? `, ${pct(last.saved)} in saved layers` : "") +
+      (worst && last.lost[worst] > 0.0005 ? `; largest loss to ${LOSS_STYLE[worst].label} (${pct(last.lost[worst])}).` : ".")
+    : "";
+  const summaryId = `trail-summary-${productName.replace(/[^A-Za-z0-9]+/g, "-")}`;
   return (
-    <figure>
+    <figure aria-label={`Where ${productName} goes, step by step`} aria-describedby={summaryId}>
       <svg viewBox={`0 0 ${width} ${H + 18}`} className="h-36 w-auto max-w-full" aria-hidden>
         {[0, 0.5, 1].map((t) => (
           <g key={t}>
@@ -50,6 +58,7 @@ export function ProductTrailChart({ trail, productName }: { trail: TrailPoint[];
         {trail.some((t) => t.saved > 0.0005) ? <Legend fill="#5eead4" label="in a saved layer" /> : null}
         {used.map((k) => <Legend key={k} fill={LOSS_STYLE[k].fill} label={`lost: ${LOSS_STYLE[k].label}`} />)}
       </figcaption>
+      <p id={summaryId} className="mt-1 text-xs text-stone-700">{summary}</p>
       <div className="sr-only">
       <table>
         <caption>Share of the product after each step</caption>
