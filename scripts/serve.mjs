@@ -6,7 +6,11 @@
 //     is absent), so a client cannot name its own address to the sign-in limits (lib/auth/rate-limit.ts);
 //   - SIGTERM and SIGINT stop it cleanly: stop accepting, answer requests that arrive on kept-alive connections with
 //     503 + Connection: close, let in-flight requests finish for up to LAYERWISE_SHUTDOWN_GRACE_SECONDS, then stop the
-//     job worker and close the database (instrumentation.ts registers that hook), and exit.
+//     job worker and close the database (instrumentation.ts registers that hook), and exit;
+//   - when it is saturated it sheds load instead of piling it up: at most LAYERWISE_MAX_IN_FLIGHT requests (default
+//     64) run at once; more wait in a queue for a free place at most LAYERWISE_QUEUE_WAIT_SECONDS (default 10), and a
+//     request still waiting then (or arriving to a full queue) is answered 503 with Retry-After, before any of it ran.
+//     Next's static files (/_next/static/) are never held back.
 // HOST, PORT and the grace period are validated by lib/env.ts when scripts/prepare-db.ts runs before this.
 import http from "node:http";
 
@@ -20,6 +24,12 @@ export function appendPeer(req) {
   req.headers["x-forwarded-for"] = chain ? `${chain}, ${peer}` : peer;
 }
 
+/** A positive number from the environment, or the default when unset or not a positive number. */
+function positive(text, fallback) {
+  const value = Number(text);
+  return text && Number.isFinite(value) && value > 0 ? value : fallback;
+}
+
 /**
  * Serves `handler(req, res)` (Next's, unless given) and installs the signal handlers. Resolves with the server once
  * it listens. `onStopped` runs after the database is closed (default: exit the process).
@@ -31,6 +41,9 @@ export async function serve({
   graceMs = 1000 * Number(process.env.LAYERWISE_SHUTDOWN_GRACE_SECONDS || 10),
   onStopped = (code) => process.exit(code),
   log = (line) => console.log(line),
+  maxInFlight = positive(process.env.LAYERWISE_MAX_IN_FLIGHT, 64),
+  queueWaitMs = 1000 * positive(process.env.LAYERWISE_QUEUE_WAIT_SECONDS, 10),
+  maxQueue = 4 * maxInFlight,
 } = {}) {
   let nextApp;
   if (!handler) {
@@ -50,12 +63,57 @@ export async function serve({
     appendPeer(req);
     inFlight.add(res);
     res.on("close", () => inFlight.delete(res));
-    Promise.resolve(handler(req, res)).catch((error) => {
-      console.error("[layerwise] request handler failed:", error);
-      if (!res.headersSent) res.writeHead(500);
-      res.end();
-    });
+    admit(req, res, () =>
+      Promise.resolve(handler(req, res)).catch((error) => {
+        console.error("[layerwise] request handler failed:", error);
+        if (!res.headersSent) res.writeHead(500);
+        res.end();
+      }),
+    );
   });
+
+  // Admission: `running` requests hold a place; the rest wait in `waiting` (first come, first served).
+  let running = 0;
+  const waiting = [];
+  const retryAfter = String(Math.max(1, Math.ceil(queueWaitMs / 1000)));
+  function overloaded(res) {
+    if (res.headersSent || res.writableEnded) return;
+    res.writeHead(503, { "content-type": "application/json", "retry-after": retryAfter, "cache-control": "no-store" });
+    res.end(JSON.stringify({ error: { code: "overloaded", message: `The server is busy right now; nothing was saved. Try again in ${retryAfter} s.` } }));
+  }
+  function release() {
+    running--;
+    while (waiting.length > 0 && running < maxInFlight) {
+      const next = waiting.shift();
+      clearTimeout(next.timer);
+      if (next.res.destroyed) continue; // the client gave up while waiting
+      start(next.res, next.run);
+    }
+  }
+  function start(res, run) {
+    running++;
+    let done = false;
+    const finish = () => {
+      if (done) return;
+      done = true;
+      release();
+    };
+    res.on("close", finish);
+    res.on("finish", finish);
+    run();
+  }
+  function admit(req, res, run) {
+    if ((req.url ?? "").startsWith("/_next/static/")) return void run();
+    if (running < maxInFlight) return start(res, run);
+    if (waiting.length >= maxQueue) return overloaded(res);
+    const entry = { res, run, timer: undefined };
+    entry.timer = setTimeout(() => {
+      const at = waiting.indexOf(entry);
+      if (at >= 0) waiting.splice(at, 1);
+      overloaded(res);
+    }, queueWaitMs);
+    waiting.push(entry);
+  }
 
   const drained = () =>
     new Promise((resolve) => {

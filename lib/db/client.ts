@@ -38,8 +38,34 @@ export type Db = Omit<PrismaDb, "$transaction"> & {
   ): Promise<runtime.Types.Utils.UnwrapTuple<P>>;
 };
 
-const newClient = (adapter: runtime.SqlDriverAdapterFactory): Db =>
-  new PrismaClient({ adapter, omit: secretColumns });
+/**
+ * How long work may queue for the database before the request is answered 503 with Retry-After (lib/errors.ts maps
+ * these errors), so an overloaded instance sheds load in bounded time instead of piling up requests or failing with
+ * 500. Sized for one instance of the app on a small machine; DEVELOPERS.md ("Overload") explains them.
+ */
+export const DB_LIMITS = {
+  /** PostgreSQL connections per instance (node-postgres pool). Several instances share the server's max_connections (default 100). */
+  poolSize: 10,
+  /** Longest wait for a free pooled connection (PostgreSQL) before the query fails. */
+  connectionWaitMs: 10_000,
+  /** Longest wait to start an interactive transaction (Prisma maxWait; P2028 beyond it). PGlite runs one at a time. */
+  transactionMaxWaitMs: 10_000,
+  /** Longest an interactive transaction may run before it is rolled back (Prisma timeout; P2028). Bulk imports ask for more. */
+  transactionTimeoutMs: 15_000,
+} as const;
+
+export interface DbLimits {
+  poolSize?: number;
+  connectionWaitMs?: number;
+  transactionMaxWaitMs?: number;
+  transactionTimeoutMs?: number;
+}
+
+const newClient = (adapter: runtime.SqlDriverAdapterFactory, limits: Required<DbLimits>): Db =>
+  new PrismaClient({
+    adapter, omit: secretColumns,
+    transactionOptions: { maxWait: limits.transactionMaxWaitMs, timeout: limits.transactionTimeoutMs },
+  });
 
 export interface Database {
   db: Db;
@@ -54,7 +80,11 @@ export interface CreateDbOptions {
   migrate?: boolean;
   migrationsDir?: MigrateOptions["migrationsDir"];
   log?: MigrateOptions["log"];
+  /** Pool and transaction limits; DB_LIMITS for any left out (tests shrink them to provoke overload). */
+  limits?: DbLimits;
 }
+
+const limitsOf = (options: CreateDbOptions): Required<DbLimits> => ({ ...DB_LIMITS, ...options.limits });
 
 async function openPglite(dir: string, options: CreateDbOptions): Promise<Database> {
   const release = dir === "memory" ? () => undefined : lockDataDir(dir);
@@ -65,7 +95,7 @@ async function openPglite(dir: string, options: CreateDbOptions): Promise<Databa
     try {
       await pglite.waitReady;
       if (options.migrate !== false) await migrate(pgliteSession(pglite), options);
-      const db = newClient(new PrismaPGlite(pglite));
+      const db = newClient(new PrismaPGlite(pglite), limitsOf(options));
       return {
         db,
         close: async () => {
@@ -99,7 +129,8 @@ async function openPostgres(url: string, options: CreateDbOptions): Promise<Data
       await session.end();
     }
   }
-  const db = newClient(new PrismaPg({ connectionString: url }));
+  const limits = limitsOf(options);
+  const db = newClient(new PrismaPg({ connectionString: url, max: limits.poolSize, connectionTimeoutMillis: limits.connectionWaitMs }), limits);
   return { db, close: () => db.$disconnect() };
 }
 
