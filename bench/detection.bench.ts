@@ -174,7 +174,7 @@ function withPhReading(spec: WorkupInput, off: number, rng: Rng): WorkupInput {
 const METHODS: AssayMethod[] = ["qnmr", "hplc", "gc", "weight_only"];
 const STEPS = Object.keys(HANDLING_PRIOR) as HandlingStep[];
 
-interface Tally { clean: number; covered: number; falseFlags: number; failures: number; flagged: number; first: number; top3: number; ranked: number; byKind: Record<string, KindTally>; bands: { n: number; flagged: number }[] }
+interface Tally { clean: number; covered: number; falseFlags: number; failures: number; flagged: number; first: number; top3: number; ranked: number; byKind: Record<string, KindTally>; bands: { n: number; flagged: number }[]; byAssay: Record<"assayed" | "not assayed", { n: number; flagged: number }> }
 /** Per kind of failure: how many, flagged, ranked, and the true loss and predictive sd (to see what is detectable). */
 interface KindTally { n: number; flagged: number; first: number; top3: number; losses: number[]; sds: number[] }
 /** Flagged share by the failure's true loss of product: what an outcome of this scatter can and cannot reveal. */
@@ -233,6 +233,9 @@ function runGroup(groupSeed: number, workups: number, templates: Template[], tal
     const band = tally.bands[LOSS_BANDS.findIndex((b) => 1 - Math.exp(effect) < b)] ?? tally.bands.at(-1)!;
     band.n++;
     if (analysis.flagged) band.flagged++;
+    const basis = tally.byAssay[assayed ? "assayed" : "not assayed"];
+    basis.n++;
+    if (analysis.flagged) basis.flagged++;
     k.sds.push(analysis.predictive?.logSd ?? NaN);
     if (!analysis.flagged) continue;
     tally.flagged++;
@@ -256,7 +259,7 @@ function main(): void {
   const seed = argument("seed", 1);
   const t0 = nowMs();
   const templates = [template(acidTemplate(), true), template(baseTemplate(), false)];
-  const tally: Tally = { clean: 0, covered: 0, falseFlags: 0, failures: 0, flagged: 0, first: 0, top3: 0, ranked: 0, byKind: {}, bands: LOSS_BANDS.map(() => ({ n: 0, flagged: 0 })) };
+  const tally: Tally = { clean: 0, covered: 0, falseFlags: 0, failures: 0, flagged: 0, first: 0, top3: 0, ranked: 0, byKind: {}, bands: LOSS_BANDS.map(() => ({ n: 0, flagged: 0 })), byAssay: { assayed: { n: 0, flagged: 0 }, "not assayed": { n: 0, flagged: 0 } } };
   const perGroup: number[] = [];
   for (let g = 0; g < groups; g++) {
     const g0 = nowMs();
@@ -275,6 +278,7 @@ function main(): void {
     console.log(`    ${kind.padEnd(22)} n=${String(k.n).padStart(3)}  loss ${(100 * median(k.losses)).toFixed(0).padStart(3)} %  sd ${median(k.sds).toFixed(3)}  flagged ${share(k.flagged, k.n).padStart(7)}  first ${share(k.first, k.flagged).padStart(7)}  top 3 ${share(k.top3, k.flagged).padStart(7)}`);
   }
   console.log(`    by true loss: ${tally.bands.map((b, i) => `${i === 0 ? "<" : `${(100 * LOSS_BANDS[i - 1]!).toFixed(0)}–`}${(100 * Math.min(1, LOSS_BANDS[i]!)).toFixed(0)} % flagged ${share(b.flagged, b.n)} of ${b.n}`).join(", ")}`);
+  console.log(`    by crude: ${Object.entries(tally.byAssay).map(([k, b]) => `${k} flagged ${share(b.flagged, b.n)} of ${b.n}`).join(", ")}`);
   console.log(`  time: median ${median(perGroup).toFixed(0)} ms per group history, total ${(nowMs() - t0).toFixed(0)} ms`);
 }
 
