@@ -128,10 +128,12 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
       const reported = simulateWorkup(variant).recovery["acetanilide"]! * handling;
       const report = await reportOutcome(t.db, lab.member, w.id, { isolatedMassMg: massFor(reported), purityPct: 100, purityMethod: "qnmr" });
       expect(report.analysis.deviation.status, code).toBe("below");
-      const [top] = report.analysis.causes;
+      const [top, second] = report.analysis.causes;
       expect(top?.code).toBe(code);
       expect(top?.fractionOfGap).toBeCloseTo(1, 2);
-      expect(top?.score).toBeGreaterThan(0.5);
+      // Clearly ahead of the next cause: a slip's effect is re-run across the product's partition uncertainty, so an
+      // exact match at the point estimate no longer takes all the plausibility.
+      expect(top!.score).toBeGreaterThan(1.5 * (second?.score ?? 0));
     }
   });
 
