@@ -36,8 +36,11 @@ async function loadLibrary(db: Client, groupId: string): Promise<LibraryOverride
   };
 }
 
-/** An interactive transaction's client (it has no $transaction of its own): what it reads may yet roll back. */
-const inTransaction = (db: Client) => typeof (db as { $transaction?: unknown }).$transaction !== "function";
+/**
+ * An interactive transaction's client, whose reads may yet roll back. Prisma leaves $connect off that client (it
+ * keeps $transaction, for nested transactions).
+ */
+const inTransaction = (db: Client) => typeof (db as { $connect?: unknown }).$connect !== "function";
 
 export async function groupLibrary(db: Client, groupId: string): Promise<LibraryOverrides> {
   if (inTransaction(db)) return loadLibrary(db, groupId);
