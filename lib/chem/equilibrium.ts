@@ -81,6 +81,9 @@ export class Equilibrator implements SlopedChargeBalance {
    * and anions of the aqueous layer, mol/L. */
   private readonly pairAnion: Float64Array;
   private readonly pairCation: Float64Array;
+  /** The library's δ values before any shift (uncertainty draws shift them; setIonPairShift). */
+  private readonly basePairAnion: Float64Array;
+  private readonly basePairCation: Float64Array;
   private cationM = 0;
   private anionM = 0;
   /** H₂CO₃* the aqueous layer holds under the headspace, mol/L: CO₂ above it leaves (Infinity: none leaves). */
@@ -118,8 +121,10 @@ export class Equilibrator implements SlopedChargeBalance {
     this.charged = new Int32Array(n);
     this.ownIonFactor = new Float64Array(n);
     this.amountConc = new Float64Array(n);
-    this.pairAnion = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).anion);
-    this.pairCation = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).cation);
+    this.basePairAnion = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).anion);
+    this.basePairCation = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).cation);
+    this.pairAnion = this.basePairAnion.slice();
+    this.pairCation = this.basePairCation.slice();
   }
 
   /** 10^x, remembered for the last x: contacts mostly share the organic layer's ion offset. */
@@ -129,6 +134,15 @@ export class Equilibrator implements SlopedChargeBalance {
       this.lastOffsetFactor = Math.exp(x * Math.LN10);
     }
     return this.lastOffsetFactor;
+  }
+
+  /** Shifts every solvent's ion-pair δ (anion and cation alike) by `shift[i]` log units (library solvent order). */
+  setIonPairShift(shift: Float64Array): void {
+    for (let i = 0; i < this.pairAnion.length; i++) {
+      const d = shift[i] ?? 0;
+      this.pairAnion[i] = (this.basePairAnion[i] as number) + d;
+      this.pairCation[i] = (this.basePairCation[i] as number) + d;
+    }
   }
 
   /** Call after the components' constants change: lists the components that can carry a charge. */

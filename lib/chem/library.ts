@@ -179,6 +179,12 @@ export function workupSolvents(w: WorkupInput): string[] {
   return used;
 }
 
+/** The solvents of a work-up in the compiled library's order (water first), for a work-up whose solvents all
+ * exist in the library (a validated one). */
+export function engineSolventKeys(w: WorkupInput): string[] {
+  return [WATER_KEY, ...workupSolvents(w).filter((k) => k !== WATER_KEY)];
+}
+
 export interface EngineLibraryOptions extends LibraryOverrides {
   /** Treat every solvent as insoluble in water and water as insoluble in it (textbook comparisons). */
   idealPhases?: boolean;

@@ -4,6 +4,7 @@
  * volume. The simulator reads them from these flat arrays rather than from the input objects, so a Monte-Carlo
  * draw or a bulk re-prediction rewrites numbers in place instead of building a perturbed copy of the input.
  */
+import { engineSolventKeys } from "./library";
 import { type Component, type LogValue, type WorkupInput } from "./schema";
 
 export interface WorkupParameters {
@@ -23,6 +24,8 @@ export interface WorkupParameters {
   operationAmountMmol: Float64Array;
   targetPh: Float64Array;
   rinseMl: Float64Array;
+  /** Shift of each solvent's ion-pair constants (log units), in the compiled library's solvent order; 0 as read. */
+  ionPairShift: Float64Array;
 }
 
 const sized = (a: Float64Array, n: number): Float64Array => (a.length === n ? a : new Float64Array(n));
@@ -34,6 +37,7 @@ export function emptyParameters(): WorkupParameters {
   return {
     logP: EMPTY, logK: EMPTY, logKStart: EMPTY_INT, pKa: EMPTY, pKaStart: EMPTY_INT, amountMmol: EMPTY,
     mixtureSolventMl: EMPTY, mixtureReagentMl: EMPTY, volumeMl: EMPTY, operationAmountMmol: EMPTY, targetPh: EMPTY, rinseMl: EMPTY,
+    ionPairShift: EMPTY,
   };
 }
 
@@ -86,6 +90,9 @@ export function readParameters(input: WorkupInput, out: WorkupParameters = empty
     out.targetPh[i] = op.targetPh ?? Number.NaN;
     out.rinseMl[i] = op.rinse ? op.rinse.volumeMl : Number.NaN;
   }
+  const solventKeys = engineSolventKeys(input);
+  out.ionPairShift = sized(out.ionPairShift, solventKeys.length);
+  for (let i = 0; i < solventKeys.length; i++) out.ionPairShift[i] = input.ionPairShift?.[solventKeys[i] as string] ?? 0;
   return out;
 }
 
@@ -95,6 +102,7 @@ export function copyParameters(p: WorkupParameters): WorkupParameters {
     logP: p.logP.slice(), logK: p.logK.slice(), logKStart: p.logKStart.slice(), pKa: p.pKa.slice(), pKaStart: p.pKaStart.slice(),
     amountMmol: p.amountMmol.slice(), mixtureSolventMl: p.mixtureSolventMl.slice(), mixtureReagentMl: p.mixtureReagentMl.slice(),
     volumeMl: p.volumeMl.slice(), operationAmountMmol: p.operationAmountMmol.slice(), targetPh: p.targetPh.slice(), rinseMl: p.rinseMl.slice(),
+    ionPairShift: p.ionPairShift.slice(),
   };
 }
 
@@ -110,4 +118,5 @@ export function assignParameters(to: WorkupParameters, from: WorkupParameters): 
   to.operationAmountMmol.set(from.operationAmountMmol);
   to.targetPh.set(from.targetPh);
   to.rinseMl.set(from.rinseMl);
+  to.ionPairShift.set(from.ionPairShift);
 }

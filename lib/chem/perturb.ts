@@ -8,9 +8,14 @@
  *  - pKa: estimated 0.7, literature 0.1, measured 0.05, group 0.2 (§2.2: ±0.5 for predicted values;
  *    the rest from memory);
  *  - every volume ±5 % (issue 3), reagent amounts ±5 % (same figure, by analogy), and a pH set with paper or a
- *    meter ±0.3 (from memory: the resolution of wide-range pH paper).
+ *    meter ±0.3 (from memory: the resolution of wide-range pH paper);
+ *  - each water-immiscible solvent's ion-pair extraction constants by the standard uncertainty their class value
+ *    states (ion-pair.ts), one shift per solvent shared by its anion and cation pairs, when a component can
+ *    carry a charge.
  */
 import { SOLVENTS } from "./data/solvents";
+import { ionPairOffset } from "./ion-pair";
+import { engineSolventKeys } from "./library";
 import { type WorkupParameters } from "./parameters";
 import { componentTranslationSd, LOGP_SE_BY_PROVENANCE } from "./partition";
 import type { Component, Operation, Provenance, WorkupInput } from "./schema";
@@ -21,6 +26,8 @@ export interface UncertaintyDefaults {
   volumeRelative: number;
   amountRelative: number;
   targetPh: number;
+  /** Multiplies the stated uncertainty of the solvents' ion-pair constants (1 as stated; 0 leaves them fixed). */
+  ionPairScale: number;
 }
 
 export const DEFAULT_UNCERTAINTY: UncertaintyDefaults = {
@@ -29,6 +36,7 @@ export const DEFAULT_UNCERTAINTY: UncertaintyDefaults = {
   volumeRelative: 0.05,
   amountRelative: 0.05,
   targetPh: 0.3,
+  ionPairScale: 1,
 };
 
 /** One uncertain input, as listed in the uncertainty result. */
@@ -53,7 +61,18 @@ interface OperationPlan {
   rinse: number;
 }
 
-type ParameterField = "logP" | "logK" | "pKa" | "mixtureSolventMl" | "mixtureReagentMl" | "volumeMl" | "operationAmountMmol" | "targetPh" | "rinseMl";
+type ParameterField = "logP" | "logK" | "pKa" | "mixtureSolventMl" | "mixtureReagentMl" | "volumeMl" | "operationAmountMmol" | "targetPh" | "rinseMl" | "ionPairShift";
+
+/** Solvents whose ion-pair constants are uncertain in this work-up, with their index in the library's solvent
+ * order and standard uncertainty: water-immiscible ones, when some component can carry a charge. */
+function ionPairSites(input: WorkupInput, scale: number): Array<{ key: string; index: number; sd: number }> {
+  if (!(scale > 0) || !input.components.some((c) => c.pKas.length > 0 || c.fixedCharge !== 0)) return [];
+  return engineSolventKeys(input).flatMap((key, index) => {
+    const solvent = SOLVENTS[key];
+    const se = solvent && !solvent.waterMiscible ? ionPairOffset(solvent).se * scale : 0;
+    return se > 0 ? [{ key, index, sd: se }] : [];
+  });
+}
 
 export interface PerturbationPlan {
   sites: UncertainInput[];
@@ -128,6 +147,8 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
     if (p.targetPh > 0) site(`operations.${i}.targetPh`, p.targetPh, "pH", "targetPh", i);
     if (p.rinse > 0) site(`operations.${i}.rinse.volumeMl`, p.rinse, "relative", "rinseMl", i);
   });
+  const pairs = ionPairSites(input, defaults.ionPairScale);
+  for (const x of pairs) site(`ionPair.${x.key}`, x.sd, "log", "ionPairShift", x.index);
 
   // Volumes and amounts are scaled by exp(sd·z) ≈ 1 + sd·z: positive for any draw, median unchanged.
   const scale = (value: number, sd: number, zi: number): number => value * Math.exp(sd * zi);
@@ -169,7 +190,10 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
         }
         return copy as Operation;
       });
-      return { ...input, components, mixture, operations };
+      if (pairs.length === 0) return { ...input, components, mixture, operations };
+      const ionPairShift: Record<string, number> = { ...input.ionPairShift };
+      for (const x of pairs) ionPairShift[x.key] = (ionPairShift[x.key] ?? 0) + x.sd * next();
+      return { ...input, components, mixture, operations, ionPairShift };
     },
     parameterDrawer(nominal: WorkupParameters, out: WorkupParameters): (z: Float64Array) => void {
       const from = slotField.map((f) => nominal[f]);

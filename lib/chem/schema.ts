@@ -189,7 +189,11 @@ export const workupInputSchema = strictObject({
 });
 
 export type WorkupInputRaw = z.input<typeof workupInputSchema>;
-export type WorkupInput = z.output<typeof workupInputSchema>;
+export type WorkupInput = z.output<typeof workupInputSchema> & {
+  /** Shift (log units) of each solvent's ion-pair extraction constants, by solvent key: set only by the
+   * uncertainty engine's perturbed copies (perturb.ts), never by the input schema. */
+  ionPairShift?: Readonly<Record<string, number>>;
+};
 export type Component = WorkupInput["components"][number];
 export type PKa = Component["pKas"][number];
 export type LogValue = z.output<typeof logValueSchema>;

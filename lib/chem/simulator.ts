@@ -89,6 +89,7 @@ export class Simulator {
     this.onContact = null;
     fillComponents(comps, input.components, params, lib);
     this.eq.componentsChanged();
+    this.eq.setIonPairShift(params.ionPairShift);
     this.eq.lastSolved = NaN;
     this.pooled = 0;
     this.contactIndex = 0;
