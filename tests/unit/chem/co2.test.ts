@@ -52,7 +52,9 @@ const aceticAcid = (n: number): ComponentRaw => ({ key: "acoh", name: "Acetic ac
 
 describe("CO₂ degassed to equilibrium with the headspace", () => {
   it("acetic acid in water quenched with too little bicarbonate: pH and gas of the open system (Stumm & Morgan)", () => {
-    const p = predictWorkup(workup([aceticAcid(8)], [["water", 20]], [{ type: "quench", reagent: "nahco3_sat", volume: mL(5) }]), { flags: false });
+    // At 25 °C, where the solubility CSAT applies (the engine corrects it for temperature).
+    const p = predictWorkup(workup([aceticAcid(8)], [["water", 20]], [{ type: "quench", reagent: "nahco3_sat", volume: mL(5) }],
+      { temperature: { value: 25, unit: "°C" } }), { flags: false });
     const contact = p.steps[0]?.contacts?.[0];
     const aq = contact?.phases.find((x) => x.kind === "aqueous");
     const volumeL = (aq?.volumeMl ?? Number.NaN) / 1000;
