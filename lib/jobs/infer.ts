@@ -4,10 +4,12 @@
  * job walks the outcomes in (updatedAt, workupId) order with a committed cursor, and at the end queues the
  * re-validation of the compounds whose observations changed. Outcome.updatedAt is stamped by the writing instance's
  * clock, so each pass reaches back OVERLAP_MS before the previous one ended; fitting an outcome twice changes
- * nothing, so the overlap costs only time.
+ * nothing, so the overlap costs only time. The writes of a batch are compare-and-set on each outcome's updatedAt as
+ * the batch read it (unchangedPlans), so a fit never overwrites an outcome reported while it ran.
  */
-import { type Db } from "@/lib/db/client";
-import { applyInferences, dropOrphanInferences, planInferences } from "@/lib/partition/infer-service";
+import { Prisma } from "@/generated/prisma/client";
+import { type Db, type DbTransaction } from "@/lib/db/client";
+import { applyInferences, dropOrphanInferences, planInferences, type InferencePlan } from "@/lib/partition/infer-service";
 import { commitProgress, finishJob, LeaseLostError, type ClaimedJob } from "./queue";
 import { enqueueRevalidation } from "./revalidate";
 
@@ -81,8 +83,16 @@ function rangeWhere(groupId: string, p: InferPayload) {
   };
 }
 
-/** One batch of an inference job. Returns true when the job is finished. */
-export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolean> {
+/** A batch read and fitted outside any transaction, with the stamps its writes are compared against. */
+export interface PlannedInferenceBatch {
+  total: number;
+  /** The outcomes of the batch as read: the workup and the outcome's updatedAt (the cursor moves past all of them). */
+  batch: { workupId: string; updatedAt: Date }[];
+  plans: InferencePlan[];
+}
+
+/** Reads the next batch of outcomes and fits them (the slow part, outside any transaction). */
+export async function planInferenceBatch(db: Db, job: ClaimedJob): Promise<PlannedInferenceBatch> {
   const p = readPayload(job.payload);
   const total = p.cursor === null && job.done === 0 ? await db.outcome.count({ where: rangeWhere(job.groupId, { ...p, cursor: null }) }) : job.total;
   const batch = await db.outcome.findMany({
@@ -91,6 +101,29 @@ export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolea
     take: INFERENCE_BATCH,
     select: { workupId: true, updatedAt: true },
   });
+  const plans = batch.length > 0 ? await planInferences(db, job.groupId, batch.map((o) => o.workupId)) : [];
+  return { total, batch, plans };
+}
+
+/**
+ * The plans whose outcome is still as the batch read it, under the outcome rows' locks: an outcome reported or
+ * re-judged meanwhile (a report, an edit of the workup, a re-prediction all stamp it) or deleted with its workup is
+ * left out. Its newer stamp is past this pass's end, so the next pass fits it from what is stored then; a background
+ * fit never replaces what a person recorded after the fit read it.
+ */
+async function unchangedPlans(tx: DbTransaction, groupId: string, planned: PlannedInferenceBatch): Promise<InferencePlan[]> {
+  const ids = planned.batch.map((o) => o.workupId);
+  const now = await tx.$queryRaw<{ workupId: string; updatedAt: Date }[]>`
+    SELECT "workupId", "updatedAt" FROM "Outcome" WHERE "groupId" = ${groupId} AND "workupId" IN (${Prisma.join(ids)}) FOR UPDATE`;
+  const stampNow = new Map(now.map((o) => [o.workupId, o.updatedAt.getTime()]));
+  const read = new Map(planned.batch.map((o) => [o.workupId, o.updatedAt.getTime()]));
+  return planned.plans.filter((plan) => stampNow.get(plan.workupId) !== undefined && stampNow.get(plan.workupId) === read.get(plan.workupId));
+}
+
+/** Writes a planned batch (compare-and-set on each outcome's stamp) with the job's progress. Returns true when the job is finished. */
+export async function applyInferenceBatch(db: Db, job: ClaimedJob, planned: PlannedInferenceBatch): Promise<boolean> {
+  const p = readPayload(job.payload);
+  const { total, batch } = planned;
   if (batch.length === 0) {
     await db.$transaction(async (tx) => {
       const orphaned = await dropOrphanInferences(tx, job.groupId);
@@ -100,12 +133,11 @@ export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolea
     });
     return true;
   }
-  const plans = await planInferences(db, job.groupId, batch.map((o) => o.workupId));
   const last = batch[batch.length - 1] as { workupId: string; updatedAt: Date };
   const done = job.done + batch.length;
   const next: InferPayload = { ...p, cursor: { at: last.updatedAt.toISOString(), id: last.workupId } };
   await db.$transaction(async (tx) => {
-    const changed = await applyInferences(tx, job.groupId, plans);
+    const changed = await applyInferences(tx, job.groupId, await unchangedPlans(tx, job.groupId, planned));
     next.changed = [...new Set([...p.changed, ...changed])];
     await commitProgress(tx, job, { done, total: Math.max(total, done), payload: { ...job.payload, ...next } });
   });
@@ -113,4 +145,9 @@ export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolea
   job.total = Math.max(total, done);
   job.payload = { ...job.payload, ...next };
   return false;
+}
+
+/** One batch of an inference job. Returns true when the job is finished. */
+export async function runInferenceBatch(db: Db, job: ClaimedJob): Promise<boolean> {
+  return applyInferenceBatch(db, job, await planInferenceBatch(db, job));
 }
