@@ -28,7 +28,7 @@ const spec = (i: number) => ({
     logP: { value: 2.3, provenance: "literature", source: "PhysProp (from memory)" }, pKas: [] }],
   mixture: { solvents: [{ solvent: "etoac", volume: { value: 30 + i, unit: "mL" } }] },
   operations: [
-    { type: "wash", reagent: "sat_nahco3", volume: { value: 20, unit: "mL" }, portions: 2 },
+    { type: "wash", reagent: "nahco3_sat", volume: { value: 20, unit: "mL" }, portions: 2 },
     { type: "wash", reagent: "brine", volume: { value: 20, unit: "mL" } },
     { type: "dry", agent: "mgso4" },
     { type: "concentrate" },
