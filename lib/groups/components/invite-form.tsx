@@ -7,6 +7,8 @@ import { SubmitButton } from "@/components/ui/submit-button";
 import { formatDate } from "@/components/ui/format";
 import { createInviteAction } from "@/lib/groups/actions";
 import { INVITE_LIFETIMES_DAYS } from "@/lib/groups/schemas";
+import { ROLE_LABELS } from "@/lib/authz/roles";
+import { ErrorSummary } from "@/components/ui/error-summary";
 
 /** Creates an invite link and shows it once, ready to copy into a message (no mail server involved). */
 export function InviteForm() {
@@ -14,6 +16,10 @@ export function InviteForm() {
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
     <div className="space-y-4">
+      <ErrorSummary attempt={state} title="No invite created: fix these first" items={[
+        ...(errors?.role ?? []).map((m) => ({ targetId: "invite-role", text: `Role: ${m}` })),
+        ...(errors?.expiresInDays ?? []).map((m) => ({ targetId: "invite-days", text: `Valid for: ${m}` })),
+      ]} />
       <form action={action} className="flex flex-wrap items-end gap-3">
         <div className="space-y-1">
           <label htmlFor="invite-role" className="block text-sm font-medium text-stone-800">Role</label>
@@ -41,7 +47,7 @@ export function InviteForm() {
           <div className="mt-2 space-y-2">
             <CopyField label="Send this link to the person you are inviting" value={`${typeof window === "undefined" ? "" : window.location.origin}${state.data.path}`} />
             <p>
-              It makes them a {state.data.role}, works once, and expires on {formatDate(state.data.expiresAt)}. Layerwise keeps only a
+              It makes them a {((ROLE_LABELS as Record<string, string | undefined>)[state.data.role] ?? state.data.role).toLowerCase()}, works once, and expires on {formatDate(state.data.expiresAt)}. Layerwise keeps only a
               fingerprint of it, so copy it now: it cannot be shown again.
             </p>
           </div>
