@@ -21,7 +21,11 @@ test("a lead invites a viewer by link; the newcomer creates an account and joins
   await invited.getByLabel("Password", { exact: true }).fill("layers-settle-slowly");
   await invited.getByLabel("Password again").fill("layers-settle-quickly");
   await invited.getByRole("button", { name: "Create account and join" }).click();
-  await expect(invited.getByText(/do not match|must match|differ/i)).toBeVisible();
+  // The summary at the top takes the focus and its link leads to the field named by its label.
+  const summary = invited.getByTestId("error-summary");
+  await expect(summary).toBeFocused();
+  await summary.getByRole("link", { name: "Password again: The two passwords differ." }).click();
+  await expect(invited.getByLabel("Password again")).toBeFocused();
   await expect(invited.getByLabel("Your name")).toHaveValue("Wren Calloway");
   await expect(invited.getByLabel("Email")).toHaveValue("wren.calloway@heron.example");
   await invited.getByLabel("Password", { exact: true }).fill("layers-settle-slowly");
