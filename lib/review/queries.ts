@@ -76,7 +76,8 @@ export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilter
   const [library, workups, members, usedSolvents] = await Promise.all([
     groupLibrary(db, viewer.groupId),
     reviewRows(db, viewer.groupId, filters),
-    db.membership.findMany({ where: { groupId: viewer.groupId }, select: { user: { select: { id: true, name: true } } }, orderBy: { user: { name: "asc" } } }),
+    // Members by name in one statement (the membership as an EXISTS).
+    db.user.findMany({ where: { memberships: { some: { groupId: viewer.groupId } } }, select: { id: true, name: true }, orderBy: { name: "asc" } }),
     db.$queryRaw<{ key: string }[]>`SELECT DISTINCT unnest("solventKeys") AS key FROM "Workup" WHERE "groupId" = ${viewer.groupId} ORDER BY key`,
   ]);
   const solvents = resolveLibrary(library).solvents;
@@ -93,11 +94,11 @@ export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilter
       quantile: typeof a.predictive?.quantile === "number" ? a.predictive.quantile : null,
     };
   });
-  const names = new Map(members.map((m) => [m.user.id, m.user.name]));
+  const names = new Map(members.map((m) => [m.id, m.name]));
   return {
     rows,
     truncated: workups.length > MAX_REVIEW_ROWS,
-    chemists: members.map((m) => m.user).filter((u) => viewer.isLead || u.id === viewer.userId),
+    chemists: members.filter((u) => viewer.isLead || u.id === viewer.userId),
     names,
     solvents: usedSolvents.filter((s) => solvents[s.key]?.waterMiscible === false).map((s) => ({ key: s.key, name: solvents[s.key]?.name ?? s.key })),
     notice,

@@ -2,6 +2,7 @@
 // many workups the group holds (no query per row), and the workup page does not look its workup up more than once.
 // Counted on a real in-memory PGlite: every statement Prisma sends runs.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { memberNames } from "@/app/(app)/workups/_lib/editor-data";
 import { compoundChoices, flaggedWorkups } from "@/app/(app)/workups/_lib/list-data";
 import { loadReview } from "@/lib/review/queries";
 import { listVersions } from "@/lib/workups/history";
@@ -42,6 +43,7 @@ describe("statements per page load", () => {
   const loaders = {
     list: () => Promise.all([
       listWorkups(c.db, lab.groupId, {}), flaggedWorkups(c.db, lab.groupId), compoundChoices(c.db, lab.groupId), groupLibrary(c.db, lab.groupId),
+      memberNames(c.db, lab.groupId),
     ]),
     detail: (id: string) => Promise.all([
       getWorkupDetail(c.db, lab.groupId, id), groupLibrary(c.db, lab.groupId), listVersions(c.db, lab.groupId, id, { found: true }),
@@ -111,11 +113,19 @@ describe("statements per page load", () => {
     const { result, statements } = await c.count(loaders.review);
     expect(statements.filter((s) => /"Workup"|"Outcome"/.test(s) && !/unnest/.test(s))).toHaveLength(1);
     expect(statements.some((s) => /"Workup"\."spec"/.test(s))).toBe(false);
-    // The library's stamp, the rows, the members with their names, the solvents in use.
-    expect(statements.length).toBeLessThanOrEqual(5);
+    // The library's stamp, the rows, the members' names, the solvents in use.
+    expect(statements.length).toBeLessThanOrEqual(4);
     // The acid-base example washes, dries and concentrates an ethyl acetate solution (examples/acid-base-separation.json).
     expect(result.rows[0]?.operationTypes.length).toBeGreaterThan(0);
     expect(result.rows[0]?.solventSystem).not.toBeNull();
+  });
+
+  it("reads the members' names for the chemist filter in one statement, sorted by name", async () => {
+    const { result, statements } = await c.count(() => memberNames(c.db, lab.groupId));
+    expect(statements).toHaveLength(1);
+    const expected = (await c.db.membership.findMany({ where: { groupId: lab.groupId }, select: { user: { select: { id: true, name: true } } } }))
+      .map((m) => m.user).sort((a, b) => a.name.localeCompare(b.name, "en"));
+    expect(result).toEqual(expected);
   });
 
   it("reads an unchanged library with its stamp alone", async () => {

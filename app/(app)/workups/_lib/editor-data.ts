@@ -1,6 +1,6 @@
 // What the editor pages load on the server: the group's members (chemist choices, names in diffs) and the group's
 // library (engine overrides). Scoped by the guard's group.
-import { getDb } from "@/lib/db/client";
+import { getDb, type Db } from "@/lib/db/client";
 import { type MemberContext } from "@/lib/authz";
 import { groupLibrary } from "@/lib/workups/library";
 import { type LibraryOverrides } from "@/lib/chem/library";
@@ -10,13 +10,14 @@ export interface MemberName {
   name: string;
 }
 
+/** The group's members by name, in one statement (the membership as an EXISTS, not memberships and then users). */
+export async function memberNames(db: Db, groupId: string): Promise<MemberName[]> {
+  const users = await db.user.findMany({ where: { memberships: { some: { groupId } } }, select: { id: true, name: true } });
+  return users.sort((a, b) => a.name.localeCompare(b.name, "en"));
+}
+
 export async function groupMembers(member: MemberContext): Promise<MemberName[]> {
-  const db = await getDb();
-  const rows = await db.membership.findMany({
-    where: { groupId: member.group.id },
-    select: { user: { select: { id: true, name: true } } },
-  });
-  return rows.map((r) => r.user).sort((a, b) => a.name.localeCompare(b.name, "en"));
+  return memberNames(await getDb(), member.group.id);
 }
 
 export async function editorContext(member: MemberContext): Promise<{ members: MemberName[]; library: LibraryOverrides }> {
