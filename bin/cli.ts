@@ -11,6 +11,7 @@ import { simulateWorkup, validateWorkup } from "../lib/chem/predict";
 import { propagateUncertainty } from "../lib/chem/uncertainty";
 import { fitLogK } from "../lib/chem/fit";
 import { planWorkup, planOptionsSchema } from "../lib/chem/planner";
+import { siteFlags } from "../lib/workups/site-flags";
 import { explainPrediction } from "./explain";
 import { explainPlan } from "./explain-plan";
 
@@ -86,7 +87,7 @@ function numberOption(name: string, value: string | undefined, check: (x: number
   return x;
 }
 
-function predict(args: string[]): string {
+async function predict(args: string[]): Promise<string> {
   const { values, positionals } = parseArgs({
     args, allowPositionals: true, strict: true,
     options: { explain: { type: "boolean" }, uncertainty: { type: "string" }, seed: { type: "string" }, ...IDEALISATION_FLAGS },
@@ -97,7 +98,11 @@ function predict(args: string[]): string {
   const draws = numberOption("uncertainty", values.uncertainty, (x) => Number.isInteger(x) && x >= 2 && x <= 100_000, "a whole number from 2 to 100000");
   const seed = numberOption("seed", values.seed, Number.isInteger, "a whole number");
   if (seed !== undefined && draws === undefined) throw new InputError("--seed only applies with --uncertainty N");
-  const prediction = simulateWorkup(input);
+  // As the server does: a structure with an N–H/O–H group that no ionizable-site class covers is flagged
+  // ("no ionizable site recognised: check") rather than treated as silently neutral.
+  const computed = simulateWorkup(input);
+  const noSite = await siteFlags(input);
+  const prediction = noSite.length > 0 ? { ...computed, flags: [...computed.flags, ...noSite] } : computed;
   const uncertainty = draws === undefined ? undefined : propagateUncertainty(input, simulateWorkup, { draws, seed: seed ?? 1 });
   if (values.explain) return explainPrediction(input, prediction, uncertainty);
   return JSON.stringify(uncertainty ? { ...prediction, uncertainty } : prediction, null, 2);
@@ -149,31 +154,31 @@ function fit(args: string[]): string {
 }
 
 /** Runs one command; returns the exit code. Output goes to stdout, errors to stderr. */
-export function main(argv: string[]): Promise<number> {
+export async function main(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
   try {
     let text: string;
-    if (command === "predict") text = predict(rest);
+    if (command === "predict") text = await predict(rest);
     else if (command === "plan") text = plan(rest);
     else if (command === "fit") text = fit(rest);
     else if (command === undefined || command === "help" || command === "--help" || command === "-h") {
       process.stdout.write(`${USAGE}\n`);
-      return Promise.resolve(command === undefined ? 2 : 0);
+      return command === undefined ? 2 : 0;
     } else throw new InputError(`unknown command '${command}'\n${USAGE}`);
     process.stdout.write(`${text}\n`);
-    return Promise.resolve(0);
+    return 0;
   } catch (error) {
     const usage = error instanceof InputError || (error as { code?: string }).code?.startsWith("ERR_PARSE_ARGS");
     if (usage) {
       process.stderr.write(`layerwise: ${(error as Error).message}\n`);
-      return Promise.resolve(2);
+      return 2;
     }
     if (error instanceof RangeError) {
       // The library's own refusals (unknown component, unknown solvent …) are input errors too.
       process.stderr.write(`layerwise: ${error.message}\n`);
-      return Promise.resolve(2);
+      return 2;
     }
     process.stderr.write(`layerwise: internal error: ${(error as Error).stack ?? String(error)}\n`);
-    return Promise.resolve(1);
+    return 1;
   }
 }
