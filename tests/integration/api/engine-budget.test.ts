@@ -10,8 +10,9 @@ import * as me from "@/app/api/v1/me/route";
 import * as predict from "@/app/api/v1/predict/route";
 import * as workups from "@/app/api/v1/workups/route";
 import * as csvImport from "@/app/api/v1/workups/import/route";
+import * as compounds from "@/app/api/v1/compounds/route";
 import { type WorkupInputRaw } from "@/lib/chem/schema";
-import { MAX_HEAVY_PER_USER } from "@/lib/workers/limits";
+import { acquireHeavySlot, MAX_HEAVY_PER_USER } from "@/lib/workers/limits";
 import { enginePool } from "@/lib/workers/pool";
 import { describeWithAppDatabase } from "@/tests/integration/auth/app-database";
 import { makeMember } from "@/tests/integration/auth/fixtures";
@@ -112,6 +113,24 @@ describeWithAppDatabase("engine budget per request", (t) => {
     // The slots are given back: the same user may run one again, and another user was never affected.
     const [again, other] = await Promise.all([heavy(tokens.member), heavy(tokens.other)]);
     expect([again.status, other.status]).toEqual([200, 200]);
+  }, 120_000);
+
+  it("bulk compound registration and CSV import take one of the user's heavy slots: 429 with Retry-After while all are taken, nothing written", async () => {
+    const held = Array.from({ length: MAX_HEAVY_PER_USER }, () => acquireHeavySlot(lab.member.userId));
+    const before = await footprint(t.db);
+    try {
+      const register = await callRoute(compounds.POST, "POST", "/api/v1/compounds", { token: tokens.member, body: { format: "smiles", text: "CC(=O)Nc1ccccc1 acetanilide" } });
+      expect(register.status).toBe(429);
+      expect(Number(register.headers.get("retry-after"))).toBeGreaterThan(0);
+      const csv = `title,performed_on,spec_json\nSmall,2026-11-21,"${JSON.stringify(exampleSpec()).replaceAll('"', '""')}"\n`;
+      const imported = await callRoute(csvImport.POST, "POST", "/api/v1/workups/import", { token: tokens.member, rawBody: csv, headers: { "content-type": "text/csv" } });
+      expect(imported.status).toBe(429);
+      expect(await footprint(t.db)).toEqual(before);
+    } finally {
+      held.forEach((release) => release());
+    }
+    const register = await callRoute(compounds.POST, "POST", "/api/v1/compounds", { token: tokens.member, body: { format: "smiles", text: "CC(=O)Nc1ccccc1 acetanilide" } });
+    expect(register.status).toBe(201);
   }, 120_000);
 
   it("accepted heavy work runs off the event loop: light requests are answered meanwhile and the loop stays idle", async () => {

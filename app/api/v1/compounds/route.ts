@@ -6,6 +6,7 @@ import { listCompounds } from "@/lib/compounds/queries";
 import { listCompoundsSchema, registerCompoundsSchema, searchSchema } from "@/lib/compounds/schemas";
 import { compoundSearch } from "@/lib/compounds/search-service";
 import { registerCompounds, RegistrationRejected } from "@/lib/compounds/service";
+import { withHeavySlot } from "@/lib/workers/limits";
 
 /**
  * GET /api/v1/compounds?after=&tag=&limit=                          the group's compounds by name, keyset-paginated
@@ -32,7 +33,8 @@ const REGISTER_BODY_LIMIT = 10 * 1024 * 1024 + 64 * 1024;
 export const POST = memberRoute("data:write", async (request, { member }) => {
   const input = parseInput(registerCompoundsSchema, await readJsonBody(request, REGISTER_BODY_LIMIT));
   try {
-    const result = await registerCompounds(await getDb(), { groupId: member.group.id, userId: member.user.id }, input);
+    // Bulk registration parses every structure: one of the caller's heavy slots (429 when they are all taken).
+    const result = await withHeavySlot(member.user.id, async () => registerCompounds(await getDb(), { groupId: member.group.id, userId: member.user.id }, input));
     return Response.json(result, { status: 201 });
   } catch (error) {
     if (!(error instanceof RegistrationRejected)) throw error;
