@@ -1,6 +1,7 @@
 import type { IncomingMessage, Server, ServerResponse } from "node:http";
 
 export function appendPeer(req: IncomingMessage): void;
+export function undecodablePath(url: string | undefined): boolean;
 export function serve(options?: {
   handler?: (req: IncomingMessage, res: ServerResponse) => unknown;
   host?: string;

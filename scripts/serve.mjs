@@ -31,6 +31,20 @@ function positive(text, fallback) {
 }
 
 /**
+ * True when the path's %-escapes do not decode to UTF-8 text (`%FF`, an encoded lone surrogate `%ED%A0%80`, a cut-off
+ * `%2`). Next.js answers such a path with a bare 500 before any route runs; it is the client's mistake, so it is
+ * answered 400 here instead. The query string is left to the routes (URLSearchParams replaces bad bytes with U+FFFD).
+ */
+export function undecodablePath(url) {
+  try {
+    decodeURIComponent((url ?? "/").split("?")[0]);
+    return false;
+  } catch {
+    return true;
+  }
+}
+
+/**
  * Serves `handler(req, res)` (Next's, unless given) and installs the signal handlers. Resolves with the server once
  * it listens. `onStopped` runs after the database is closed (default: exit the process).
  */
@@ -58,6 +72,11 @@ export async function serve({
     if (stopping) {
       res.writeHead(503, { "content-type": "application/json", connection: "close", "retry-after": "5" });
       res.end(JSON.stringify({ error: { code: "shutting_down", message: "The server is restarting. Try again in a moment." } }));
+      return;
+    }
+    if (undecodablePath(req.url)) {
+      res.writeHead(400, { "content-type": "application/json", "x-content-type-options": "nosniff" });
+      res.end(JSON.stringify({ error: { code: "bad_request", message: "The address is not valid: a %-escape in its path is not UTF-8 text." } }));
       return;
     }
     appendPeer(req);
