@@ -1,8 +1,12 @@
 // The review page's filters, read from the query string (one schema for the page, the CSV route and the tests).
 import { z } from "zod";
+import { EARLIEST_DAY, LATEST_DAY } from "@/lib/workups/schemas";
 
+// The same range as the workup dates: a year 0 or 10000 reaches the date comparison and the database refuses it.
 const day = (label: string) =>
-  z.preprocess((v) => (v === "" ? undefined : v), z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` }).optional());
+  z.preprocess((v) => (v === "" ? undefined : v), z.iso.date({ error: `${label} must be a date written YYYY-MM-DD` })
+    .refine((d) => !/^\d{4}-\d{2}-\d{2}$/.test(d) || (d >= EARLIEST_DAY && d <= LATEST_DAY), { error: `${label} must be between ${EARLIEST_DAY} and ${LATEST_DAY}` })
+    .optional());
 const id = z.preprocess((v) => (v === "" ? undefined : v), z.string().trim().min(1).max(64).optional());
 
 export const reviewFilterSchema = z
