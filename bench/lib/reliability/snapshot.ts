@@ -6,7 +6,7 @@ import { type Db } from "@/lib/db/client";
 /** table -> columns whose changes are not writes by a request under test. */
 const VOLATILE: Record<string, string[]> = {
   ApiToken: ["lastUsedAt"],
-  Job: ["status", "attempts", "leaseUntil", "lockedBy", "lockedAt", "startedAt", "finishedAt", "progress", "error", "updatedAt", "runAt", "lastError"],
+  Job: ["status", "total", "done", "payload", "error", "lockedBy", "lockedAt", "updatedAt"],
 };
 
 export type Snapshot = Record<string, { rows: number; digest: string }>;
