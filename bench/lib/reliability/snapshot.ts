@@ -34,5 +34,6 @@ export async function snapshot(db: Db): Promise<Snapshot> {
 /** Tables whose rows or contents differ between two snapshots. */
 export function changedTables(before: Snapshot, after: Snapshot): string[] {
   const names = new Set([...Object.keys(before), ...Object.keys(after)]);
-  return [...names].filter((t) => before[t]?.rows !== after[t]?.rows || before[t]?.digest !== after[t]?.digest).sort();
+  return [...names].filter((t) => before[t]?.rows !== after[t]?.rows || before[t]?.digest !== after[t]?.digest).sort()
+    .map((t) => `${t} (${before[t]?.rows ?? 0} → ${after[t]?.rows ?? 0} rows)`);
 }
