@@ -69,8 +69,9 @@ export function readComponentParameters(comps: readonly Component[], out: Workup
   out.pKaStart[n] = q;
 }
 
-/** Reads the parameters of `input` into `out`, reallocating only the arrays whose length changes. */
-export function readParameters(input: WorkupInput, out: WorkupParameters = emptyParameters()): WorkupParameters {
+/** Reads the parameters of `input` into `out`, reallocating only the arrays whose length changes. `solventKeys`:
+ * the compiled library's solvents for this work-up, when the caller has them (engineSolventKeys otherwise). */
+export function readParameters(input: WorkupInput, out: WorkupParameters = emptyParameters(), solventKeys?: readonly string[]): WorkupParameters {
   readComponentParameters(input.components, out);
   const { solvents, reagents } = input.mixture;
   out.mixtureSolventMl = sized(out.mixtureSolventMl, solvents.length);
@@ -90,9 +91,11 @@ export function readParameters(input: WorkupInput, out: WorkupParameters = empty
     out.targetPh[i] = op.targetPh ?? Number.NaN;
     out.rinseMl[i] = op.rinse ? op.rinse.volumeMl : Number.NaN;
   }
-  const solventKeys = engineSolventKeys(input);
-  out.ionPairShift = sized(out.ionPairShift, solventKeys.length);
-  for (let i = 0; i < solventKeys.length; i++) out.ionPairShift[i] = input.ionPairShift?.[solventKeys[i] as string] ?? 0;
+  const keys = solventKeys ?? engineSolventKeys(input);
+  out.ionPairShift = sized(out.ionPairShift, keys.length);
+  const shift = input.ionPairShift;
+  if (shift === undefined) out.ionPairShift.fill(0);
+  else for (let i = 0; i < keys.length; i++) out.ionPairShift[i] = shift[keys[i] as string] ?? 0;
   return out;
 }
 

@@ -122,7 +122,7 @@ export function simulateWorkup(parsed: WorkupInput, options: PredictOptions = {}
   const withFlags = options.flags !== false;
   const sim = acquireSimulator(lib, parsed.components.length);
   try {
-    sim.begin(parsed, readParameters(parsed, sim.params), withFlags);
+    sim.begin(parsed, readParameters(parsed, sim.params, lib.solventKeys), withFlags);
     const comps = sim.comps;
     const steps: StepResult[] = [];
     let contacts: ContactResult[] = [];
