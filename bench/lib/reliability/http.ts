@@ -35,7 +35,8 @@ export async function ask(base: string, path: string, options: Ask = {}): Promis
     return { status: res.status, headers: res.headers, body, ms: performance.now() - t0, failure: null };
   } catch (error) {
     const timeout = error instanceof Error && (error.name === "TimeoutError" || error.name === "AbortError");
-    return { status: timeout ? -2 : -1, headers: new Headers(), body: "", ms: performance.now() - t0, failure: timeout ? "timeout" : "reset" };
+    const cause = error instanceof Error ? `${error.message}${error.cause instanceof Error ? `: ${error.cause.message}` : ""}` : "request failed";
+    return { status: timeout ? -2 : -1, headers: new Headers(), body: cause, ms: performance.now() - t0, failure: timeout ? "timeout" : "reset" };
   }
 }
 
