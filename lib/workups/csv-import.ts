@@ -60,6 +60,9 @@ interface CheckedRow {
 }
 
 export async function importWorkupsCsv(db: Db, actor: Actor, text: string, options: CsvImportOptions = {}): Promise<CsvImportResult> {
+  // A NUL cannot be stored in any text column; refused for the whole file before a row is read (it reached the
+  // database and answered 500). Broken UTF-16 cannot occur here: the body was decoded as strict UTF-8.
+  if (text.includes("\u0000")) throw new ValidationError({ csv: ["the file contains a NUL character (U+0000); remove it and import again"] });
   const table = parseCsv(text);
   for (const required of ["title", "performed_on"]) {
     if (!table.columns.includes(required)) throw new ValidationError({ csv: [`the header needs a '${required}' column`] });
