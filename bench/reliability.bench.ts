@@ -107,18 +107,24 @@ async function main(): Promise<void> {
       let replayed = 0;
       if (result.acceptedWrites > 0) {
         // Some generated inputs were valid after all and were written. Replay only the refused writes between two
-        // fresh snapshots: anything they leave behind is a partial write.
-        const refusedWrites = cases.filter((x, i) => x.write && !((result.statuses[i] ?? 0) >= 200 && (result.statuses[i] ?? 0) < 300));
-        replayed = refusedWrites.length;
-        const again = await runFuzz(context, refusedWrites);
-        result.serverErrors += again.serverErrors;
-        result.brokenConnections += again.brokenConnections;
-        result.leaks += again.leaks;
-        result.problems.push(...again.problems.map((p) => ({ ...p, why: `replay: ${p.why}` })));
-        await jobsIdle(instance, people.lead.token);
-        const final = await snap();
-        changed = changedTables(after, final).map((t) => `${t}${again.acceptedWrites > 0 ? " (replay accepted some)" : ""}`);
-        after = final;
+        // fresh snapshots (again, if some of them are accepted now, e.g. a stale version that has become current):
+        // anything a refused write leaves behind is a partial write.
+        let refusedWrites = cases.filter((x, i) => x.write && !((result.statuses[i] ?? 0) >= 200 && (result.statuses[i] ?? 0) < 300));
+        for (let pass = 1; pass <= 3; pass++) {
+          replayed += refusedWrites.length;
+          const again = await runFuzz(context, refusedWrites);
+          result.serverErrors += again.serverErrors;
+          result.brokenConnections += again.brokenConnections;
+          result.leaks += again.leaks;
+          result.problems.push(...again.problems.map((p) => ({ ...p, why: `replay: ${p.why}` })));
+          await jobsIdle(instance, people.lead.token);
+          const final = await snap();
+          changed = changedTables(after, final);
+          after = final;
+          if (again.acceptedWrites === 0) break;
+          changed = changed.map((t) => `${t} (replay accepted ${again.acceptedWrites})`);
+          refusedWrites = refusedWrites.filter((_, i) => !((again.statuses[i] ?? 0) >= 200 && (again.statuses[i] ?? 0) < 300));
+        }
       }
       fuzz = { ...result, partialWrites: changed.length, changedTables: changed, replayed, snapshotTables: Object.keys(after).length };
       console.log(`  ${result.requests} requests: ${result.serverErrors} 5xx, ${result.brokenConnections} broken connections, ${result.leaks} leaks, ${changed.length} tables changed by refused writes (${result.acceptedWrites} accepted writes${replayed ? `, ${replayed} refused writes replayed` : ""}); slowest ${(result.slowestMs / 1000).toFixed(1)} s (${result.slowest})`);
