@@ -37,7 +37,7 @@ export function writeSummary(dir: string): void {
     `| **stack traces / internal messages in bodies** | ${col((r) => String(r.fuzz?.leaks ?? "–"))} |`,
     `| **partial writes** (tables changed by refused writes, of all tables) | ${col((r) => (r.fuzz ? `${r.fuzz.partialWrites} of ${r.fuzz.snapshotTables}` : "–"))} |`,
     `| generated writes that were valid and accepted | ${col((r) => (r.fuzz ? `${r.fuzz.acceptedWrites}${r.fuzz.replayed ? ` (refused ${r.fuzz.replayed} replayed between snapshots)` : ""}` : "–"))} |`,
-    `| slowest malformed request | ${col((r) => (r.fuzz ? `${(r.fuzz.slowestMs / 1000).toFixed(1)} s (${r.fuzz.slowest})` : "–"))} |`,
+    `| slowest malformed request | ${col((r) => (r.fuzz ? `${(r.fuzz.slowestMs / 1000).toFixed(1)} s (${r.fuzz.slowest.replace(/\|/g, "\\|")})` : "–"))} |`,
     `| **kill -9 rounds × writers** | ${col((r) => (r.kill ? `${r.kill.rounds.length} × ${r.kill.writers}` : "not run"))} |`,
     `| acknowledged writes (per round) | ${col((r) => (r.kill ? `${r.kill.acknowledged} (${r.kill.rounds.map((x) => x.acknowledged).join(", ")})` : "–"))} |`,
     `| **acknowledged writes lost** | ${col((r) => String(r.kill?.lost ?? "–"))} |`,
