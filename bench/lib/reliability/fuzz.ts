@@ -4,6 +4,7 @@
 // type, another group's ids, bad cursors and dates, broken percent-encoding. Each answer is checked for a 5xx, a
 // broken connection, and a stack trace or internal message in its body.
 import { randomBytes } from "node:crypto";
+import { createRng } from "@/lib/chem/random";
 import { type GroupRecords, type People, OUTCOME, PNG_1PX, workupBody } from "./fixtures";
 import { ask, bearer, pool, type Answer } from "./http";
 
@@ -51,18 +52,6 @@ const LEAK_PATTERNS: [RegExp, string][] = [
 export function leakIn(body: string): string | null {
   for (const [re, what] of LEAK_PATTERNS) if (re.test(body)) return what;
   return null;
-}
-
-/** Seeded so a run can be repeated (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const RAW = "\u0001RAW:";
@@ -304,7 +293,8 @@ export async function buildCases(c: FuzzContext, wanted: number, seed = 12): Pro
   // Sample evenly-ish: every group keeps at least its share, the rest filled at random (seeded).
   const all = groups.flat();
   if (all.length <= wanted) return all;
-  const random = rng(seed);
+  const stream = createRng(seed);
+  const random = () => stream.uniform();
   const perGroup = Math.floor(wanted / groups.length);
   const picked = new Set<FuzzCase>();
   for (const g of groups) {

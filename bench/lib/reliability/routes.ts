@@ -1,9 +1,8 @@
 // Every way into the app, read from the file system (app/**/route.ts and page.tsx) the way the guard meta-test reads
 // it, with the permission each one asks the guard for taken from its source. A new route or page joins the matrix
 // by existing; one whose guard call the bench cannot read is reported, not skipped.
-import { readdirSync, readFileSync, statSync } from "node:fs";
-import path from "node:path";
 import ts from "typescript";
+import { callsIn, calleeName, isDefault, isExported, parse, walk } from "../../../tests/support/source-scan";
 import { PERMISSIONS, type Permission } from "@/lib/authz/permissions";
 
 const HTTP_METHODS = new Set(["GET", "POST", "PUT", "PATCH", "DELETE"]);
@@ -24,38 +23,6 @@ export interface Endpoint {
   personParam: string | null;
   /** Pages: what the layouts around the page ask for (they run with the page). */
   layouts: Requirement[];
-}
-
-function walk(root: string, dir: string, keep: (file: string) => boolean): string[] {
-  return readdirSync(path.join(root, dir)).sort().flatMap((name) => {
-    const rel = path.posix.join(dir, name);
-    if (statSync(path.join(root, rel)).isDirectory()) return walk(root, rel, keep);
-    return keep(rel) ? [rel] : [];
-  });
-}
-
-function parse(root: string, file: string): ts.SourceFile {
-  return ts.createSourceFile(file, readFileSync(path.join(root, file), "utf8"), ts.ScriptTarget.Latest, true, file.endsWith("x") ? ts.ScriptKind.TSX : ts.ScriptKind.TS);
-}
-
-const isExported = (node: ts.Node) => ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.ExportKeyword);
-const isDefault = (node: ts.Node) => ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.DefaultKeyword);
-
-function calleeName(call: ts.CallExpression): string | null {
-  const e = call.expression;
-  if (ts.isIdentifier(e)) return e.text;
-  if (ts.isPropertyAccessExpression(e)) return e.name.text;
-  return null;
-}
-
-function callsIn(node: ts.Node): ts.CallExpression[] {
-  const out: ts.CallExpression[] = [];
-  const visit = (n: ts.Node) => {
-    if (ts.isCallExpression(n)) out.push(n);
-    n.forEachChild(visit);
-  };
-  node.forEachChild(visit);
-  return out.sort((a, b) => a.getStart() - b.getStart());
 }
 
 function permissionArg(call: ts.CallExpression): Requirement {

@@ -1,7 +1,7 @@
 // Every way into the app goes through the guard (lib/authz). This test reads the source, so a new page, route
 // handler or server action that forgets the guard, or a server action that hands an argument to the data layer
 // without parsing it, fails here before it ships. Exceptions are listed by path with the reason they are safe.
-import { readdirSync, readFileSync, statSync } from "node:fs";
+import { calleeName, callsIn, isDefault, isExported, parse as parseFrom, walk as walkFrom } from "../../support/source-scan";
 import path from "node:path";
 import ts from "typescript";
 import { describe, expect, it } from "vitest";
@@ -27,38 +27,9 @@ const PUBLIC_ACTIONS: Record<string, string> = {
   "joinWithNewAccountAction": "creating an account from an invite: nobody is signed in, the invite token is the authority",
 };
 
-function walk(dir: string, keep: (file: string) => boolean): string[] {
-  return readdirSync(path.join(ROOT, dir)).flatMap((name) => {
-    const rel = path.posix.join(dir, name);
-    if (statSync(path.join(ROOT, rel)).isDirectory()) return name === "node_modules" ? [] : walk(rel, keep);
-    return keep(rel) ? [rel] : [];
-  });
-}
-
-function parse(file: string): ts.SourceFile {
-  return ts.createSourceFile(file, readFileSync(path.join(ROOT, file), "utf8"), ts.ScriptTarget.Latest, true, file.endsWith("x") ? ts.ScriptKind.TSX : ts.ScriptKind.TS);
-}
-
-const isExported = (node: ts.Node) => ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.ExportKeyword);
-const isDefault = (node: ts.Node) => ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.DefaultKeyword);
-
-function calleeName(call: ts.CallExpression): string | null {
-  const e = call.expression;
-  if (ts.isIdentifier(e)) return e.text;
-  if (ts.isPropertyAccessExpression(e)) return e.name.text;
-  return null;
-}
-
-/** Call expressions inside `node`, in source order. */
-function calls(node: ts.Node): ts.CallExpression[] {
-  const out: ts.CallExpression[] = [];
-  const visit = (n: ts.Node) => {
-    if (ts.isCallExpression(n)) out.push(n);
-    n.forEachChild(visit);
-  };
-  node.forEachChild(visit);
-  return out.sort((a, b) => a.getStart() - b.getStart());
-}
+const walk = (dir: string, keep: (file: string) => boolean) => walkFrom(ROOT, dir, keep);
+const parse = (file: string) => parseFrom(ROOT, file);
+const calls = callsIn;
 
 function usesIdentifier(node: ts.Node, name: string): boolean {
   let found = false;
