@@ -154,15 +154,16 @@ async function main(): Promise<void> {
   const evalsPerPrediction = countEvaluations(() => simulateWorkup(fresh[1] as WorkupInput, { steps: false, flags: false }));
   const evalsPerDraw = countEvaluations(() => propagateUncertainty(parsed, simulateWorkup, { draws: 1000, seed: 1 })) / 1001;
   console.log(`charge-balance evaluations: ${evalsPerPrediction} per prediction (new input), ${evalsPerDraw.toFixed(1)} per draw of the uncertainty run`);
+  const summary = {
+    bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
+    predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
+    predictionFullUs: Number(fullUs.toFixed(2)), predictionValidatedUs: Number(validatedUs.toFixed(2)),
+    uncertainty1000Ms: Number(mcMs.toFixed(3)), evaluationsPerPrediction: evalsPerPrediction, evaluationsPerDraw: Number(evalsPerDraw.toFixed(2)),
+  };
+  const machine = () => ({ cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))) });
   if (process.argv.includes("--no-bulk")) {
     console.log(loadLine());
-    console.log(JSON.stringify({
-      bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
-      predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
-      predictionFullUs: Number(fullUs.toFixed(2)), predictionValidatedUs: Number(validatedUs.toFixed(2)),
-      uncertainty1000Ms: Number(mcMs.toFixed(3)), evaluationsPerPrediction: evalsPerPrediction, evaluationsPerDraw: Number(evalsPerDraw.toFixed(2)),
-      cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))),
-    }));
+    console.log(JSON.stringify({ ...summary, ...machine() }));
     return;
   }
 
@@ -179,12 +180,9 @@ async function main(): Promise<void> {
 
   console.log(loadLine());
   console.log(JSON.stringify({
-    bench: "chem", steps: parsed.operations.length, components: parsed.components.length, runs,
-    predictionFastUs: Number(fastUs.toFixed(2)), predictionFastFreshInputUs: Number(freshUs.toFixed(2)), predictionCompiledUs: Number(compiledUs.toFixed(2)),
-    predictionFullUs: Number(fullUs.toFixed(2)), predictionValidatedUs: Number(validatedUs.toFixed(2)),
-    uncertainty1000Ms: Number(mcMs.toFixed(3)), evaluationsPerPrediction: evalsPerPrediction, evaluationsPerDraw: Number(evalsPerDraw.toFixed(2)),
+    ...summary,
     bulk100kFastSeconds: Number(bulkFast.seconds.toFixed(3)), bulk100kFullSeconds: Number(bulkFull.seconds.toFixed(3)),
-    bulk100kFullWithStartupSeconds: Number(bulkFull.withStartup.toFixed(3)), workers, cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))),
+    bulk100kFullWithStartupSeconds: Number(bulkFull.withStartup.toFixed(3)), workers, ...machine(),
   }));
 }
 
