@@ -54,25 +54,22 @@ export function estimateAbrahamDescriptors(rdkit: RDKitModule, mol: RDKitMol): E
     sum.E += fr.E; sum.S += fr.S; sum.A += fr.A; sum.B += fr.B; sum.L += fr.L;
     fragments.push(fr.label);
   };
-  const covered = new Set<number>();
-  for (const { fragment, query } of atoms) {
-    for (const m of matches(mol, query)) {
-      const centre = m[0];
-      if (centre === undefined || covered.has(centre)) continue;
-      covered.add(centre);
-      add(fragment);
+  // Each fragment counts once per centre atom (its pattern's first atom), whatever else the pattern matched.
+  const addPerCentre = (list: typeof atoms): Set<number> => {
+    const centres = new Set<number>();
+    for (const { fragment, query } of list) {
+      for (const m of matches(mol, query)) {
+        const centre = m[0];
+        if (centre === undefined || centres.has(centre)) continue;
+        centres.add(centre);
+        add(fragment);
+      }
     }
-  }
+    return centres;
+  };
+  const covered = addPerCentre(atoms);
   for (let i = 0; i < heavy.length; i++) if (heavy[i] && !covered.has(i)) return null;
-  const corrected = new Set<number>();
-  for (const { fragment, query } of corrections) {
-    for (const m of matches(mol, query)) {
-      const centre = m[0];
-      if (centre === undefined || corrected.has(centre)) continue;
-      corrected.add(centre);
-      add(fragment);
-    }
-  }
+  addPerCentre(corrections);
   const r = (x: number) => Math.round(x * 1000) / 1000;
   return { E: r(sum.E), S: r(sum.S), A: r(Math.max(0, sum.A)), B: r(Math.max(0, sum.B)), L: r(sum.L), V: Math.round(V * 10000) / 10000,
     provenance: "estimated", fragments };
