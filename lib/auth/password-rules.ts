@@ -1,10 +1,13 @@
-// Password and email rules, free of server imports so forms can show the same messages the server enforces.
+// Password and email rules, free of server imports so forms can show the same messages the server enforces. Client
+// components that only need the length import it from password-limits.ts and leave the dictionary out of the bundle.
 import { z } from "zod";
-import { COMMON_PASSWORDS } from "@/lib/auth/common-passwords";
+import { isCommonPassword } from "@/lib/auth/common-passwords";
+import { PASSWORD_MIN_LENGTH } from "@/lib/auth/password-limits";
+
+export { PASSWORD_MIN_LENGTH };
 
 /** bcrypt only reads the first 72 bytes of a password; longer ones are refused rather than silently truncated. */
 export const PASSWORD_MAX_BYTES = 72;
-export const PASSWORD_MIN_LENGTH = 10;
 
 export const COMMON_PASSWORD_MESSAGE = "This password is among the most used ones (or a simple pattern); choose something less guessable.";
 export const EMAIL_PASSWORD_MESSAGE = "Do not use your email address (or its name part) as the password.";
@@ -25,7 +28,7 @@ function isSimplePattern(lower: string): boolean {
 /** Why a new password is too easy to guess, or null. `email` is the account's own address, when known. */
 export function weakPasswordReason(password: string, email?: string): string | null {
   const lower = password.trim().toLowerCase();
-  if (COMMON_PASSWORDS.has(lower) || isSimplePattern(lower)) return COMMON_PASSWORD_MESSAGE;
+  if (isCommonPassword(lower) || isSimplePattern(lower)) return COMMON_PASSWORD_MESSAGE;
   if (email) {
     const address = email.trim().toLowerCase();
     const local = address.split("@")[0] ?? "";

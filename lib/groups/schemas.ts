@@ -2,10 +2,11 @@
 import { z } from "zod";
 import { EMAIL_PASSWORD_MESSAGE, emailSchema, passwordSchema, weakPasswordReason } from "@/lib/auth/password-rules";
 import { ROLES } from "@/lib/authz/roles";
+import { INVITE_LIFETIMES_DAYS } from "./invite-options";
+
+export { INVITE_LIFETIMES_DAYS };
 
 export const roleSchema = z.enum(ROLES, { error: () => "Choose lead, member or viewer." });
-
-export const INVITE_LIFETIMES_DAYS = [1, 7, 14] as const;
 
 export const createInviteSchema = z.object({
   role: roleSchema,

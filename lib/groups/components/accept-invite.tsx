@@ -8,7 +8,7 @@ import { FieldErrorSummary } from "@/components/ui/error-summary";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { buttonClass } from "@/components/ui/button";
 import { joinWithAccountAction, joinWithNewAccountAction, type JoinedGroup } from "@/lib/groups/actions";
-import { PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
+import { PASSWORD_MIN_LENGTH } from "@/lib/auth/password-limits";
 import type { ActionResult } from "@/lib/errors";
 
 /** Signed in: one button adds the membership, then makes the new group the active one. */

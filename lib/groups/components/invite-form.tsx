@@ -6,7 +6,7 @@ import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { formatDate } from "@/components/ui/format";
 import { createInviteAction } from "@/lib/groups/actions";
-import { INVITE_LIFETIMES_DAYS } from "@/lib/groups/schemas";
+import { INVITE_LIFETIMES_DAYS } from "@/lib/groups/invite-options";
 import { ROLE_LABELS } from "@/lib/authz/roles";
 import { ErrorSummary } from "@/components/ui/error-summary";
 
