@@ -21,6 +21,18 @@ export interface CauseSize {
   baseline?: WorkupInput;
   /** Closed-form change of log recovery; otherwise the input is re-run. */
   effect?: number;
+  /**
+   * The same change re-run with the product's partition shifted by z standard deviations (see acrossPartition): the
+   * evidence then averages over the partition as well as over the size.
+   */
+  across?: PartitionNode[];
+}
+
+/** The change at the product's log P shifted by z σ, against the recorded workup at the same shift. */
+export interface PartitionNode {
+  z: number;
+  input: WorkupInput;
+  baseline: WorkupInput;
 }
 
 export interface CauseCandidate {
@@ -80,18 +92,23 @@ function shiftProduct(input: WorkupInput, productIndex: number, d: number): Work
 
 /**
  * A procedural slip's effect depends on how well the product partitions, which the engine knows only to its stated
- * spread: the slip is re-run at the product's log P and at ±√3 σ around it (three-point Gauss–Hermite rule, weights
- * 1/6, 2/3, 1/6), each against the recorded workup at the same log P. σ: the stated se of log P combined with the
- * Collander translation error to the extraction solvent, as in the engine's Monte Carlo.
+ * spread: the slip is re-run at the product's log P and at ±√3 σ around it, each against the recorded workup at the
+ * same log P; the scoring interpolates the effect between these nodes and averages over a normal spread of the
+ * partition (lib/workups/causes.ts). σ: the stated se of log P combined with the Collander translation error to the
+ * extraction solvent, as in the engine's Monte Carlo.
  */
-function acrossPartition(input: WorkupInput, productIndex: number, size: CauseSize & { input: WorkupInput }): CauseSize[] {
+function acrossPartition(input: WorkupInput, productIndex: number, size: CauseSize & { input: WorkupInput }): CauseSize {
   const product = input.components[productIndex];
   const sigma = Math.hypot(product?.logP?.se ?? 0.3, solventTranslationSd(input));
-  return [-1, 0, 1].map((k) => {
-    const d = k * Math.sqrt(3) * sigma;
-    if (d === 0) return size;
-    return { ...size, weight: size.weight / 4, input: shiftProduct(size.input, productIndex, d), baseline: shiftProduct(input, productIndex, d) };
-  });
+  return {
+    ...size,
+    across: [-1, 0, 1].map((k) => {
+      const z = k * Math.sqrt(3);
+      return k === 0
+        ? { z, input: size.input, baseline: input }
+        : { z, input: shiftProduct(size.input, productIndex, z * sigma), baseline: shiftProduct(input, productIndex, z * sigma) };
+    }),
+  };
 }
 
 /** Reading error of pH paper or a quick meter check of a funnel layer (common practice: about half a unit). */
@@ -106,9 +123,21 @@ function readingRatio(readings: readonly { target: number; read: number }[], d: 
   return readings.reduce((r, { target, read }) => r * Math.exp((((read - target) ** 2) - (read - target - d) ** 2) / (2 * PH_READING_SD ** 2)), 1);
 }
 
+/**
+ * Prior over the size of a pH error, in units (common practice): most slips are a short addition of acid or base or
+ * a layer not mixed before reading (off by about a unit); the other kind is a reagent of the wrong strength or too
+ * little of it to neutralize what the mixture holds (bicarbonate where hydroxide was needed leaves pH ≈ 8 against
+ * 12–14; acid that only neutralizes leaves the carboxylate in the water), which is off by 3–5 units. Modelled as an
+ * exponential (scale 1 unit) plus, with 40 % of its weight, a normal around 3.5 ± 1 units.
+ */
+export function wrongPhPrior(d: number): number {
+  const a = Math.abs(d);
+  return Math.exp(-a) + 0.4 * Math.exp(-0.5 * (a - 3.5) ** 2);
+}
+
 function wrongPh(input: WorkupInput, productIndex: number): CauseCandidate | null {
-  const deltas = [...range(-4, -0.5, 0.5), ...range(0.5, 4, 0.5)];
-  const prior = (d: number) => Math.exp(-Math.abs(d) / 1.5);
+  const deltas = [...range(-6, -0.5, 0.5), ...range(0.5, 6, 0.5)];
+  const prior = wrongPhPrior;
   const adjusted = input.operations.map((op, i) => ({ op, i })).filter(({ op }) => op.type === "adjust_ph" && op.targetPh !== undefined);
   const readings = adjusted.flatMap(({ op }) => (op.type === "adjust_ph" && op.targetPh !== undefined && op.observed?.pH !== undefined ? [{ target: op.targetPh, read: op.observed.pH }] : []));
   if (adjusted.length > 0) {
@@ -173,7 +202,7 @@ function cosolventLeft(input: WorkupInput, productIndex: number): CauseCandidate
   });
   return {
     code: "cosolvent_not_removed", title: "Water-miscible co-solvent not removed before the extraction", step: (removals[0]?.i ?? 0) + 1,
-    share: 1, simulated: true, sizes: lefts.flatMap((l) => acrossPartition(input, productIndex, { weight: 1, ...at(l) })),
+    share: 1, simulated: true, sizes: lefts.map((l) => acrossPartition(input, productIndex, { weight: 1, ...at(l) })),
   };
 }
 
@@ -186,14 +215,14 @@ function oneFewerExtraction(input: WorkupInput, productIndex: number): CauseCand
     const fewer = { ...multi.op, portions: multi.op.portions - 1 };
     return {
       code: "one_fewer_extraction", title, step: multi.i + 1, share: 1, simulated: true,
-      sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${multi.i + 1}: ${multi.op.portions} → ${multi.op.portions - 1} portions`, input: withOperations(input, ops.map((op, i) => (i === multi.i ? fewer : op))) }),
+      sizes: [acrossPartition(input, productIndex, { weight: 1, words: `step ${multi.i + 1}: ${multi.op.portions} → ${multi.op.portions - 1} portions`, input: withOperations(input, ops.map((op, i) => (i === multi.i ? fewer : op))) })],
     };
   }
   const last = extractions.at(-1);
   if (extractions.length < 2 || !last) return null;
   return {
     code: "one_fewer_extraction", title, step: last.i + 1, share: 1, simulated: true,
-    sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${last.i + 1} (extraction) left out`, input: withOperations(input, ops.filter((_, i) => i !== last.i)) }),
+    sizes: [acrossPartition(input, productIndex, { weight: 1, words: `step ${last.i + 1} (extraction) left out`, input: withOperations(input, ops.filter((_, i) => i !== last.i)) })],
   };
 }
 
@@ -205,7 +234,7 @@ function wrongLayers(input: WorkupInput, productIndex: number): CauseCandidate[]
     const flipped = { ...op, keep: keep === "organic" ? "aqueous" : "organic" } as Operation;
     return {
       code: "wrong_layer" as const, title: "Wrong layer kept", step: i + 1, share: 1 / sites.length, simulated: true,
-      sizes: acrossPartition(input, productIndex, { weight: 1, words: `step ${i + 1} kept the ${keep === "organic" ? "aqueous" : "organic"} layer instead of the ${keep}`, input: withOperations(input, ops.map((o, k) => (k === i ? flipped : o))) }),
+      sizes: [acrossPartition(input, productIndex, { weight: 1, words: `step ${i + 1} kept the ${keep === "organic" ? "aqueous" : "organic"} layer instead of the ${keep}`, input: withOperations(input, ops.map((o, k) => (k === i ? flipped : o))) })],
     };
   });
 }

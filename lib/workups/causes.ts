@@ -119,7 +119,60 @@ function likelihoodScale(q: CauseQuestion) {
   return { at, target: Math.log(Math.exp(q.observedLog) + ABSOLUTE_FLOOR) - Math.log(median + ABSOLUTE_FLOOR) };
 }
 
+/** Grid over the partition's spread, in standard deviations, with normal weights summing to 1. */
+const PARTITION_GRID = (() => {
+  const zs = Array.from({ length: 33 }, (_, i) => -4 + i * 0.25);
+  const ws = zs.map((z) => Math.exp(-0.5 * z * z));
+  const total = ws.reduce((a, b) => a + b, 0);
+  return zs.map((z, i) => ({ z, weight: (ws[i] as number) / total }));
+})();
+
+/** Piecewise-linear interpolation through the nodes (ascending z), held at the end values beyond them. */
+function interpolate(nodes: readonly { z: number; effect: number }[], z: number): number {
+  const first = nodes[0]!;
+  const last = nodes.at(-1)!;
+  if (z <= first.z) return first.effect;
+  if (z >= last.z) return last.effect;
+  const i = nodes.findIndex((n) => n.z >= z);
+  const a = nodes[i - 1]!;
+  const b = nodes[i]!;
+  return a.effect + ((z - a.z) / (b.z - a.z)) * (b.effect - a.effect);
+}
+
+/**
+ * A change whose effect depends on the product's partition: at each size, the effect at the nodes (re-runs at shifted
+ * log P) is interpolated over a normal spread of the partition and the likelihood averaged over it; the sizes are
+ * then averaged by their prior weights. The most plausible point (size and partition) gives the change shown.
+ */
+function scoreAcross(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator): Scored | null {
+  const scale = likelihoodScale(q);
+  const perSize: { logWeight: number; logEvidence: number }[] = [];
+  let best: { logPost: number; effect: number; words: string } | null = null;
+  for (const size of candidate.sizes) {
+    const nodes = (size.across ?? []).flatMap((n) => {
+      const effect = effectOf(n.input, simulate, baselineOf(n.baseline, simulate));
+      return effect === null ? [] : [{ z: n.z, effect }];
+    });
+    if (!nodes.some((n) => n.z === 0)) continue;
+    const terms = PARTITION_GRID.map(({ z, weight }) => {
+      const effect = interpolate(nodes, z);
+      const at = scale.at(effect);
+      return { effect, logTerm: Math.log(weight) + logNormalDensity(scale.target, at.x, at.sd) };
+    });
+    const logEvidence = logSum(terms.map((t) => t.logTerm));
+    const logWeight = Math.log(size.weight) + Math.log(size.evidence ?? 1);
+    perSize.push({ logWeight, logEvidence });
+    for (const t of terms) {
+      if (!best || logWeight + t.logTerm > best.logPost) best = { logPost: logWeight + t.logTerm, effect: t.effect, words: size.words };
+    }
+  }
+  if (perSize.length === 0 || !best) return null;
+  const totalWeight = logSum(perSize.map((p) => p.logWeight));
+  return { candidate, logEvidence: logSum(perSize.map((p) => p.logWeight - totalWeight + p.logEvidence)), best: { effect: best.effect, words: best.words } };
+}
+
 function score(candidate: CauseCandidate, q: CauseQuestion, simulate: Simulator): Scored | null {
+  if (candidate.sizes.some((s) => s.across)) return scoreAcross(candidate, q, simulate);
   const target = q.observedLog - q.logMean;
   const logR0 = Math.log(Math.max(q.engineRecovery, 1e-12));
   const scale = likelihoodScale(q);
