@@ -13,7 +13,7 @@
  *   extraction fewer, pH at the wrong value (acid: 1.5–3 units high, not enough acid; base: 3–4.5 units low,
  *   bicarbonate-strength basification), methanol co-solvent 60–100 % left in, 20–50 % lost with an emulsion (noted in
  *   80 % of cases), reaction giving 40–75 % of the product.
- * Run: npm run bench:detection [-- --groups 12 --workups 150 --seed 1].
+ * Run: npm run bench:detection [-- --groups 12 --workups 150 --seed 1 --show wrong_ph].
  * Targets: 95 % interval covers 93–97 % of clean workups; false flags ≤ 5 %; ≥ 90 % of failures flagged; the true
  * cause first in ≥ 80 % and in the top three in ≥ 95 % of flagged failures.
  */
@@ -237,6 +237,11 @@ function runGroup(groupSeed: number, workups: number, templates: Template[], tal
     basis.n++;
     if (analysis.flagged) basis.flagged++;
     k.sds.push(analysis.predictive?.logSd ?? NaN);
+    if (SHOW === kind) {
+      const reading = spec.operations.find((o) => o.type === "adjust_ph")?.observed?.pH;
+      const top = analysis.causes.slice(0, 3).map((c) => `${c.code} ${(100 * c.score).toFixed(0)} % (gap ${(100 * c.fractionOfGap).toFixed(0)} %)`).join(", ");
+      console.log(`    ${kind} ${t.acid ? "acid" : "base"} loss ${(100 * (1 - Math.exp(effect))).toFixed(0)} %${assayed ? " assayed" : ""}${reading !== undefined ? ` pH read ${reading}` : ""}: ${analysis.flagged ? "flagged" : "not flagged"}; ${top || "no cause listed"}`);
+    }
     if (!analysis.flagged) continue;
     tally.flagged++;
     k.flagged++;
@@ -246,6 +251,9 @@ function runGroup(groupSeed: number, workups: number, templates: Template[], tal
     if (rank >= 0 && rank < 3) { tally.top3++; k.top3++; }
   }
 }
+
+/** --show <cause>: list every injected failure of that kind with its judgement (to see why one is missed). */
+const SHOW = (() => { const i = process.argv.indexOf("--show"); return i >= 0 ? process.argv[i + 1] : undefined; })();
 
 function argument(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);
