@@ -68,19 +68,17 @@ export async function readBodyBytes(request: Request, limit: number, options: Bo
   return joined;
 }
 
-/** The body as text, refusing it as soon as it passes `limit` bytes. */
-export async function readBodyText(request: Request, limit: number, options: BodyOptions = {}): Promise<string> {
-  const joined = await readBodyBytes(request, limit, options);
+/** A body's bytes as text, or BadRequestError when they are not UTF-8. */
+export function bodyText(bytes: Uint8Array): string {
   try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(joined);
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
     throw new BadRequestError("The request body is not valid UTF-8 text.");
   }
 }
 
-/** Parses a JSON body. The value is unknown: validate it with the route's zod schema. */
-export async function readJsonBody(request: Request, limit = JSON_BODY_LIMIT, options: BodyOptions = {}): Promise<unknown> {
-  const text = await readBodyText(request, limit, options);
+/** A body's text parsed as JSON, or BadRequestError naming what is wrong (also used on engine threads). */
+export function bodyJson(text: string): unknown {
   if (text.trim() === "") throw new BadRequestError("The request body is empty: send a JSON object.");
   try {
     return JSON.parse(text) as unknown;
@@ -88,6 +86,16 @@ export async function readJsonBody(request: Request, limit = JSON_BODY_LIMIT, op
     const detail = error instanceof SyntaxError ? ` (${error.message})` : "";
     throw new BadRequestError(`The request body is not valid JSON${detail}.`);
   }
+}
+
+/** The body as text, refusing it as soon as it passes `limit` bytes. */
+export async function readBodyText(request: Request, limit: number, options: BodyOptions = {}): Promise<string> {
+  return bodyText(await readBodyBytes(request, limit, options));
+}
+
+/** Parses a JSON body. The value is unknown: validate it with the route's zod schema. */
+export async function readJsonBody(request: Request, limit = JSON_BODY_LIMIT, options: BodyOptions = {}): Promise<unknown> {
+  return bodyJson(await readBodyText(request, limit, options));
 }
 
 /** Query-string parameters as a plain object (repeated names keep the last value). */

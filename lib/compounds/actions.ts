@@ -11,6 +11,7 @@ import { clearLogP, deleteCompound, revertPKa, setLogP, setPKa } from "./edits";
 import { type RecordProblem } from "./import-records";
 import { logPEditSchema, pKaEditSchema, registerCompoundsSchema, type RegisterCompoundsInput } from "./schemas";
 import { registerCompounds, RegistrationRejected, type RegisteredCompound } from "./service";
+import { withHeavySlot } from "@/lib/workers/limits";
 
 export type RegisterOutcome =
   | { status: "registered"; created: RegisteredCompound[]; skipped: RecordProblem[] }
@@ -23,7 +24,8 @@ export async function registerCompoundsAction(input: RegisterCompoundsInput): Pr
   return memberAction("data:write", async (member): Promise<RegisterOutcome> => {
     const parsed = parseInput(registerCompoundsSchema, input);
     try {
-      const result = await registerCompounds(await getDb(), actor(member), parsed);
+      // Reading every structure is heavy work: one of the member's heavy slots (429 when they are all taken).
+      const result = await withHeavySlot(member.user.id, async () => registerCompounds(await getDb(), actor(member), parsed));
       revalidatePath("/compounds");
       return { status: "registered", ...result };
     } catch (error) {

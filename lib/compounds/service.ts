@@ -1,12 +1,16 @@
 // Registering compounds: read and check every record first, then write the whole batch in one transaction or
-// nothing at all. Functions take the database first so tests and scripts can pass their own.
-import { loadRDKit, StructureError, type RDKitModule } from "@/lib/chem/structure";
+// nothing at all. Functions take the database first so tests and scripts can pass their own. Reading (RDKit) runs on
+// the engine threads, a slice of records per task, so a large SD file neither holds the event loop nor keeps a
+// thread from other people's work for its whole length.
+import { type RDKitModule } from "@/lib/chem/structure";
 import { type Db } from "@/lib/db/client";
 import { isUniqueViolation } from "@/lib/db/errors";
 import { ConflictError, ValidationError } from "@/lib/errors";
+import { nextTurn } from "@/lib/workers/next-turn";
+import { enginePool } from "@/lib/workers/pool";
 import { databaseNow, writeTransaction } from "./clock";
-import { duplicatesInBatch, readRecords, type CandidateRecord, type RecordProblem } from "./import-records";
-import { MAX_REGISTER_RECORDS, type RegisterCompounds, type StoredPKa } from "./schemas";
+import { duplicatesInBatch, readRecords, type CandidateRecord, type ReadRecordsResult, type RecordProblem } from "./import-records";
+import { type RegisterCompounds, type StoredPKa } from "./schemas";
 
 export interface CompoundActor {
   groupId: string;
@@ -39,10 +43,17 @@ export class RegistrationRejected extends ValidationError {
   }
 }
 
-const INSERT_CHUNK = 500;
+/** Rows per insert, with a turn of the event loop between inserts (lib/workers/next-turn.ts). */
+const INSERT_CHUNK = 100;
+/** Records read per engine task: about a second of a thread for ordinary molecules. */
+const READ_SLICE = 100;
 
+/**
+ * Registers the batch. With `rdkit` the records are read on the calling thread (scripts that hold a module);
+ * otherwise on the engine threads.
+ */
 export async function registerCompounds(db: Db, actor: CompoundActor, input: RegisterCompounds, rdkit?: RDKitModule): Promise<RegistrationResult> {
-  const read = readInput(rdkit ?? (await loadRDKit()), input);
+  const read = rdkit ? readRecords(rdkit, input.format, input.text) : await readOffThread(input);
   const batch = duplicatesInBatch(read.candidates);
   const existing = await existingDuplicates(db, actor.groupId, batch.unique);
   const duplicates = [...batch.problems, ...existing.problems];
@@ -59,6 +70,7 @@ export async function registerCompounds(db: Db, actor: CompoundActor, input: Reg
       for (let i = 0; i < toCreate.length; i += INSERT_CHUNK) {
         const chunk = toCreate.slice(i, i + INSERT_CHUNK).map((c) => compoundRow(c, actor, input.tags, stamp));
         rows.push(...(await tx.compound.createManyAndReturn({ data: chunk, select: { id: true, canonicalSmiles: true } })));
+        await nextTurn();
       }
       await tx.auditEvent.create({
         data: {
@@ -83,19 +95,18 @@ export async function registerCompounds(db: Db, actor: CompoundActor, input: Reg
   }
 }
 
-function readInput(rdkit: RDKitModule, input: RegisterCompounds) {
-  try {
-    const read = readRecords(rdkit, input.format, input.text);
-    const count = read.candidates.length + read.problems.length;
-    if (count > MAX_REGISTER_RECORDS) {
-      throw new ValidationError({ text: [`At most ${MAX_REGISTER_RECORDS.toLocaleString("en")} structures at once; this input has ${count.toLocaleString("en")}.`] });
-    }
-    return read;
-  } catch (error) {
-    // Whole-input problems (empty, too large, too many records) concern the text field, not one record.
-    if (error instanceof StructureError) throw new ValidationError({ text: [error.message] }, error.message);
-    throw error;
+/** Splits the input on an engine thread (whole-input problems are a 422 on `text`), then reads it slice by slice. */
+async function readOffThread(input: RegisterCompounds): Promise<ReadRecordsResult> {
+  const pool = enginePool();
+  const entries = await pool.run("compoundsSplit", { format: input.format, text: input.text });
+  const read: ReadRecordsResult = { candidates: [], problems: [] };
+  for (let i = 0; i < entries.length; i += READ_SLICE) {
+    // One slice at a time: other requests' engine tasks queue between them instead of waiting for the whole file.
+    const part = await pool.run("compoundsDescribe", { format: input.format, entries: entries.slice(i, i + READ_SLICE) });
+    read.candidates.push(...part.candidates);
+    read.problems.push(...part.problems);
   }
+  return read;
 }
 
 async function existingDuplicates(db: Db, groupId: string, candidates: CandidateRecord[]) {
@@ -107,6 +118,7 @@ async function existingDuplicates(db: Db, groupId: string, candidates: Candidate
       select: { id: true, name: true, canonicalSmiles: true },
     });
     for (const f of found) ids.set(f.canonicalSmiles, { id: f.id, name: f.name });
+    await nextTurn();
   }
   const problems = candidates.flatMap((c): RecordProblem[] => {
     const hit = ids.get(c.structure.canonicalSmiles);

@@ -10,8 +10,8 @@
 import os from "node:os";
 import path from "node:path";
 import { Worker, type WorkerOptions } from "node:worker_threads";
-import { ServiceUnavailableError, ValidationError, type FieldErrors } from "@/lib/errors";
-import { type TaskName, type TaskResult, type TaskArgs, type WorkerReply } from "./protocol";
+import { BadRequestError, ConflictError, PayloadTooLargeError, ServiceUnavailableError, ValidationError, type AppError } from "@/lib/errors";
+import { type TaskName, type TaskResult, type TaskArgs, type ThreadError, type WorkerReply } from "./protocol";
 
 export interface PoolOptions {
   /** Threads. Default: cores − 1, at least 1. */
@@ -30,6 +30,7 @@ interface Pending {
   id: number;
   name: TaskName;
   args: unknown;
+  transfer: ArrayBuffer[];
   resolve: (value: unknown) => void;
   reject: (error: unknown) => void;
   timer?: ReturnType<typeof setTimeout>;
@@ -69,10 +70,11 @@ export class EnginePool {
     return { running: this.threads.filter((t) => t.busy).length, waiting: this.queue.length };
   }
 
-  run<N extends TaskName>(name: N, args: TaskArgs<N>): Promise<TaskResult<N>> {
+  /** Runs a task on a thread. Buffers in `transfer` move to the thread (they are unusable here afterwards). */
+  run<N extends TaskName>(name: N, args: TaskArgs<N>, transfer: ArrayBuffer[] = []): Promise<TaskResult<N>> {
     if (this.closed) return Promise.reject(new ServiceUnavailableError("The server is stopping; nothing was saved. Try again in a moment."));
     return new Promise<TaskResult<N>>((resolve, reject) => {
-      const task: Pending = { id: this.nextId++, name, args, resolve: resolve as (v: unknown) => void, reject };
+      const task: Pending = { id: this.nextId++, name, args, transfer, resolve: resolve as (v: unknown) => void, reject };
       const idle = this.idleThread();
       if (idle) return this.dispatch(idle, task);
       if (this.queue.length >= this.maxQueue) return reject(this.busyError());
@@ -128,7 +130,7 @@ export class EnginePool {
   private dispatch(thread: Thread, task: Pending): void {
     thread.busy = task;
     thread.worker.ref(); // a running task keeps the process alive until it answers
-    thread.worker.postMessage({ id: task.id, name: task.name, args: task.args });
+    thread.worker.postMessage({ id: task.id, name: task.name, args: task.args }, task.transfer);
   }
 
   private settle(thread: Thread, reply: WorkerReply): void {
@@ -163,9 +165,18 @@ export class EnginePool {
   }
 }
 
-/** A ValidationError thrown in a thread comes back as itself (its field messages reach the user); anything else is unexpected. */
-function reviveError(error: { name: string; message: string; fieldErrors?: FieldErrors; stack?: string }): Error {
-  if (error.name === "ValidationError" && error.fieldErrors) return new ValidationError(error.fieldErrors, error.message);
+/** Application errors that cross back as themselves (their messages reach the user); keyed by their code. */
+const REVIVED: Record<string, (e: ThreadError) => AppError> = {
+  validation: (e) => new ValidationError(e.fieldErrors ?? {}, e.message),
+  bad_request: (e) => new BadRequestError(e.message),
+  conflict: (e) => new ConflictError(e.message),
+  payload_too_large: (e) => new PayloadTooLargeError(e.message),
+};
+
+/** A typed application error thrown in a thread comes back as itself; anything else is unexpected. */
+function reviveError(error: ThreadError): Error {
+  const known = error.code ? REVIVED[error.code] : undefined;
+  if (known) return known(error);
   const revived = new Error(error.message);
   revived.name = error.name;
   if (error.stack) revived.stack = error.stack;

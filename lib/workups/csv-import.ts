@@ -1,9 +1,10 @@
 /**
  * CSV import of past workups and their outcomes (columns: csv-columns.ts). Every row is checked and predicted first,
  * with its errors named by row, line and column; only when no row has an error is anything written, all rows in one
- * transaction. Progress is reported per row through `onProgress` (the route streams it as NDJSON). Each row's engine
- * work is checked against the engine budget (a row beyond it is that row's error) and runs on an engine thread; the
- * caller holds the importing user's heavy slot for the whole import.
+ * transaction. Progress is reported per row through `onProgress` (the route streams it as NDJSON). The file is checked
+ * and split into rows on an engine thread (csv-table.ts); each row's engine work is checked against the engine budget
+ * (a row beyond it is that row's error) and runs on an engine thread too; the caller holds the importing user's
+ * heavy slot for the whole import.
  */
 import { type Db } from "@/lib/db/client";
 import { ValidationError } from "@/lib/errors";
@@ -11,13 +12,14 @@ import { groupValuesForLinks } from "@/lib/partition/group-values";
 import { analyzeOutcome, type OutcomeAnalysis } from "./analysis";
 import { audit } from "./audit";
 import { LONG_TRANSACTION, type Actor } from "./context";
-import { parseCsv } from "./csv";
 import { newRecordId } from "./ids";
 import { loadGroupJudgement } from "./group-model";
 import { groupLibrary } from "./library";
 import { asJson, checkReferences, writeVersion } from "./persist";
 import { IMPORT_DRAWS, seedFromId, type ComputedPrediction } from "./prediction";
 import { assertEngineBudget, predictInPool } from "@/lib/workers/engine";
+import { nextTurn } from "@/lib/workers/next-turn";
+import { enginePool } from "@/lib/workers/pool";
 import { headerColumns, plainJson, searchTextOf, snapshotHeader, solventKeysOf, type JsonObject } from "./record";
 import { columnErrors, readRow, templateLookup, type RowContext } from "./csv-rows";
 import { type CreateWorkup, type OutcomeInput } from "./schemas";
@@ -46,8 +48,7 @@ export interface CsvImportOptions {
   draws?: number;
 }
 
-/** Largest import in one request; larger files should be split (each row runs the Monte Carlo engine). */
-export const MAX_IMPORT_ROWS = 5000;
+export { MAX_IMPORT_ROWS } from "./csv-table";
 
 interface CheckedRow {
   row: number;
@@ -60,17 +61,8 @@ interface CheckedRow {
 }
 
 export async function importWorkupsCsv(db: Db, actor: Actor, text: string, options: CsvImportOptions = {}): Promise<CsvImportResult> {
-  // A NUL cannot be stored in any text column; refused for the whole file before a row is read (it reached the
-  // database and answered 500). Broken UTF-16 cannot occur here: the body was decoded as strict UTF-8.
-  if (text.includes("\u0000")) throw new ValidationError({ csv: ["the file contains a NUL character (U+0000); remove it and import again"] });
-  const table = parseCsv(text);
-  for (const required of ["title", "performed_on"]) {
-    if (!table.columns.includes(required)) throw new ValidationError({ csv: [`the header needs a '${required}' column`] });
-  }
-  if (!table.columns.includes("spec_json") && !table.columns.includes("template")) {
-    throw new ValidationError({ csv: ["the header needs a 'spec_json' or a 'template' column"] });
-  }
-  if (table.rows.length > MAX_IMPORT_ROWS) throw new ValidationError({ csv: [`at most ${MAX_IMPORT_ROWS} rows per import; split the file`] });
+  // Checked and split on an engine thread: a file of several MB would hold the event loop.
+  const table = await enginePool().run("csvTable", { text });
   const total = table.rows.length;
   const library = await groupLibrary(db, actor.groupId);
   const judgement = await loadGroupJudgement(db, actor.groupId);
@@ -141,6 +133,7 @@ async function writeRows(db: Db, actor: Actor, rows: CheckedRow[], options: CsvI
       }
       await audit(tx, actor, "workup.import", r.id, { title: header.title, row: r.row });
       created.push({ row: r.row, id: r.id, title: header.title });
+      await nextTurn();
       await options.onProgress?.({ phase: "writing", done: created.length, total: rows.length });
     }
   }, LONG_TRANSACTION);
