@@ -2,6 +2,7 @@
 // in code). Kept shallow where a body carries the engine's full output, which lib/chem/types.ts documents.
 import { z } from "zod";
 import { OUTCOME_STATUSES } from "@/lib/workups/schemas";
+import { FOUND_CAUSES } from "@/lib/workups/found-cause";
 
 const fraction = z.number().describe("fraction 0–1");
 const nullableFraction = fraction.nullable();
@@ -65,6 +66,13 @@ const cause = z.object({
   code: z.string(), title: z.string(), change: z.string(), step: z.number().optional(), recovery: fraction,
   fractionOfGap: fraction.describe("share of the gap (predicted − reported) the cause closes at its most plausible size, capped at 1; the figure every view shows"),
   score: fraction.describe("posterior plausibility among the candidate causes (prior frequency × likelihood of the outcome)"), simulated: z.boolean(),
+});
+
+export const foundCauseRecordSchema = z.object({
+  workupId: z.string(),
+  cause: z.enum(FOUND_CAUSES).nullable().describe("the cause found at review, or null when none is recorded"),
+  note: z.string(),
+  recordedAt: z.string().nullable(),
 });
 
 export const outcomeReportSchema = z.object({

@@ -6,12 +6,13 @@ import { type Permission } from "@/lib/authz/permissions";
 import { listCompoundsSchema, registerCompoundsSchema } from "@/lib/compounds/schemas";
 import { CSV_COLUMNS_DOC } from "@/lib/workups/csv-columns";
 import { groupExportSchema } from "@/lib/workups/export-format";
+import { foundCauseInputSchema } from "@/lib/workups/found-cause";
 import {
   createWorkupSchema, outcomeInputSchema, predictRequestSchema, updateWorkupSchema, versionPairSchema, workupListFilterFields, workupListFilterSchema,
 } from "@/lib/workups/schemas";
 import {
   listPageSchema, looseObject, meSchema, outcomeReportSchema, predictResponseSchema, savedWorkupSchema, versionDiffSchema,
-  versionListSchema, workupDetailSchema, calibrationReportSchema,
+  versionListSchema, workupDetailSchema, calibrationReportSchema, foundCauseRecordSchema,
 } from "./responses";
 import { reviewFilterSchema } from "@/lib/review/filters";
 import { uploadQuerySchema } from "@/lib/attachments/schemas";
@@ -58,6 +59,10 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "post", path: "/api/v1/workups/{id}/outcome", summary: "Report what was isolated; answers recovery, deviation, status and likely causes", permission: "data:write",
     body: { name: "OutcomeInput", schema: outcomeInputSchema, limit: "1 MB" },
     success: { status: 200, name: "OutcomeReport", schema: outcomeReportSchema, description: "the comparison with the prediction" }, errors: [...writeErrors, 409] },
+  { method: "post", path: "/api/v1/workups/{id}/outcome/found-cause", summary: "Record the cause the group found for a shortfall at review (null clears it)", permission: "data:write",
+    description: "Does not change this workup's judgement; the group's later judgements rank causes with the findings counted. 404 when the workup has no reported outcome.",
+    body: { name: "FoundCauseInput", schema: foundCauseInputSchema, limit: "1 MB" },
+    success: { status: 200, name: "FoundCause", schema: foundCauseRecordSchema, description: "the finding as stored" }, errors: writeErrors },
   { method: "get", path: "/api/v1/workups/{id}/versions", summary: "Every version, newest first, with who saved it and when", permission: "data:read",
     success: { status: 200, name: "VersionList", schema: versionListSchema, description: "the history" }, errors: readErrors },
   { method: "get", path: "/api/v1/workups/{id}/diff", summary: "What changed between two versions", permission: "data:read",

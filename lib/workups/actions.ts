@@ -12,6 +12,7 @@ import { type GroupValues } from "@/lib/partition/overlay";
 import { actorOf } from "./context";
 import { type VersionDiff } from "./diff";
 import { diffVersions, listVersions, type VersionEntry } from "./history";
+import { recordFoundCause, type FoundCauseRecord } from "./found-cause";
 import { reportOutcome, type OutcomeReport } from "./outcome";
 import { previewGroupValues, previewPrediction, type PreviewLinks } from "./preview";
 import { getWorkupDetail, listWorkups, type WorkupDetail, type WorkupListPage } from "./queries";
@@ -47,6 +48,17 @@ export async function deleteWorkupAction(id: string): Promise<ActionResult<{ id:
     await deleteWorkup(await getDb(), actorOf(member), workupId);
     revalidate();
     return { id: workupId };
+  });
+}
+
+/** The cause the group found for a shortfall at review; `input` is { cause, note } (cause null clears it). */
+export async function recordFoundCauseAction(workupId: string, input: unknown): Promise<ActionResult<FoundCauseRecord>> {
+  return memberAction("data:write", async (member) => {
+    const id = actionArg("workupId", recordIdArg("workupId"), workupId);
+    const found = await recordFoundCause(await getDb(), actorOf(member), id, actionArg("input", objectArg("input"), input));
+    revalidatePath("/review");
+    revalidate(id);
+    return found;
   });
 }
 

@@ -3,7 +3,7 @@
 import { type Prisma } from "@/generated/prisma/client";
 import { type Actor, type Tx } from "./context";
 
-export type WorkupAuditAction = "workup.create" | "workup.update" | "workup.outcome" | "workup.delete" | "workup.import" | "group.import";
+export type WorkupAuditAction = "workup.create" | "workup.update" | "workup.outcome" | "workup.found_cause" | "workup.delete" | "workup.import" | "group.import";
 
 export async function audit(
   tx: Tx,

@@ -1,8 +1,9 @@
 /**
  * Loads what a judgement learns from the group's history: every other reported outcome of the group (scoped by
- * group). Per-chemist offsets are not used for the stored judgement, which every member of the group sees: a review
- * shows per-person figures only to the person and the group lead (lib/review/people.ts). The save path, the outcome
- * report, the CSV import and the background re-prediction all judge with this one model.
+ * group), with the cause the group found where it recorded one. Per-chemist offsets are not used for the stored
+ * judgement, which every member of the group sees: a review shows per-person figures only to the person and the
+ * group lead (lib/review/people.ts). The save path, the outcome report, the CSV import and the background
+ * re-prediction all judge with this one model.
  */
 import { fitGroupModel, type GroupModel } from "@/lib/chem/predictive";
 import { type Db } from "@/lib/db/client";
@@ -16,7 +17,7 @@ export interface GroupJudgement {
 
 /** The group's stored outcome analyses, newest first, with the workup each belongs to. */
 export interface GroupHistory {
-  rows: readonly { workupId: string; analysis: unknown }[];
+  rows: readonly { workupId: string; analysis: unknown; foundCause: string | null }[];
 }
 
 /** Most past outcomes one judgement reads: the newest, plenty for means with a handful of parameters. */
@@ -28,16 +29,16 @@ export async function loadGroupHistory(db: Pick<Db, "outcome">, groupId: string)
     where: { groupId },
     orderBy: [{ updatedAt: "desc" }, { id: "desc" }],
     take: HISTORY_LIMIT + 1,
-    select: { workupId: true, analysis: true },
+    select: { workupId: true, analysis: true, foundCause: true },
   });
-  return { rows: rows.map((r) => ({ workupId: r.workupId, analysis: r.analysis })) };
+  return { rows: rows.map((r) => ({ workupId: r.workupId, analysis: r.analysis, foundCause: r.foundCause })) };
 }
 
 /** The model fitted to the history without the judged workup's own outcome (a workup never judges itself). */
 export function groupJudgementFrom(history: GroupHistory, excludeWorkupId?: string): GroupJudgement {
-  const analyses = history.rows.filter((r) => r.workupId !== excludeWorkupId).slice(0, HISTORY_LIMIT).map((r) => r.analysis);
-  const cases = analyses.map(historyCaseOf).filter((h) => h !== null);
-  return { model: fitGroupModel(cases), causeFrequencies: causeFrequencies(analyses) };
+  const past = history.rows.filter((r) => r.workupId !== excludeWorkupId).slice(0, HISTORY_LIMIT);
+  const cases = past.map((r) => historyCaseOf(r.analysis)).filter((h) => h !== null);
+  return { model: fitGroupModel(cases), causeFrequencies: causeFrequencies(past) };
 }
 
 export async function loadGroupJudgement(db: Pick<Db, "outcome">, groupId: string, excludeWorkupId?: string): Promise<GroupJudgement> {

@@ -24,19 +24,35 @@ export function historyCaseOf(analysis: unknown): HistoryCase | null {
   };
 }
 
+/** One past outcome: its stored analysis and, when the group reviewed it, the cause it found. */
+export interface PastOutcome {
+  analysis: unknown;
+  foundCause?: string | null;
+}
+
 /**
- * Cause frequencies: the common-practice figures as CAUSE_PRIOR_WEIGHT pseudo-counts, plus each reviewed shortfall
- * counted towards its causes in proportion to their plausibility.
+ * Cause frequencies: the common-practice figures as CAUSE_PRIOR_WEIGHT pseudo-counts, plus each shortfall the group
+ * found the cause of counted in full towards that cause ("other" towards none of the modelled ones), and each other
+ * shortfall judged "below" counted towards its ranked causes in proportion to their plausibility (together at most
+ * one count, like a finding).
  */
-export function causeFrequencies(analyses: readonly unknown[]): Record<CauseCode, number> {
+export function causeFrequencies(past: readonly PastOutcome[]): Record<CauseCode, number> {
   const counts = Object.fromEntries(Object.entries(CAUSE_PRIOR).map(([k, v]) => [k, v * CAUSE_PRIOR_WEIGHT])) as Record<CauseCode, number>;
-  for (const a of analyses) {
+  for (const { analysis: a, foundCause } of past) {
+    if (foundCause !== undefined && foundCause !== null) {
+      if (foundCause in counts) counts[foundCause as CauseCode] += FOUND_WEIGHT;
+      continue;
+    }
     const analysis = a as Partial<OutcomeAnalysis> | null;
     if (analysis?.deviation?.status !== "below") continue;
     for (const cause of analysis.causes ?? []) {
-      if (cause.code in counts && finite(cause.score)) counts[cause.code] += cause.score;
+      if (cause.code in counts && finite(cause.score)) counts[cause.code] += RANKED_WEIGHT * cause.score;
     }
   }
   const total = Object.values(counts).reduce((s, v) => s + v, 0);
   return Object.fromEntries(Object.entries(counts).map(([k, v]) => [k, v / total])) as Record<CauseCode, number>;
 }
+
+/** Weight of a cause the group found, and of a shortfall's ranked causes (plausibility-weighted) without a finding. */
+const FOUND_WEIGHT = 1;
+const RANKED_WEIGHT = 1;

@@ -8,6 +8,7 @@ import { type Db } from "@/lib/db/client";
 import { NotFoundError, ValidationError, parseInput } from "@/lib/errors";
 import { type OutcomeAnalysis } from "./analysis";
 import { type DeviationStatus } from "./deviation";
+import { storedFoundCause, type FoundCause } from "./found-cause";
 import { type StoredPredictionResult } from "./prediction";
 import { dayOf, type JsonObject, type SnapshotHeader } from "./record";
 import { EARLIEST_DAY, LATEST_DAY, workupListFilterSchema, type WorkupListFilter } from "./schemas";
@@ -182,6 +183,8 @@ export interface WorkupDetail {
   outcome: {
     isolatedMassMg: number; purityPct: number | null; purityMethod: string; layerAssays: unknown; notes: string;
     recoveryPct: number | null; analysis: OutcomeAnalysis | null; reportedBy: { id: string; name: string } | null; updatedAt: string;
+    /** The cause the group found at review (lib/workups/found-cause.ts), or null. */
+    foundCause: { cause: FoundCause; note: string; by: { id: string; name: string } | null; at: string | null } | null;
   } | null;
 }
 
@@ -195,7 +198,8 @@ export async function getWorkupDetail(db: Db, groupId: string, id: string): Prom
     },
   });
   if (!w) throw new NotFoundError("workup");
-  const people = await chemistNames(db, [w.chemistId, w.updatedById, w.outcome?.reportedById ?? null]);
+  const people = await chemistNames(db, [w.chemistId, w.updatedById, w.outcome?.reportedById ?? null, w.outcome?.foundCauseById ?? null]);
+  const foundCause = storedFoundCause(w.outcome?.foundCause);
   const p = w.predictions[0];
   const analysis = w.outcome?.analysis as unknown as OutcomeAnalysis | undefined; // written by analysis.ts
   return {
@@ -224,6 +228,12 @@ export async function getWorkupDetail(db: Db, groupId: string, id: string): Prom
           analysis: analysis && "deviation" in analysis ? analysis : null,
           reportedBy: w.outcome.reportedById ? (people.get(w.outcome.reportedById) ?? null) : null,
           updatedAt: w.outcome.updatedAt.toISOString(),
+          foundCause: foundCause
+            ? {
+                cause: foundCause, note: w.outcome.foundCauseNote,
+                by: w.outcome.foundCauseById ? (people.get(w.outcome.foundCauseById) ?? null) : null, at: w.outcome.foundCauseAt?.toISOString() ?? null,
+              }
+            : null,
         }
       : null,
   };
