@@ -2,7 +2,7 @@
 // in code). Kept shallow where a body carries the engine's full output, which lib/chem/types.ts documents.
 import { z } from "zod";
 import { OUTCOME_STATUSES } from "@/lib/workups/schemas";
-import { FOUND_CAUSES } from "@/lib/workups/found-cause";
+import { FOUND_CAUSES } from "@/lib/workups/found-cause-schema";
 
 const fraction = z.number().describe("fraction 0–1");
 const nullableFraction = fraction.nullable();

@@ -6,7 +6,7 @@ import { type Permission } from "@/lib/authz/permissions";
 import { listCompoundsSchema, registerCompoundsSchema } from "@/lib/compounds/schemas";
 import { CSV_COLUMNS_DOC } from "@/lib/workups/csv-columns";
 import { groupExportSchema } from "@/lib/workups/export-format";
-import { foundCauseInputSchema } from "@/lib/workups/found-cause";
+import { foundCauseInputSchema } from "@/lib/workups/found-cause-schema";
 import {
   createWorkupSchema, outcomeInputSchema, predictRequestSchema, updateWorkupSchema, versionPairSchema, workupListFilterFields, workupListFilterSchema,
 } from "@/lib/workups/schemas";

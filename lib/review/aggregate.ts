@@ -3,6 +3,7 @@
  * grouped by a factor with n always shown, calibration of the predicted interval, and the ranked list of flagged
  * workups. Deviations are reported − predicted recovery in percentage points. Pure.
  */
+import { type FoundCause } from "@/lib/workups/found-cause-schema";
 
 export interface ReviewRow {
   id: string;
@@ -23,6 +24,8 @@ export interface ReviewRow {
   dangerFlags: string[];
   /** Predictive CDF at the reported value (lib/chem/predictive.ts); absent for outcomes judged before it existed. */
   quantile?: number | null;
+  /** The cause the group found at review, if recorded (lib/workups/found-cause.ts). */
+  foundCause?: { cause: FoundCause; note: string } | null;
 }
 
 export interface GroupStat {

@@ -9,6 +9,7 @@ import { type SolventProps } from "@/lib/chem/data/solvents";
 import { type Db } from "@/lib/db/client";
 import { type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { type DeviationStatus } from "@/lib/workups/deviation";
+import { storedFoundCause } from "@/lib/workups/found-cause-schema";
 import { groupLibrary } from "@/lib/workups/library";
 import { type ReviewRow } from "./aggregate";
 import { type ReviewFilters } from "./filters";
@@ -44,6 +45,7 @@ function percent(fraction: number | null | undefined): number | null {
 type ReviewRecord = {
   id: string; title: string; performedOn: Date; chemistId: string | null; solventKeys: string[]; status: DeviationStatus;
   flagged: boolean; deviationPct: number | null; analysis: unknown; operationTypes: string[]; extractSolvent: string | null;
+  foundCause: string | null; foundCauseNote: string;
 };
 
 /**
@@ -54,7 +56,7 @@ function reviewRows(db: Db, groupId: string, filters: ReviewFilters): Promise<Re
   const operations = Prisma.sql`jsonb_array_elements(CASE WHEN jsonb_typeof(w."spec" -> 'operations') = 'array' THEN w."spec" -> 'operations' ELSE '[]'::jsonb END)`;
   return db.$queryRaw<ReviewRecord[]>`
     SELECT w."id", w."title", w."performedOn", w."chemistId", w."solventKeys", w."status"::text AS "status", w."flagged",
-           w."deviationPct", o."analysis",
+           w."deviationPct", o."analysis", o."foundCause", o."foundCauseNote",
            ARRAY(SELECT DISTINCT op ->> 'type' FROM ${operations} AS op
                   WHERE jsonb_typeof(op -> 'type') = 'string' AND op ->> 'type' <> '') AS "operationTypes",
            (SELECT e.op ->> 'solvent' FROM ${operations} WITH ORDINALITY AS e(op, n)
@@ -68,6 +70,11 @@ function reviewRows(db: Db, groupId: string, filters: ReviewFilters): Promise<Re
        ${filters.solvent ? Prisma.sql`AND ${filters.solvent} = ANY(w."solventKeys")` : Prisma.empty}
      ORDER BY w."performedOn" DESC, w."id" DESC
      LIMIT ${MAX_REVIEW_ROWS + 1}`;
+}
+
+function foundOf(cause: string | null, note: string): ReviewRow["foundCause"] {
+  const found = storedFoundCause(cause);
+  return found ? { cause: found, note } : null;
 }
 
 export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilters): Promise<ReviewData> {
@@ -92,6 +99,7 @@ export async function loadReview(db: Db, viewer: Viewer, requested: ReviewFilter
       causes: (a.causes ?? []).slice(0, 3).map((c) => ({ title: c.title, share: c.fractionOfGap })),
       dangerFlags: a.dangerFlags ?? [],
       quantile: typeof a.predictive?.quantile === "number" ? a.predictive.quantile : null,
+      foundCause: foundOf(w.foundCause, w.foundCauseNote),
     };
   });
   const names = new Map(members.map((m) => [m.id, m.name]));

@@ -32,22 +32,6 @@ export interface LikelyCause {
   simulated: boolean;
 }
 
-/** Every cause code, in the order a form lists them. */
-export const CAUSE_CODES = [
-  "reaction_shortfall", "emulsion_loss", "wrong_ph", "product_logp_lower", "cosolvent_not_removed", "one_fewer_extraction", "wrong_layer",
-] as const satisfies readonly CauseCode[];
-
-/** Each cause in a few words, for the review's "cause found" choice (the ranked list words each variant itself). */
-export const CAUSE_LABELS: Record<CauseCode, string> = {
-  reaction_shortfall: "The reaction gave less product than expected",
-  emulsion_loss: "Emulsion or hold-up loss at a separation",
-  wrong_ph: "Aqueous pH off target",
-  product_logp_lower: "Product more polar than assumed",
-  cosolvent_not_removed: "Water-miscible co-solvent not removed",
-  one_fewer_extraction: "Fewer extractions than recorded",
-  wrong_layer: "Wrong layer kept",
-};
-
 /**
  * How often each cause is behind a shortfall a group reviews (common practice, rough figures; the group's own
  * reviewed shortfalls update them): reactions falling short are the most common reason for little product,

@@ -8,7 +8,7 @@ import { type Db } from "@/lib/db/client";
 import { NotFoundError, ValidationError, parseInput } from "@/lib/errors";
 import { type OutcomeAnalysis } from "./analysis";
 import { type DeviationStatus } from "./deviation";
-import { storedFoundCause, type FoundCause } from "./found-cause";
+import { storedFoundCause, type FoundCause } from "./found-cause-schema";
 import { type StoredPredictionResult } from "./prediction";
 import { dayOf, type JsonObject, type SnapshotHeader } from "./record";
 import { EARLIEST_DAY, LATEST_DAY, workupListFilterSchema, type WorkupListFilter } from "./schemas";

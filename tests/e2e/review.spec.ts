@@ -83,6 +83,33 @@ test.describe.serial("review page", () => {
     await expect(page.getByRole("heading", { name: TITLES.dcm, level: 1 })).toBeVisible();
   });
 
+  test("a member records the cause the meeting found, from the keyboard; a refusal names the field; the finding shows on the record", async ({ page }) => {
+    await signIn(page, PEOPLE.memberA);
+    await page.goto(SEPTEMBER);
+    const flagged = page.getByTestId("flagged-list").getByRole("listitem").first();
+    const cause = flagged.getByLabel("Cause found at review");
+    await cause.focus();
+    await cause.selectOption({ label: "Something else (say what in the note)" });
+    await page.keyboard.press("Tab");
+    await page.keyboard.press("Enter");
+    // "Something else" without a note is refused in the form's words, with a link to the note.
+    const summary = flagged.getByTestId("error-summary");
+    await expect(summary).toContainText("Say in the note what the cause was");
+    await expect(summary).toBeFocused();
+    await summary.getByRole("link").click();
+    await expect(flagged.getByLabel(/^Finding note/)).toBeFocused();
+    await cause.selectOption({ label: "Fewer extractions than recorded" });
+    await flagged.getByLabel(/^Finding note/).fill("second EtOAc portion skipped");
+    await flagged.getByRole("button", { name: "Save finding" }).click();
+    await expect(flagged.getByRole("status")).toHaveText("Saved.");
+    await page.reload();
+    await expect(page.getByTestId("flagged-list").getByRole("listitem").first().getByLabel("Cause found at review")).toHaveValue("one_fewer_extraction");
+    await page.getByTestId("flagged-list").getByRole("link", { name: TITLES.shortfall }).click();
+    await expect(page.getByRole("heading", { name: TITLES.shortfall, level: 1 })).toBeVisible();
+    await expect(page.getByLabel("Cause found at review")).toHaveValue("one_fewer_extraction");
+    await expect(page.getByLabel(/^Finding note/)).toHaveValue("second EtOAc portion skipped");
+  });
+
   test("the lead sees each chemist by name and can look at one chemist's workups", async ({ page }) => {
     await signIn(page, PEOPLE.leadA);
     await page.goto(SEPTEMBER);

@@ -1,6 +1,6 @@
 import "./print.css";
 import { Suspense } from "react";
-import { type MemberContext } from "@/lib/authz";
+import { can, type MemberContext } from "@/lib/authz";
 import { listOperationTypes } from "@/lib/chem/operation-types";
 import { requirePageMember } from "@/lib/authz/page";
 import { PageHeader } from "@/components/ui/page-header";
@@ -66,6 +66,7 @@ async function ReviewBody({ member, filters, filterIssues }: { member: MemberCon
           : "Your own workups beside everyone else's taken together; only a lead sees other chemists by name."}
         flagged={rankedFlagged(rows)}
         solventNames={solventNames}
+        canRecordCause={can(member, "data:write")}
       />
       <CalibrationView levels={calibrationByLevel(rows)} />
     </div>

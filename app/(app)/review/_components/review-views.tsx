@@ -8,6 +8,8 @@ import { DeviationHistogram, GroupMeanChart, GROUP_LEGEND, HISTOGRAM_LEGEND, typ
 import { ParityChart, parityLegend, type ParityPoint } from "@/components/charts/parity-chart";
 import { groupSummary, histogramSummary, paritySummary } from "@/components/charts/summaries";
 import { FEW, type GroupStat, type ReviewRow } from "@/lib/review/aggregate";
+import { FOUND_CAUSE_LABELS } from "@/lib/workups/found-cause-schema";
+import { FoundCauseForm } from "@/components/review/found-cause-form";
 
 export interface ReviewViewsProps {
   points: ParityPoint[];
@@ -18,6 +20,8 @@ export interface ReviewViewsProps {
   chemistNote: string;
   flagged: ReviewRow[];
   solventNames: Record<string, string>;
+  /** Members and leads record the cause a meeting found; viewers see it. */
+  canRecordCause: boolean;
 }
 
 const fmt = (v: number | null, digits = 1) => (v === null ? "" : v.toFixed(digits));
@@ -116,10 +120,11 @@ export function ReviewViews(props: ReviewViewsProps) {
       <GroupView title="Deviations by chemist" factor="Chemist" stats={props.byChemist} className="review-break" description={props.chemistNote} />
 
       <ChartFrame title="Flagged workups, largest shortfall first" className="review-view review-break" image={false}
-        description="Flagged when the recovery fell below the predicted interval or the engine saw a danger. Likely causes are ranked by the share of the gap each explains."
-        csv={[["rank", "workup_id", "title", "performed_on", "solvent_system", "predicted_pct", "reported_pct", "deviation_points", "likely_causes", "danger_flags"],
+        description="Flagged when the recovery fell below the predicted interval or the engine saw a danger. Likely causes are ranked by the share of the gap each explains. Record the cause the meeting found: later judgements rank causes with the group's findings counted."
+        csv={[["rank", "workup_id", "title", "performed_on", "solvent_system", "predicted_pct", "reported_pct", "deviation_points", "likely_causes", "danger_flags", "cause_found", "cause_found_note"],
           ...flagged.map((r, i) => [i + 1, r.id, r.title, r.performedOn, r.solventSystem, r.predicted, r.reported, r.deviationPct,
-            r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; "), r.dangerFlags.join(" ")])]}
+            r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; "), r.dangerFlags.join(" "),
+            r.foundCause ? FOUND_CAUSE_LABELS[r.foundCause.cause] : "", r.foundCause?.note ?? ""])]}
         fileBase="flagged-workups">
         {flagged.length === 0 ? <p className="text-sm text-stone-500">Nothing flagged in this selection.</p> : (
           <ol className="divide-y divide-stone-100" data-testid="flagged-list">
@@ -136,6 +141,7 @@ export function ReviewViews(props: ReviewViewsProps) {
                   {r.causes.length > 0 ? (
                     <p className="text-xs text-stone-500">Likely causes: {r.causes.map((c) => `${c.title} (${gapShare(c.share)})`).join("; ")}</p>
                   ) : null}
+                  <FoundCauseForm workupId={r.id} found={r.foundCause ?? null} canRecord={props.canRecordCause} />
                 </div>
               </li>
             ))}

@@ -18,6 +18,7 @@ import { ComponentsView } from "@/components/workup/detail/components-view";
 import { StepsView } from "@/components/workup/detail/steps-view";
 import { OutcomeForm } from "@/components/workup/detail/outcome-form";
 import { OutcomeResult } from "@/components/workup/detail/outcome-result";
+import { FoundCauseForm } from "@/components/review/found-cause-form";
 import { PredictionOverview, combineSteps } from "@/components/workup/prediction/prediction-overview";
 import { MixtureView } from "@/components/workup/detail/mixture-view";
 import { PartitionProvenance } from "@/lib/partition/components/partition-provenance";
@@ -97,6 +98,10 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
                 {workup.outcome.reportedBy ? `, reported by ${workup.outcome.reportedBy.name}` : ""}.
                 {workup.outcome.notes ? <span className="block italic">“{workup.outcome.notes}”</span> : null}
               </p>
+            ) : null}
+            {workup.outcome && (workup.outcome.foundCause || workup.flagged || analysis?.deviation.status === "below" || analysis?.deviation.status === "inconclusive") ? (
+              <FoundCauseForm workupId={workup.id} canRecord={can(member, "data:write")}
+                found={workup.outcome.foundCause ? { cause: workup.outcome.foundCause.cause, note: workup.outcome.foundCause.note } : null} />
             ) : null}
             {writer ? (
               <details className="mt-3" open={!workup.outcome}>
