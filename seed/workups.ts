@@ -5,9 +5,13 @@
  * engine's point recovery on the scenario's literature values, no Monte Carlo spread), less handling and any mishap.
  */
 import type { Db } from "@/lib/db/client";
+import { recordFoundCause } from "@/lib/workups/found-cause";
 import { reportOutcome } from "@/lib/workups/outcome";
 import { createWorkup } from "@/lib/workups/service";
 import { generateWorkups, type CompoundFacts, type GeneratedWorkup } from "./generate";
+
+/** Mishaps older than this (before the newest workup) have had their cause found at a group meeting. */
+const REVIEWED_AFTER_MS = 14 * 24 * 3600 * 1000;
 
 /** Fewer Monte Carlo draws than an interactive save: the demo loads 60 workups on first start. */
 const SEED_DRAWS = 200;
@@ -19,6 +23,7 @@ export async function seedWorkups(
   compounds: ReadonlyMap<string, CompoundFacts>,
 ): Promise<GeneratedWorkup[]> {
   const generated = generateWorkups(compounds);
+  const newest = Math.max(...generated.map((w) => w.performedOn.getTime()));
   for (const w of generated) {
     const chemistId = users.get(w.chemistEmail) ?? null;
     const actor = { groupId, userId: chemistId ?? [...users.values()][0]! };
@@ -46,6 +51,10 @@ export async function seedWorkups(
       purityMethod: w.outcome.method,
       notes: w.outcome.note,
     });
+    // The group meeting has gone through the mishaps of all but the last fortnight and recorded what it found.
+    if (w.poor?.kind === "mishap" && newest - w.performedOn.getTime() > REVIEWED_AFTER_MS) {
+      await recordFoundCause(db, actor, saved.id, { cause: w.poor.cause, note: `Found at the group meeting: ${w.poor.words}` });
+    }
   }
   return generated;
 }

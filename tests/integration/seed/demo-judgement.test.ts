@@ -19,7 +19,7 @@ describe("the demo scenario's judgement", () => {
   it("flags exactly the workups written as poor, each for the written reason", async () => {
     const rows = await t.db.workup.findMany({
       where: { group: { slug: "holloway" } },
-      select: { notebookRef: true, title: true, status: true, flagged: true, outcome: { select: { analysis: true } } },
+      select: { notebookRef: true, title: true, status: true, flagged: true, outcome: { select: { analysis: true, foundCause: true } } },
     });
     const written = new Map(seeded.written.map((w) => [w.notebookRef, w]));
     expect(rows).toHaveLength(seeded.written.length);
@@ -58,6 +58,14 @@ describe("the demo scenario's judgement", () => {
     for (const w of judged) counts.set(w.status, (counts.get(w.status) ?? 0) + 1);
     const statuses = [...counts].map(([status, n]) => `${n} ${status}`).join(" / ");
     console.log(`demo: ${judged.length} judged workups, ${flagged.length} flagged (${byRisk} for a danger-level procedure risk, ${flagged.length - byRisk} below with the mishap named first); statuses ${statuses}`);
+    // The meeting has recorded what it found for the older mishaps, always the written cause, and for nothing else.
+    const found = judged.filter((w) => w.outcome?.foundCause);
+    expect(found.length).toBeGreaterThan(0);
+    for (const w of found) {
+      const poor = written.get(w.notebookRef ?? "")?.poor;
+      expect(poor?.kind, w.notebookRef ?? "").toBe("mishap");
+      expect(w.outcome?.foundCause, w.notebookRef ?? "").toBe(poor?.kind === "mishap" ? poor.cause : null);
+    }
 
   }, 120_000);
 });
