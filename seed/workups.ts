@@ -1,11 +1,13 @@
 /**
  * Saves the generated demo workups through the same service the editor and the API use (validation, prediction,
- * versions, outcome analysis), so the demo exercises the real path. The reported mass is what a chemist would have
+ * versions, outcome analysis), so the demo exercises the real path. Each save's interval job (lib/jobs/interval.ts)
+ * is run to completion before its outcome is reported, so every outcome is judged against its interval, in order. The reported mass is what a chemist would have
  * weighed by the story (seed/scenario.ts): the product the reaction gave, carried through the written procedure (the
  * engine's point recovery on the scenario's literature values, no Monte Carlo spread), less handling and any mishap.
  */
 import type { Db } from "@/lib/db/client";
 import { recordFoundCause } from "@/lib/workups/found-cause";
+import { drainQueue } from "@/lib/jobs/worker";
 import { reportOutcome } from "@/lib/workups/outcome";
 import { createWorkup } from "@/lib/workups/service";
 import { generateWorkups, type CompoundFacts, type GeneratedWorkup } from "./generate";
@@ -39,6 +41,7 @@ export async function seedWorkups(
       spec: w.spec,
       links: Object.entries(w.componentCompoundIds).map(([key, compoundId]) => ({ key, compoundId })),
     }, { draws: SEED_DRAWS });
+    await drainQueue(db, { kinds: ["interval"], schedule: false });
     if (!w.outcome) continue;
     const product = w.spec.components.find((c) => c.role === "product")!;
     const procedure = saved.prediction.productRecovery ?? 0;

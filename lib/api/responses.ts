@@ -1,12 +1,16 @@
 // Response shapes of the JSON API, for the OpenAPI document only (the services' TypeScript types are the contract
 // in code). Kept shallow where a body carries the engine's full output, which lib/chem/types.ts documents.
 import { z } from "zod";
+import { INTERVAL_STATES } from "@/lib/workups/interval-state";
 import { OUTCOME_STATUSES } from "@/lib/workups/schemas";
 import { FOUND_CAUSES } from "@/lib/workups/found-cause-schema";
 
 const fraction = z.number().describe("fraction 0–1");
 const nullableFraction = fraction.nullable();
 const person = z.object({ id: z.string(), name: z.string() });
+const intervalState = z.enum(INTERVAL_STATES).describe(
+  "pending: the Monte Carlo interval (recoveryLow/High, predictedLowPct/HighPct) and the judgement of a reported outcome are being computed in the background after a save; GET the workup again for them. failed: the interval could not be computed; saving again retries. ready: done",
+);
 
 export const errorBodySchema = z.object({
   error: z.object({
@@ -36,7 +40,8 @@ export const savedWorkupSchema = z.object({
   flagged: z.boolean(),
   status: z.enum(OUTCOME_STATUSES),
   deviationPct: z.number().nullable(),
-  prediction: predictionSummarySchema,
+  intervalState,
+  prediction: predictionSummarySchema.describe("the point prediction of the saved version; recoveryLow and recoveryHigh are null while intervalState is pending"),
 });
 
 export const listPageSchema = z.object({
@@ -44,7 +49,7 @@ export const listPageSchema = z.object({
     id: z.string(), title: z.string(), performedOn: z.iso.date(), chemist: person.nullable(), notebookRef: z.string(),
     version: z.number().int(), status: z.enum(OUTCOME_STATUSES), flagged: z.boolean(), deviationPct: z.number().nullable(),
     reportedRecoveryPct: z.number().nullable(), predictedRecoveryPct: z.number().nullable(),
-    predictedLowPct: z.number().nullable(), predictedHighPct: z.number().nullable(), updatedAt: z.iso.datetime(),
+    predictedLowPct: z.number().nullable(), predictedHighPct: z.number().nullable(), intervalState, updatedAt: z.iso.datetime(),
   })),
   next: z.string().nullable().describe("cursor of the next page; null on the last page"),
 });
@@ -57,7 +62,7 @@ export const workupDetailSchema = z.object({
   }),
   spec: z.record(z.string(), z.unknown()).describe("the spec as saved, units included"),
   components: z.array(z.object({ key: z.string(), name: z.string(), role: z.string(), amountMmol: z.number(), compound: person.nullable() })),
-  status: z.enum(OUTCOME_STATUSES), flagged: z.boolean(), deviationPct: z.number().nullable(),
+  status: z.enum(OUTCOME_STATUSES), flagged: z.boolean(), deviationPct: z.number().nullable(), intervalState,
   prediction: z.record(z.string(), z.unknown()).nullable().describe("latest stored prediction with the engine's full result"),
   outcome: z.record(z.string(), z.unknown()).nullable(),
 });
@@ -95,6 +100,7 @@ export const outcomeReportSchema = z.object({
     flagged: z.boolean(),
     dangerFlags: z.array(z.string()),
     causes: z.array(cause),
+    intervalPending: z.boolean().optional().describe("true: reported while the interval was being computed; status inconclusive and no deviation or causes until the background job judges it"),
   }),
 });
 

@@ -6,15 +6,17 @@
  *  - progress is committed in batches inside the batch's own transaction, fenced by the lease: the write succeeds
  *    only while this worker still holds the job (lockedBy), and renews the lease; a worker that lost its lease rolls
  *    its batch back, so every batch is applied exactly once;
- *  - all lease times are the database server's clock, so instances with drifting clocks agree.
+ *  - all lease times are the database server's clock, so instances with drifting clocks agree;
+ *  - interval jobs (one workup's Monte Carlo interval after a save, a second or so) are claimed before the others,
+ *    so a person waiting for their workup's interval does not wait behind a long re-validation.
  */
 import { Prisma } from "@/generated/prisma/client";
 import { type Db, type DbTransaction } from "@/lib/db/client";
 
 type Client = Db | DbTransaction;
 
-export type JobKind = "revalidate" | "infer";
-export const JOB_KINDS: readonly JobKind[] = ["revalidate", "infer"];
+export type JobKind = "revalidate" | "infer" | "interval";
+export const JOB_KINDS: readonly JobKind[] = ["revalidate", "infer", "interval"];
 
 /** Lease length: a batch takes a few seconds, so a lease this long is renewed many times before it could lapse. */
 export const LEASE_SECONDS = 60;
@@ -64,7 +66,7 @@ export async function claimJob(db: Client, workerId: string, options: { kinds?: 
         SELECT id, status AS "previousStatus" FROM "Job"
          WHERE kind IN (${Prisma.join([...kinds])})
            AND (status = 'queued' OR (status = 'running' AND "lockedAt" < now() - make_interval(secs => ${lease})))
-         ORDER BY "createdAt", id
+         ORDER BY (kind = 'interval') DESC, "createdAt", id
          LIMIT 1
            FOR UPDATE SKIP LOCKED
       ) AS picked

@@ -7,6 +7,8 @@
  * outcome's own updatedAt. A workup saved again meanwhile is left alone (its own save already predicted it with the
  * same values); one whose outcome was reported meanwhile comes back as `stale`, for the caller to plan again from
  * the new outcome, so a background pass never overwrites what a person recorded after it read the row.
+ * The same plan and write complete a save's interval (interval.ts): a prediction with its draws marks the version's
+ * interval ready.
  */
 import { type Prisma } from "@/generated/prisma/client";
 import { type Db, type DbTransaction } from "@/lib/db/client";
@@ -15,8 +17,15 @@ import { analyzeOutcome, type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { isFlagged, type DeviationStatus } from "@/lib/workups/deviation";
 import { groupJudgementFrom, loadGroupHistory } from "@/lib/workups/group-model";
 import { groupLibrary } from "@/lib/workups/library";
-import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction } from "@/lib/workups/prediction";
+import { computePrediction, seedFromId, SAVE_DRAWS, type ComputedPrediction, type PredictionOptions } from "@/lib/workups/prediction";
+import { siteFlags } from "@/lib/workups/site-flags";
 import { jobFailureMessage } from "./messages";
+
+/** Runs the engine for a job: on an engine thread in the app (engine.ts), in place in scripts and tests. */
+export type Predictor = (spec: unknown, options: PredictionOptions) => Promise<ComputedPrediction>;
+
+/** The engine on this thread (planRepredictions yields to the event loop between workups). */
+export const predictHere: Predictor = (spec, options) => Promise.resolve().then(() => computePrediction(spec, options));
 
 export interface Reprediction {
   workupId: string;
@@ -39,7 +48,8 @@ export interface RepredictionPlan {
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
-export async function planRepredictions(db: Db, groupId: string, workupIds: readonly string[], options: { draws?: number } = {}): Promise<RepredictionPlan> {
+export async function planRepredictions(db: Db, groupId: string, workupIds: readonly string[], options: { draws?: number; predict?: Predictor } = {}): Promise<RepredictionPlan> {
+  const predict = options.predict ?? predictHere;
   const library = await groupLibrary(db, groupId);
   const workups = await db.workup.findMany({
     where: { groupId, id: { in: [...workupIds] } },
@@ -57,7 +67,11 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
   for (const w of workups) {
     await yieldToEventLoop();
     try {
-      const computed = computePrediction(w.spec, { library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {}, stored: true });
+      // The flags found outside the engine too, as a save stores them (lib/workups/service.ts).
+      const computed = await predict(w.spec, {
+        library, seed: seedFromId(w.id), draws: options.draws ?? SAVE_DRAWS, groupValues: values.get(w.id) ?? {}, stored: true,
+        extraFlags: await siteFlags(w.spec),
+      });
       const flags = computed.result.prediction.flags;
       const judgement = w.outcome ? groupJudgementFrom(history, w.id) : null;
       const analysis = w.outcome && judgement
@@ -78,6 +92,16 @@ export async function planRepredictions(db: Db, groupId: string, workupIds: read
     }
   }
   return out;
+}
+
+/** The version's latest prediction if it was stored without its interval (uncertainty null), else null. */
+async function predictionAwaitingInterval(tx: DbTransaction, groupId: string, workupId: string, version: number): Promise<string | null> {
+  const rows = await tx.$queryRaw<{ id: string; awaiting: boolean }[]>`
+    SELECT id, COALESCE(result->'uncertainty', 'null'::jsonb) = 'null'::jsonb AS awaiting FROM "Prediction"
+     WHERE "groupId" = ${groupId} AND "workupId" = ${workupId} AND "workupVersion" = ${version}
+     ORDER BY "createdAt" DESC, id DESC LIMIT 1`;
+  const latest = rows[0];
+  return latest?.awaiting ? latest.id : null;
 }
 
 function asJson(value: unknown): Prisma.InputJsonValue {
@@ -109,7 +133,7 @@ export async function applyRepredictions(tx: DbTransaction, groupId: string, pla
     }
     const { count } = await tx.workup.updateMany({
       where: { id: p.workupId, groupId, version: p.version, updatedAt: p.updatedAt },
-      data: { ...p.state, updatedAt: p.updatedAt },
+      data: { ...p.state, ...(p.computed.result.uncertainty ? { intervalState: "ready" as const } : {}), updatedAt: p.updatedAt },
     });
     if (count === 0) {
       const now = await tx.workup.findFirst({ where: { id: p.workupId, groupId }, select: { version: true } });
@@ -118,13 +142,15 @@ export async function applyRepredictions(tx: DbTransaction, groupId: string, pla
     }
     applied++;
     if (p.state.flagged !== p.wasFlagged) flagChanges++;
-    await tx.prediction.create({
-      data: {
-        groupId, workupId: p.workupId, workupVersion: p.version, engineVersion: p.computed.engineVersion, result: asJson(p.computed.result),
-        productRecovery: p.computed.productRecovery, recoveryLow: p.computed.recoveryLow, recoveryHigh: p.computed.recoveryHigh,
-      },
-      select: { id: true },
-    });
+    const data = {
+      engineVersion: p.computed.engineVersion, result: asJson(p.computed.result),
+      productRecovery: p.computed.productRecovery, recoveryLow: p.computed.recoveryLow, recoveryHigh: p.computed.recoveryHigh,
+    };
+    // A save stores its version's point prediction and leaves the interval to a job: completed in place, so a
+    // version keeps one prediction per save. Otherwise (a re-validation) the new prediction is added beside the old.
+    const awaiting = p.computed.result.uncertainty ? await predictionAwaitingInterval(tx, groupId, p.workupId, p.version) : null;
+    if (awaiting) await tx.prediction.update({ where: { id: awaiting }, data, select: { id: true } });
+    else await tx.prediction.create({ data: { groupId, workupId: p.workupId, workupVersion: p.version, ...data }, select: { id: true } });
     if (p.outcomeId && p.analysis) {
       await tx.outcome.updateMany({
         where: { id: p.outcomeId, groupId, updatedAt: p.outcomeStamp ?? undefined },

@@ -6,7 +6,7 @@
  */
 import { type Db, type DbTransaction } from "@/lib/db/client";
 import { commitProgress, finishJob, LeaseLostError, type ClaimedJob } from "./queue";
-import { applyRepredictions, planRepredictions } from "./repredict";
+import { applyRepredictions, planRepredictions, type Predictor } from "./repredict";
 
 type Client = Db | DbTransaction;
 
@@ -79,6 +79,8 @@ export async function countAffectedWorkups(db: Client, groupId: string, compound
 export interface BatchOptions {
   draws?: number;
   batchSize?: number;
+  /** Where the engine runs (default: in place; the app's worker passes its engine threads). */
+  predict?: Predictor;
 }
 
 /** One batch of a revalidation job: predict, then write the batch and the progress together. Returns true when the job is finished. */
@@ -104,7 +106,7 @@ export async function runRevalidationBatch(db: Db, job: ClaimedJob, options: Bat
     });
     return true;
   }
-  const { plans, failures } = await planRepredictions(db, job.groupId, batch.map((w) => w.id), { draws: options.draws });
+  const { plans, failures } = await planRepredictions(db, job.groupId, batch.map((w) => w.id), { draws: options.draws, predict: options.predict });
   const next: RevalidationPayload = {
     ...payload,
     cursor: batch[batch.length - 1]?.id ?? payload.cursor,
@@ -120,7 +122,7 @@ export async function runRevalidationBatch(db: Db, job: ClaimedJob, options: Bat
   });
   // An outcome reported while the batch was being predicted: predict those workups again against the new outcome.
   for (let attempt = 0; stale.length > 0 && attempt < STALE_REPLANS; attempt++) {
-    const again = await planRepredictions(db, job.groupId, stale, { draws: options.draws });
+    const again = await planRepredictions(db, job.groupId, stale, { draws: options.draws, predict: options.predict });
     stale = await db.$transaction(async (tx) => {
       const applied = await applyRepredictions(tx, job.groupId, again.plans);
       next.flagChanges += applied.flagChanges;

@@ -1,4 +1,6 @@
-// What the progress bars show: the group's background jobs that are waiting or running, and the last re-validation finished.
+// What the progress bars show: the group's background jobs that are waiting or running, and the last re-validation
+// finished. A save's interval job is not among them: it belongs to one workup, whose own page and list row say
+// "interval being computed".
 import { type Db } from "@/lib/db/client";
 import { readRevalidationPayload } from "./revalidate";
 
@@ -46,7 +48,7 @@ function progress(row: Row): JobProgress {
 
 export async function jobsStatus(db: Db, groupId: string): Promise<JobsStatus> {
   const [active, last] = await Promise.all([
-    db.job.findMany({ where: { groupId, status: { in: ["queued", "running"] } }, orderBy: [{ createdAt: "asc" }, { id: "asc" }], take: 10, select }),
+    db.job.findMany({ where: { groupId, kind: { in: ["revalidate", "infer"] }, status: { in: ["queued", "running"] } }, orderBy: [{ createdAt: "asc" }, { id: "asc" }], take: 10, select }),
     db.job.findFirst({ where: { groupId, kind: "revalidate", status: { in: ["done", "failed"] } }, orderBy: [{ updatedAt: "desc" }, { id: "desc" }], select }),
   ]);
   return { active: active.map(progress), lastFinished: last ? progress(last) : null };

@@ -8,6 +8,7 @@ import { randomBytes } from "node:crypto";
 import { hostname } from "node:os";
 import { type Db } from "@/lib/db/client";
 import { runInferenceBatch, scheduleInference } from "./infer";
+import { markIntervalFailed, runIntervalBatch } from "./interval";
 import { jobFailureMessage } from "./messages";
 import { claimJob, finishJob, LEASE_SECONDS, LeaseLostError, releaseJob, renewLease, type ClaimedJob, type JobKind } from "./queue";
 import { runRevalidationBatch, type BatchOptions } from "./revalidate";
@@ -38,7 +39,17 @@ export function newWorkerId(): string {
 const BATCH: Record<JobKind, BatchRunner> = {
   revalidate: runRevalidationBatch,
   infer: (db, job) => runInferenceBatch(db, job),
+  interval: runIntervalBatch,
 };
+
+/** What a kind of job leaves behind when it is given up (after finishJob marked it failed). */
+const GIVEN_UP: Partial<Record<JobKind, (db: Db, job: ClaimedJob) => Promise<void>>> = {
+  interval: markIntervalFailed,
+};
+
+async function giveUp(db: Db, job: ClaimedJob, error: string): Promise<void> {
+  if (await finishJob(db, job, { status: "failed", error })) await GIVEN_UP[job.kind]?.(db, job);
+}
 
 export type JobRunResult = "done" | "released" | "lost" | "failed";
 
@@ -79,7 +90,7 @@ export async function runJob(db: Db, job: ClaimedJob, options: RunOptions = {}):
     options.log?.(`resuming ${job.kind} job ${job.id} at ${job.done}/${job.total} after its worker stopped`);
   }
   if (takeovers > MAX_TAKEOVERS) {
-    await finishJob(db, job, { status: "failed", error: `stopped ${takeovers} times before finishing; see the server log` });
+    await giveUp(db, job, `stopped ${takeovers} times before finishing; see the server log`);
     return "failed";
   }
   let lost = false;
@@ -101,7 +112,7 @@ export async function runJob(db: Db, job: ClaimedJob, options: RunOptions = {}):
         const message = jobFailureMessage(error, `${job.kind} job ${job.id}, attempt ${attempt}`);
         if (attempt >= MAX_BATCH_ATTEMPTS) {
           options.log?.(`job ${job.id} failed after ${attempt} attempts: ${message}`);
-          await finishJob(db, job, { status: "failed", error: `Stopped after ${attempt} failed attempts: ${message}` });
+          await giveUp(db, job, `Stopped after ${attempt} failed attempts: ${message}`);
           return "failed";
         }
         options.log?.(`job ${job.id}: attempt ${attempt} failed (${message}); retrying from its last committed batch`);
@@ -127,12 +138,21 @@ export function sleep(ms: number, signal: AbortSignal): Promise<void> {
 export interface RunningWorker {
   id: string;
   stop: () => Promise<void>;
+  /** Ends an idle wait now (a job was just queued in this process). */
+  wake: () => void;
 }
 
 export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {}): RunningWorker {
   const id = options.workerId ?? newWorkerId();
   const controller = new AbortController();
   const log = options.log ?? ((m: string) => console.info(`[layerwise jobs] ${m}`));
+  let woken = false;
+  let endNap: (() => void) | null = null;
+  const nap = (ms: number) => new Promise<void>((resolve) => {
+    if (woken) return resolve();
+    endNap = resolve;
+    void sleep(ms, controller.signal).then(resolve);
+  }).finally(() => { endNap = null; woken = false; });
   const loop = async () => {
     let lastSchedule = 0;
     while (!controller.signal.aborted) {
@@ -142,6 +162,7 @@ export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {
           lastSchedule = Date.now();
           await scheduleInference(db);
         }
+        woken = false;
         const job = await claimJob(db, id, { kinds: options.kinds, leaseSeconds: options.leaseSeconds });
         if (job) {
           await runJob(db, job, { ...options, signal: controller.signal, log });
@@ -151,7 +172,7 @@ export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {
       } catch (error) {
         log(`worker ${id}: ${error instanceof Error ? error.message : String(error)}`);
       }
-      await sleep(options.idleMs ?? 2_000, controller.signal);
+      await nap(options.idleMs ?? 2_000);
       options.onIdle?.();
     }
   };
@@ -161,6 +182,10 @@ export function startWorker(getDb: () => Promise<Db>, options: WorkerOptions = {
     stop: async () => {
       controller.abort();
       await running;
+    },
+    wake: () => {
+      woken = true;
+      endNap?.();
     },
   };
 }

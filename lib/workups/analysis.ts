@@ -49,6 +49,11 @@ export interface OutcomeAnalysis {
   /** Codes of the engine's danger flags, which flag a workup whatever its outcome. */
   dangerFlags: string[];
   causes: LikelyCause[];
+  /**
+   * True while the version's Monte Carlo interval is being computed (lib/jobs/interval.ts): the outcome is not judged
+   * yet (status "inconclusive", no deviation, no causes); the interval job writes the judgement.
+   */
+  intervalPending?: boolean;
 }
 
 export interface PredictionFacts {
@@ -72,6 +77,8 @@ export interface AnalysisInputs {
   causeFrequencies?: Partial<Record<CauseCode, number>>;
   /** The engine re-run for causes (defaults to the engine with the group's library). */
   simulate?: Simulator;
+  /** The prediction's interval is still being computed: record the reported recovery, judge nothing yet. */
+  intervalPending?: boolean;
 }
 
 const PRIORS_ONLY = fitGroupModel([]);
@@ -79,6 +86,27 @@ const PRIORS_ONLY = fitGroupModel([]);
 /** The same product worked up by the same kinds of operation, in order: the engine's parameter error repeats. */
 function familyOf(product: { name: string; smiles?: string | undefined }, spec: WorkupInput): string {
   return `${(product.smiles ?? product.name).trim().toLowerCase()}|${spec.operations.map((op) => op.type).join(",")}`;
+}
+
+/**
+ * The analysis while the interval is being computed: what was reported, the procedure's danger flags, and an honest
+ * "inconclusive" in place of a judgement made without the engine's spread (the fallback band is for predictions
+ * that will never have an interval). Nothing here teaches the group model (no predictive case, no causes).
+ */
+function awaitingInterval(prediction: PredictionFacts | null, productKey: string | null, reported: ReportedRecovery | null, flags: readonly Flag[]): OutcomeAnalysis {
+  return {
+    workupVersion: prediction?.workupVersion ?? 0,
+    engineVersion: prediction?.engineVersion ?? null,
+    productKey,
+    reported,
+    predicted: null,
+    predictive: null,
+    deviation: { status: "inconclusive", deviationPct: null, low: null, high: null, fallbackBand: false },
+    flagged: isFlagged("inconclusive", flags),
+    dangerFlags: flags.filter((f) => f.severity === "danger").map((f) => f.code),
+    causes: [],
+    intervalPending: true,
+  };
 }
 
 export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
@@ -107,6 +135,7 @@ export function analyzeOutcome(inputs: AnalysisInputs): OutcomeAnalysis {
   const interval = predictive ? recoveryInterval(predictive) : null;
   const predicted = interval && engine ? { recovery: interval.median, low: interval.low, high: interval.high, engine: engine.recovery } : null;
   const flags = prediction?.flags ?? [];
+  if (inputs.intervalPending) return awaitingInterval(prediction, product?.key ?? null, reported, flags);
   let deviation: Deviation = { status: "unknown", deviationPct: null, low: predicted?.low ?? null, high: predicted?.high ?? null, fallbackBand: false };
   let summary: PredictiveSummary | null = null;
   let causes: LikelyCause[] = [];

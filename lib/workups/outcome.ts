@@ -1,7 +1,9 @@
 /**
  * Reporting what was recovered. The outcome is compared with the prediction of the workup's current version; the
  * comparison (recovery, deviation, status, likely causes) is stored with the outcome, and status, deviation and the
- * review flag are mirrored on the Workup row for the list and the dashboard.
+ * review flag are mirrored on the Workup row for the list and the dashboard. While the version's interval is still
+ * being computed (lib/jobs/interval.ts) the outcome is stored unjudged ("inconclusive", marked as waiting for the
+ * interval); the interval job judges it when the interval is written.
  */
 import { type Db } from "@/lib/db/client";
 import { ConflictError, NotFoundError, ValidationError, parseInput, type FieldErrors } from "@/lib/errors";
@@ -51,7 +53,7 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
     const workup = await db.workup.findFirst({
       where: { id: workupId, groupId: actor.groupId },
       select: {
-        version: true, spec: true, assayedProductMmol: true, expectedProductMmol: true, chemistId: true,
+        version: true, intervalState: true, spec: true, assayedProductMmol: true, expectedProductMmol: true, chemistId: true,
         components: { where: { groupId: actor.groupId }, select: { key: true, compoundId: true } },
         predictions: {
           orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1,
@@ -69,14 +71,18 @@ export async function reportOutcome(db: Db, actor: Actor, workupId: string, inpu
       ? { ...stored, productKey: (stored.result as Partial<StoredPredictionResult> | null)?.prediction?.productKey ?? null, flags: flagsOf(stored.result) }
       : null;
     const judgement = await loadGroupJudgement(db, actor.groupId, workupId);
-    const analysis = analyzeOutcome({ outcome, header: workup, spec, prediction, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies });
+    const analysis = analyzeOutcome({
+      outcome, header: workup, spec, prediction, library, model: judgement.model, causeFrequencies: judgement.causeFrequencies,
+      intervalPending: workup.intervalState === "pending",
+    });
     const recoveryPct = analysis.reported ? analysis.reported.recovery * 100 : null;
     const written = await db.$transaction(async (tx) => {
+      // The interval state too: an interval written meanwhile means this judgement is out of date (read again).
       const { count } = await tx.workup.updateMany({
-        where: { id: workupId, groupId: actor.groupId, version: workup.version },
+        where: { id: workupId, groupId: actor.groupId, version: workup.version, intervalState: workup.intervalState },
         data: { status: analysis.deviation.status, deviationPct: analysis.deviation.deviationPct, flagged: analysis.flagged },
       });
-      if (count === 0) return false; // saved again meanwhile: compare with the newer prediction
+      if (count === 0) return false; // saved again or its interval written meanwhile: compare with the newer prediction
       const data = {
         isolatedMassMg: outcome.isolatedMassMg, purityPct: outcome.purityPct ?? null, purityMethod: outcome.purityMethod,
         layerAssays: asJson(outcome.layerAssays), notes: outcome.notes, recoveryPct, analysis: asJson(analysis), reportedById: actor.userId,

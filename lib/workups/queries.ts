@@ -9,6 +9,7 @@ import { NotFoundError, ValidationError, parseInput } from "@/lib/errors";
 import { type OutcomeAnalysis } from "./analysis";
 import { type DeviationStatus } from "./deviation";
 import { storedFoundCause, type FoundCause } from "./found-cause-schema";
+import { type IntervalState } from "./interval-state";
 import { type StoredPredictionResult } from "./prediction";
 import { dayOf, type JsonObject, type SnapshotHeader } from "./record";
 import { EARLIEST_DAY, LATEST_DAY, workupListFilterSchema, type WorkupListFilter } from "./schemas";
@@ -87,7 +88,7 @@ export async function resolveWhere(db: Db, groupId: string, filter: Omit<WorkupL
 
 export const listSelect = {
   id: true, title: true, performedOn: true, chemistId: true, notebookRef: true, version: true, status: true, flagged: true,
-  deviationPct: true, updatedAt: true,
+  deviationPct: true, intervalState: true, updatedAt: true,
   outcome: { select: { recoveryPct: true, purityMethod: true } },
   predictions: {
     orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1,
@@ -110,6 +111,8 @@ export interface WorkupListRow {
   predictedRecoveryPct: number | null;
   predictedLowPct: number | null;
   predictedHighPct: number | null;
+  /** "pending": the interval (predictedLowPct/HighPct) and the judgement of any outcome are being computed. */
+  intervalState: IntervalState;
   updatedAt: string;
 }
 
@@ -140,7 +143,7 @@ export async function toListRows(db: Db, records: ListRecord[]): Promise<WorkupL
       status: r.status, flagged: r.flagged, deviationPct: r.deviationPct,
       reportedRecoveryPct: r.outcome?.recoveryPct ?? null,
       predictedRecoveryPct: pct(p?.productRecovery), predictedLowPct: pct(p?.recoveryLow), predictedHighPct: pct(p?.recoveryHigh),
-      updatedAt: r.updatedAt.toISOString(),
+      intervalState: r.intervalState, updatedAt: r.updatedAt.toISOString(),
     };
   });
 }
@@ -173,6 +176,8 @@ export interface WorkupDetail {
   status: DeviationStatus;
   flagged: boolean;
   deviationPct: number | null;
+  /** "pending": the prediction's interval and the judgement of any outcome are being computed in the background. */
+  intervalState: IntervalState;
   createdAt: string;
   updatedAt: string;
   updatedBy: { id: string; name: string } | null;
@@ -211,7 +216,7 @@ export async function getWorkupDetail(db: Db, groupId: string, id: string): Prom
     chemistName: w.chemistId ? (people.get(w.chemistId)?.name ?? null) : null,
     spec: w.spec as JsonObject,
     components: w.components.map((c) => ({ key: c.key, name: c.name, role: c.role, amountMmol: c.amountMmol, compound: c.compound })),
-    status: w.status, flagged: w.flagged, deviationPct: w.deviationPct,
+    status: w.status, flagged: w.flagged, deviationPct: w.deviationPct, intervalState: w.intervalState,
     createdAt: w.createdAt.toISOString(), updatedAt: w.updatedAt.toISOString(),
     updatedBy: w.updatedById ? (people.get(w.updatedById) ?? null) : null,
     prediction: p

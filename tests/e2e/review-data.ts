@@ -52,6 +52,8 @@ export async function workupWithOutcome(request: APIRequestContext, o: Extractio
   const saved = await request.post("/api/v1/workups", { headers, data: extractionBody(o, options.compoundId) });
   expect(saved.status(), await saved.text()).toBe(201);
   const { id, prediction } = (await saved.json()) as { id: string; prediction: { productRecovery: number } };
+  // The interval is computed in the background after the save; an outcome reported before it would wait unjudged.
+  await expect.poll(async () => ((await (await request.get(`/api/v1/workups/${id}`)).json()) as { intervalState: string }).intervalState, { timeout: 30_000 }).toBe("ready");
   const mg = prediction.productRecovery * factor * 5 * MOLAR_MASS;
   const outcome = await request.post(`/api/v1/workups/${id}/outcome`, {
     headers,

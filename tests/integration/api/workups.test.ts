@@ -10,7 +10,7 @@ import * as versions from "@/app/api/v1/workups/[id]/versions/route";
 import * as diff from "@/app/api/v1/workups/[id]/diff/route";
 import * as predict from "@/app/api/v1/predict/route";
 import { describeWithAppDatabase } from "@/tests/integration/auth/app-database";
-import { exampleSpec, footprint, header, makeLab, type Lab } from "@/tests/integration/workups/fixtures";
+import { completeIntervals, exampleSpec, footprint, header, makeLab, type Lab } from "@/tests/integration/workups/fixtures";
 import { callRoute, json, tokenFor } from "./call";
 
 type ErrorJson = { error: { code: string; message: string; fields?: Record<string, string[]> } };
@@ -48,7 +48,8 @@ describeWithAppDatabase("workup API", (t) => {
       });
       expect(res.status).toBe(201);
       const body = await json<{ id: string; version: number; prediction: { productKey: string; engineVersion: string } }>(res);
-      expect(body).toMatchObject({ version: 1, prediction: { productKey: "benzanilide" } });
+      // The point prediction at once; the interval is computed in the background, and the answer says so.
+      expect(body).toMatchObject({ version: 1, intervalState: "pending", prediction: { productKey: "benzanilide", recoveryLow: null, recoveryHigh: null } });
       expect(res.headers.get("location")).toBe(`/api/v1/workups/${body.id}`);
       ownId = body.id;
       expect(await t.db.workup.count({ where: { id: ownId, groupId: lab.groupId } })).toBe(1);
@@ -69,11 +70,33 @@ describeWithAppDatabase("workup API", (t) => {
       expect(await json(res)).toMatchObject({ id: ownId, version: 1, header: { title: "Benzanilide wash sequence", performedOn: "2026-11-03" }, spec: exampleSpec() });
     });
 
+    it("GET /workups and /workups/{id} say the interval is pending until its job has run, then give it", async () => {
+      const read = async () => {
+        const one = await json<{ intervalState: string; prediction: { recoveryLow: number | null; recoveryHigh: number | null } }>(
+          await callRoute(workup.GET, "GET", `/api/v1/workups/${ownId}`, { token: tokens.viewer, params: { id: ownId } }),
+        );
+        const list = await json<{ rows: { id: string; intervalState: string; predictedLowPct: number | null }[] }>(
+          await callRoute(workups.GET, "GET", "/api/v1/workups", { token: tokens.viewer, query: { q: "benzanilide" } }),
+        );
+        return { one, row: list.rows.find((r) => r.id === ownId) };
+      };
+      const pending = await read();
+      expect(pending.one).toMatchObject({ intervalState: "pending", prediction: { recoveryLow: null, recoveryHigh: null } });
+      expect(pending.row).toMatchObject({ intervalState: "pending", predictedLowPct: null });
+      await completeIntervals(t.db);
+      const ready = await read();
+      expect(ready.one.intervalState).toBe("ready");
+      expect(ready.one.prediction.recoveryLow!).toBeLessThan(ready.one.prediction.recoveryHigh!);
+      expect(ready.row?.intervalState).toBe("ready");
+      expect(ready.row?.predictedLowPct).toBeCloseTo(ready.one.prediction.recoveryLow! * 100, 9);
+    });
+
     it("PUT /workups/{id} saves version 2; the same baseVersion again is 409 with who and when, and changes nothing", async () => {
       const edit = { header: header({ title: "Benzanilide, second wash" }), spec: exampleSpec(), baseVersion: 1 };
       const res = await callRoute(workup.PUT, "PUT", `/api/v1/workups/${ownId}`, { token: tokens.lead, params: { id: ownId }, body: edit });
       expect(res.status).toBe(200);
-      expect(await json(res)).toMatchObject({ id: ownId, version: 2 });
+      expect(await json(res)).toMatchObject({ id: ownId, version: 2, intervalState: "pending", prediction: { recoveryLow: null } });
+      expect(await t.db.job.count({ where: { kind: "interval", status: "queued", payload: { path: ["workupId"], equals: ownId } } })).toBe(1);
       const before = await footprint(t.db);
       const stale = await callRoute(workup.PUT, "PUT", `/api/v1/workups/${ownId}`, { token: tokens.member, params: { id: ownId }, body: edit });
       expect(stale.status).toBe(409);

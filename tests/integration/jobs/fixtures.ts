@@ -6,7 +6,7 @@ import { type WorkupInputRaw } from "@/lib/chem/schema";
 import { type Db } from "@/lib/db/client";
 import { reportOutcome } from "@/lib/workups/outcome";
 import { createWorkup } from "@/lib/workups/service";
-import { acetanilideSpec, header, type Lab } from "@/tests/integration/workups/fixtures";
+import { acetanilideSpec, completeIntervals, header, type Lab } from "@/tests/integration/workups/fixtures";
 
 export const ACETANILIDE = { key: "acetanilide", molarMass: 135.17, smiles: "CC(=O)Nc1ccccc1" } as const; // M as in acetanilideSpec
 
@@ -54,6 +54,7 @@ export async function workupWithOutcome(db: Db, lab: Lab, compoundId: string | n
     spec: extractionSpec(),
     links: compoundId ? [{ key: ACETANILIDE.key, compoundId }] : [],
   }, { draws: TEST_DRAWS });
+  await completeIntervals(db);
   if (trueLogK !== null) {
     const mg = recoveryAt(trueLogK) * 5 * ACETANILIDE.molarMass;
     await reportOutcome(db, lab.member, saved.id, { isolatedMassMg: mg / 0.99, purityPct: 99, purityMethod: "qnmr" });

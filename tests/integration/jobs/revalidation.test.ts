@@ -4,9 +4,11 @@ import { claimJob, LeaseLostError } from "@/lib/jobs/queue";
 import { countAffectedWorkups, enqueueRevalidation, runRevalidationBatch } from "@/lib/jobs/revalidate";
 import { drainQueue, runJob } from "@/lib/jobs/worker";
 import { type StoredPredictionResult } from "@/lib/workups/prediction";
+import { createWorkup } from "@/lib/workups/service";
+import { NO_SITE_FLAG_CODE } from "@/lib/workups/site-flags";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
-import { makeLab, type Lab } from "@/tests/integration/workups/fixtures";
-import { makeAcetanilide, TEST_DRAWS, workupWithOutcome } from "./fixtures";
+import { completeIntervals, header, makeLab, type Lab } from "@/tests/integration/workups/fixtures";
+import { ACETANILIDE, extractionSpec, makeAcetanilide, TEST_DRAWS, workupWithOutcome } from "./fixtures";
 
 /** A shake-flask result whose log D (= log K, acetanilide has no site ionized near pH 7) is `logK`. */
 const shakeFlask = (compoundId: string, logK: number) => ({
@@ -119,5 +121,29 @@ describeEachDatabase("re-validation when the group's partition data change", (t)
     expect(new Set(claims.map((c) => c?.id))).toEqual(new Set([x.id, y.id]));
     expect(await claimJob(t.db, "w3", { kinds: ["revalidate"] })).toBeNull();
     for (const c of claims) expect(await runJob(t.db, c!, { draws: TEST_DRAWS })).toBe("done");
+  });
+
+  it("keeps the flags a save finds outside the engine (an O–H no site class covers) when it predicts again", async () => {
+    const own = await makeLab(t.db, "Wöhler Lab"); // a group of its own: its acetanilide is the group's only one
+    const { id: compoundId } = await makeAcetanilide(t.db, own.groupId);
+    // Dimethyl phosphate: a strong acid (pKa ≈ 1.3, CRC Handbook, from memory) that no site class covers, so the save
+    // flags it (lib/workups/site-flags.ts). M = 126.05 g/mol for C2H7O4P (IUPAC standard atomic weights).
+    const spec = extractionSpec();
+    spec.components.push({
+      key: "dmp", name: "Dimethyl phosphate", role: "byproduct", smiles: "COP(=O)(O)OC", molarMass: 126.05, amount: { value: 0.5, unit: "mmol" },
+      logP: { value: -0.6, provenance: "estimated", source: "test value" }, pKas: [],
+    });
+    const saved = await createWorkup(t.db, own.member, { header: header({ title: "With an unrecognised O–H" }), spec, links: [{ key: ACETANILIDE.key, compoundId }] }, { draws: TEST_DRAWS });
+    const flagCodes = async () => {
+      const latest = await t.db.prediction.findFirstOrThrow({ where: { workupId: saved.id }, orderBy: { createdAt: "desc" } });
+      return (latest.result as unknown as StoredPredictionResult).prediction.flags.map((f) => f.code);
+    };
+    expect(saved.prediction.flags.map((f) => f.code)).toContain(NO_SITE_FLAG_CODE);
+    await completeIntervals(t.db); // the save's interval job predicts it again with its draws
+    expect(await flagCodes()).toContain(NO_SITE_FLAG_CODE);
+    await addMeasurement(t.db, own.member, shakeFlask(compoundId, 0.8));
+    expect(await drainQueue(t.db, { kinds: ["revalidate"], schedule: false, draws: TEST_DRAWS })).toBe(1);
+    expect(await t.db.prediction.count({ where: { workupId: saved.id } })).toBe(2);
+    expect(await flagCodes()).toContain(NO_SITE_FLAG_CODE);
   });
 });

@@ -68,4 +68,18 @@ describe("the demo scenario's judgement", () => {
     }
 
   }, 120_000);
+
+  it("gives every demo workup its Monte Carlo interval: the saves' interval jobs all ran", async () => {
+    const rows = await t.db.workup.findMany({
+      where: { group: { slug: "holloway" } },
+      select: { notebookRef: true, intervalState: true, predictions: { orderBy: [{ workupVersion: "desc" }, { createdAt: "desc" }], take: 1, select: { recoveryLow: true, recoveryHigh: true } } },
+    });
+    expect(rows).toHaveLength(seeded.written.length);
+    for (const w of rows) {
+      expect(w.intervalState, w.notebookRef).toBe("ready");
+      expect(w.predictions[0]?.recoveryLow, w.notebookRef).not.toBeNull();
+      expect(w.predictions[0]!.recoveryLow!, w.notebookRef).toBeLessThanOrEqual(w.predictions[0]!.recoveryHigh!);
+    }
+    expect(await t.db.job.count({ where: { kind: "interval", status: { not: "done" } } })).toBe(0);
+  });
 });

@@ -4,7 +4,9 @@ import fs from "node:fs";
 import path from "node:path";
 import { type Db } from "@/lib/db/client";
 import { type WorkupInputRaw } from "@/lib/chem/schema";
+import { drainQueue } from "@/lib/jobs/worker";
 import { type Actor } from "@/lib/workups/context";
+import { type SavedWorkup } from "@/lib/workups/service";
 import { makeGroup, makeMember } from "@/tests/integration/auth/fixtures";
 
 export type ExampleName = "acid-base-separation" | "amine-back-extraction" | "saponification-ph-swing";
@@ -57,10 +59,30 @@ export async function makeLab(db: Db, name: string): Promise<Lab> {
 
 /** Row counts of everything a workup write touches, to assert that a refused request changed nothing. */
 export async function footprint(db: Db) {
-  const [workups, versions, predictions, outcomes, components, audits, compounds] = await Promise.all([
+  const [workups, versions, predictions, outcomes, components, audits, compounds, jobs] = await Promise.all([
     db.workup.count(), db.workupVersion.count(), db.prediction.count(), db.outcome.count(), db.workupComponent.count(),
-    db.auditEvent.count(), db.compound.count(),
+    db.auditEvent.count(), db.compound.count(), db.job.count(),
   ]);
-  const latest = await db.workup.findMany({ select: { id: true, version: true, updatedAt: true, status: true, flagged: true }, orderBy: { id: "asc" } });
-  return { workups, versions, predictions, outcomes, components, audits, compounds, latest };
+  const latest = await db.workup.findMany({ select: { id: true, version: true, updatedAt: true, status: true, flagged: true, intervalState: true }, orderBy: { id: "asc" } });
+  return { workups, versions, predictions, outcomes, components, audits, compounds, jobs, latest };
+}
+
+/** Runs the saves' queued interval jobs (lib/jobs/interval.ts) to completion, as the app's worker does after a save. */
+export function completeIntervals(db: Db): Promise<number> {
+  return drainQueue(db, { kinds: ["interval"], schedule: false });
+}
+
+/**
+ * A save followed by its interval job: the saved workup as its reads show it afterwards (state, and the stored
+ * prediction's interval), for tests about what comes after the interval.
+ */
+export async function withInterval(db: Db, saving: Promise<SavedWorkup>): Promise<SavedWorkup> {
+  const saved = await saving;
+  await completeIntervals(db);
+  const row = await db.workup.findUniqueOrThrow({ where: { id: saved.id }, select: { status: true, flagged: true, deviationPct: true, intervalState: true } });
+  const stored = await db.prediction.findFirstOrThrow({
+    where: { workupId: saved.id, workupVersion: saved.version }, orderBy: { createdAt: "desc" },
+    select: { productRecovery: true, recoveryLow: true, recoveryHigh: true },
+  });
+  return { ...saved, ...row, prediction: { ...saved.prediction, ...stored } };
 }

@@ -6,7 +6,7 @@ import { type OutcomeAnalysis } from "@/lib/workups/analysis";
 import { reportOutcome } from "@/lib/workups/outcome";
 import { createWorkup, updateWorkup } from "@/lib/workups/service";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
-import { acetanilideSpec, footprint, header, makeLab, type Lab } from "./fixtures";
+import { acetanilideSpec, completeIntervals, footprint, header, makeLab, withInterval, type Lab } from "./fixtures";
 
 const ACETANILIDE_G_PER_MOL = 135.17; // as written in acetanilideSpec
 
@@ -38,7 +38,7 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
   });
 
   async function saved(spec = measuredSpec(), overrides: Record<string, unknown> = {}) {
-    return createWorkup(t.db, lab.member, { header: header({ title: "Acetanilide extraction", ...overrides }), spec });
+    return withInterval(t.db, createWorkup(t.db, lab.member, { header: header({ title: "Acetanilide extraction", ...overrides }), spec }));
   }
 
   it("computes recovery from mass × purity / (M × product in the crude) and calls it as expected inside the interval", async () => {
@@ -78,7 +78,7 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
     const spec = measuredSpec();
     spec.components[0]!.amount = { value: 4.6, unit: "mmol" };
     const fresh = await makeLab(t.db, "Fresh Lab");
-    const w = await createWorkup(t.db, fresh.member, { header: header({ title: "Acetanilide, 4.6 mmol crude" }), spec });
+    const w = await withInterval(t.db, createWorkup(t.db, fresh.member, { header: header({ title: "Acetanilide, 4.6 mmol crude" }), spec }));
     const isolatedMmol = 4.6 * w.prediction.productRecovery! * 0.96;
     expect(isolatedMmol / 5).toBeLessThan(w.prediction.recoveryLow!); // the old comparison: below the engine's interval
     const report = await reportOutcome(t.db, fresh.member, w.id, { isolatedMassMg: isolatedMmol * ACETANILIDE_G_PER_MOL, purityPct: 100, purityMethod: "qnmr" });
@@ -146,9 +146,16 @@ describeEachDatabase("outcomes, deviation and likely causes", (t) => {
     const spec = measuredSpec();
     (spec.operations[0] as { portions: number }).portions = 6;
     const edited = await updateWorkup(t.db, lab.member, w.id, { header: header({ title: "Acetanilide extraction" }), spec, baseVersion: 1 });
-    expect(edited.status).toBe("as_expected");
+    // Until the new version's interval is computed, the outcome is not judged against it.
+    expect(edited).toMatchObject({ status: "inconclusive", deviationPct: null, intervalState: "pending" });
+    const pending = await t.db.outcome.findUniqueOrThrow({ where: { workupId: w.id } });
+    expect((pending.analysis as unknown as OutcomeAnalysis)).toMatchObject({ workupVersion: 2, intervalPending: true, deviation: { status: "inconclusive" }, causes: [] });
+    await completeIntervals(t.db);
+    const row = await t.db.workup.findUniqueOrThrow({ where: { id: w.id }, select: { status: true, intervalState: true } });
+    expect(row).toEqual({ status: "as_expected", intervalState: "ready" });
     const outcome = await t.db.outcome.findUniqueOrThrow({ where: { workupId: w.id } });
     expect((outcome.analysis as unknown as OutcomeAnalysis)).toMatchObject({ workupVersion: 2, deviation: { status: "as_expected" } });
+    expect((outcome.analysis as unknown as OutcomeAnalysis).intervalPending).toBeUndefined();
   });
 
   it("refuses bad outcomes and another group's workup, writing nothing", async () => {

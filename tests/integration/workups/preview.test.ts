@@ -10,7 +10,7 @@ import { previewGroupValues, previewPrediction } from "@/lib/workups/preview";
 import { createWorkup, type SavedWorkup } from "@/lib/workups/service";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
 import { makeAcetanilide } from "@/tests/integration/jobs/fixtures";
-import { acetanilideSpec, header, makeLab, type Lab } from "./fixtures";
+import { acetanilideSpec, header, makeLab, withInterval, type Lab } from "./fixtures";
 
 describeEachDatabase("prediction preview with the group's values", (t) => {
   let lab: Lab;
@@ -27,7 +27,7 @@ describeEachDatabase("prediction preview with the group's values", (t) => {
     await addMeasurement(t.db, lab.member, {
       compoundId, solventKey: "etoac", method: "layer_assay", aqueousPh: 7, basis: "amount", organic: 50, aqueous: 1, organicVolumeMl: 10, aqueousVolumeMl: 10,
     });
-    saved = await createWorkup(t.db, lab.member, { header: header({ title: "Acetanilide preview" }), spec, links: links() });
+    saved = await withInterval(t.db, createWorkup(t.db, lab.member, { header: header({ title: "Acetanilide preview" }), spec, links: links() }));
   });
 
   it("gives the saved prediction, from the editor's links or from the saved workup's own", async () => {

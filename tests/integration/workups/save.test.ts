@@ -6,7 +6,7 @@ import { computePrediction, seedFromId, SAVE_DRAWS, type StoredPredictionResult 
 import { getWorkupDetail } from "@/lib/workups/queries";
 import { createWorkup, deleteWorkup, updateWorkup } from "@/lib/workups/service";
 import { describeEachDatabase } from "@/tests/integration/helpers/databases";
-import { exampleSpec, footprint, header, makeLab, type Lab } from "./fixtures";
+import { exampleSpec, footprint, header, makeLab, withInterval, type Lab } from "./fixtures";
 
 async function rejection(promise: Promise<unknown>): Promise<unknown> {
   try {
@@ -26,9 +26,9 @@ describeEachDatabase("saving workups", (t) => {
     other = await makeLab(t.db, "Birch Lab");
   });
 
-  it("creates version 1 with its snapshot, components, prediction (engine version, interval) and an audit event", async () => {
+  it("creates version 1 with its snapshot, components, prediction (engine version, then its interval) and an audit event", async () => {
     const spec = exampleSpec();
-    const saved = await createWorkup(t.db, lab.member, { header: header({ chemistId: lab.member.userId }), spec });
+    const saved = await withInterval(t.db, createWorkup(t.db, lab.member, { header: header({ chemistId: lab.member.userId }), spec }));
     expect(saved.version).toBe(1);
     const row = await t.db.workup.findFirstOrThrow({ where: { id: saved.id }, include: { versions: true, predictions: true, components: true } });
     expect(row).toMatchObject({ groupId: lab.groupId, title: "Benzanilide wash sequence", notebookRef: "AB-12/041", chemistId: lab.member.userId, version: 1 });
@@ -38,6 +38,8 @@ describeEachDatabase("saving workups", (t) => {
     expect(row.versions).toHaveLength(1);
     expect(row.versions[0]).toMatchObject({ version: 1, editedById: lab.member.userId });
     expect(row.spec).toEqual(spec); // stored as entered, units included
+    // One prediction for the version: the save's point prediction, completed in place by its interval job.
+    expect(row.predictions).toHaveLength(1);
     const [prediction] = row.predictions;
     expect(prediction).toMatchObject({ workupVersion: 1, engineVersion: ENGINE_VERSION });
     const low = prediction!.recoveryLow!;
@@ -53,8 +55,8 @@ describeEachDatabase("saving workups", (t) => {
   });
 
   it("stores an interval that re-running the engine with the id's seed reproduces", async () => {
-    const saved = await createWorkup(t.db, lab.member, { header: header(), spec: exampleSpec("amine-back-extraction") });
-    const stored = await t.db.prediction.findFirstOrThrow({ where: { workupId: saved.id } });
+    const saved = await withInterval(t.db, createWorkup(t.db, lab.member, { header: header(), spec: exampleSpec("amine-back-extraction") }));
+    const stored = await t.db.prediction.findFirstOrThrow({ where: { workupId: saved.id }, orderBy: { createdAt: "desc" } });
     const again = computePrediction(exampleSpec("amine-back-extraction"), { library: {}, seed: seedFromId(saved.id) });
     expect(again.recoveryLow).toBeCloseTo(stored.recoveryLow!, 12);
     expect(again.recoveryHigh).toBeCloseTo(stored.recoveryHigh!, 12);
