@@ -14,14 +14,21 @@ const BASIS: Record<string, string> = {
   spec: "of the product estimated in the crude (the workup's product amount × the group's reaction-yield figure)",
 };
 
-export function OutcomeResult({ analysis }: { analysis: OutcomeAnalysis }) {
+/** `intervalPending`: the workup's current version is still waiting for its interval (Workup.intervalState). */
+export function OutcomeResult({ analysis, intervalPending = false }: { analysis: OutcomeAnalysis; intervalPending?: boolean }) {
   const { reported, predicted, deviation, causes } = analysis;
+  const waiting = analysis.intervalPending === true;
   return (
     <div className="space-y-3 text-sm" data-testid="outcome-result">
       <div className="flex flex-wrap items-center gap-2">
-        <StatusBadge status={deviation.status} />
+        <StatusBadge status={deviation.status} intervalPending={waiting && intervalPending} />
         {analysis.flagged ? <span className="text-xs font-medium text-amber-800">Flagged for review</span> : null}
       </div>
+      {waiting ? (
+        <p className="text-xs text-stone-600" data-testid="judgement-pending">
+          Not judged yet: the outcome is compared with the prediction once the version&apos;s Monte Carlo interval has been computed.
+        </p>
+      ) : null}
       {reported ? (
         <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1">
           <dt className="text-stone-500">Reported recovery</dt>

@@ -10,7 +10,12 @@ const LABELS: Record<Status, { label: string; tone: "good" | "low" | "high" | "n
   unknown: { label: "No outcome yet", tone: "neutral" },
 };
 
-export function StatusBadge({ status }: { status: Status }) {
+/**
+ * `intervalPending`: the version's interval is still being computed, so a reported outcome (stored "inconclusive")
+ * has not been judged yet; the badge says so instead of calling it low.
+ */
+export function StatusBadge({ status, intervalPending = false }: { status: Status; intervalPending?: boolean }) {
+  if (intervalPending && status === "inconclusive") return <Badge tone="neutral">Inconclusive — interval being computed</Badge>;
   const { label, tone } = LABELS[status];
   return <Badge tone={tone}>{label}</Badge>;
 }

@@ -25,6 +25,8 @@ import { PartitionProvenance } from "@/lib/partition/components/partition-proven
 import { ProcedureText } from "@/components/workup/detail/procedure-text";
 import { Attachments } from "@/components/workup/detail/attachments";
 import { NotebookLink } from "@/components/workup/detail/notebook-link";
+import { RefreshWhileIntervalPending } from "@/components/workup/detail/interval-pending";
+import { INTERVAL_WORDS } from "@/lib/workups/interval-state";
 import { listAttachments } from "@/lib/attachments/service";
 import { renderProcedure, stepsOf } from "@/lib/procedure/render";
 
@@ -58,6 +60,10 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
     ...Object.entries(library.solvents).map(([key, s]) => [`solvent:${key}`, s.name] as const),
   ]);
   const links = new Map(workup.components.flatMap((c) => (c.compound ? [[c.key, c.compound] as const] : [])));
+  const intervalPending = workup.intervalState === "pending";
+  const intervalNote = workup.intervalState !== "ready"
+    ? INTERVAL_WORDS[workup.intervalState]
+    : stored?.result.uncertainty ? `${stored.result.uncertainty.draws} draws` : "no interval stored";
   const header: [string, ReactNode][] = [
     ["Date", formatDate(workup.header.performedOn)],
     ["Chemist", workup.chemistName ?? "—"],
@@ -72,7 +78,7 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
     <>
       <PageHeader
         title={workup.header.title}
-        description={<span className="flex flex-wrap items-center gap-2"><StatusBadge status={workup.status} />{workup.flagged ? <Badge tone="low">Flagged for review</Badge> : null}</span>}
+        description={<span className="flex flex-wrap items-center gap-2"><StatusBadge status={workup.status} intervalPending={intervalPending} />{workup.flagged ? <Badge tone="low">Flagged for review</Badge> : null}</span>}
         actions={
           <>
             <Link href="/workups" className={buttonClass("ghost")}>All workups</Link>
@@ -91,7 +97,7 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
             </dl>
           </Card>
           <Card title="Outcome">
-            {analysis ? <OutcomeResult analysis={analysis} /> : <p className="text-sm text-stone-600">{workup.outcome ? "Reported, but not compared with a prediction." : "No outcome reported yet."}</p>}
+            {analysis ? <OutcomeResult analysis={analysis} intervalPending={intervalPending} /> : <p className="text-sm text-stone-600">{workup.outcome ? "Reported, but not compared with a prediction." : "No outcome reported yet."}</p>}
             {workup.outcome ? (
               <p className="mt-2 text-xs text-stone-500">
                 Isolated {formatNumber(workup.outcome.isolatedMassMg, 1)} mg{workup.outcome.purityPct !== null ? `, ${formatNumber(workup.outcome.purityPct, 1)} % pure` : ""} ({purityMethodWords(workup.outcome.purityMethod)})
@@ -139,9 +145,18 @@ export default async function WorkupPage({ params }: { params: Promise<{ id: str
                   Engine {stored.engineVersion}, computed for version {stored.workupVersion} on {formatDateTime(stored.createdAt)}
                   {stored.result.uncertainty ? `; interval from ${stored.result.uncertainty.draws} Monte Carlo draws (seed ${stored.result.uncertainty.seed})` : ""}.
                 </p>
+                {workup.intervalState !== "ready" ? (
+                  <p className="mb-3 rounded-md border border-stone-200 bg-stone-50 px-3 py-2 text-sm text-stone-700" role="status" data-testid="interval-state">
+                    {intervalPending
+                      ? "The Monte Carlo interval of this version is being computed; this page updates when it is ready."
+                      : `The Monte Carlo interval of this version could not be computed${writer ? "; saving the workup again tries once more" : ""}.`}
+                    {intervalPending ? <RefreshWhileIntervalPending /> : null}
+                  </p>
+                ) : null}
                 <PredictionOverview
-                  prediction={prediction} intervals={stored.result.uncertainty?.components ?? null} combinedAt={combineSteps(operations as { type?: unknown; streams?: unknown }[])}
-                  intervalNote={stored.result.uncertainty ? `${stored.result.uncertainty.draws} draws` : "no interval stored"} reported={analysis?.reported?.recovery ?? null}
+                  prediction={prediction} intervals={stored.result.uncertainty?.components ?? null}
+                  combinedAt={combineSteps(operations as { type?: unknown; streams?: unknown }[])}
+                  intervalNote={intervalNote} reported={analysis?.reported?.recovery ?? null}
                 />
                 <div className="mt-4 border-t border-stone-200 pt-3">
                   <h3 className="mb-2 text-sm font-semibold text-stone-800">Partition coefficients used</h3>
