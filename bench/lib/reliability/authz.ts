@@ -130,7 +130,7 @@ function digestOf(parts: Answer[]): string {
 }
 
 /** Group A's data as its lead sees them, for "a refused write changed nothing". */
-async function groupADigest(c: MatrixContext): Promise<string> {
+export async function groupADigest(c: MatrixContext): Promise<string> {
   const t = c.people.lead.token;
   const get = (path: string) => ask(c.base, path, { headers: bearer(t) });
   return digestOf(await Promise.all([
@@ -233,7 +233,7 @@ async function prepare(c: MatrixContext, e: Endpoint): Promise<{ values: Record<
   }
 }
 
-function leakIn(body: string, c: MatrixContext, requestedPath: string): string | null {
+export function leakIn(body: string, c: MatrixContext, requestedPath: string): string | null {
   const secrets = [c.people.marker, c.recordsA.workupId, c.recordsA.compoundId, c.recordsA.attachmentId, c.people.lead.userId, c.people.member.userId, c.people.viewer.userId];
   for (const s of secrets) {
     if (requestedPath.includes(s)) continue; // an id the request itself named may be echoed (the not-found compare covers it)

@@ -34,6 +34,27 @@ export interface FuzzResult {
   slowest: string;
   /** Status of each case, in the order given (-1 reset, -2 timeout). */
   statuses: number[];
+  /** Record ids named by acknowledged writes (in their path or their answer): what a 2xx may have written. */
+  acknowledgedIds: string[];
+}
+
+const RECORD_ID = /^c[0-9a-z]{20,30}$/;
+
+/** Every record id in a path and an answer body (JSON strings that look like ids). */
+function idsIn(path: string, body: string): string[] {
+  const found = path.split(/[/?&=]/).filter((s) => RECORD_ID.test(s));
+  const visit = (v: unknown): void => {
+    if (typeof v === "string") {
+      if (RECORD_ID.test(v)) found.push(v);
+    } else if (Array.isArray(v)) v.forEach(visit);
+    else if (v && typeof v === "object") Object.values(v).forEach(visit);
+  };
+  try {
+    visit(JSON.parse(body));
+  } catch {
+    // not JSON (e.g. 204): the path names the record
+  }
+  return found;
 }
 
 /** Patterns of a stack trace, a file path, a driver or parser message: none may reach a client. */
@@ -310,7 +331,7 @@ export async function buildCases(c: FuzzContext, wanted: number, seed = 12): Pro
 }
 
 export async function runFuzz(c: FuzzContext, cases: FuzzCase[], width = 4): Promise<FuzzResult> {
-  const result: FuzzResult = { requests: 0, byTarget: {}, byStatus: {}, serverErrors: 0, brokenConnections: 0, leaks: 0, acceptedWrites: 0, problems: [], accepted: [], slowestMs: 0, slowest: "", statuses: [] };
+  const result: FuzzResult = { requests: 0, byTarget: {}, byStatus: {}, serverErrors: 0, brokenConnections: 0, leaks: 0, acceptedWrites: 0, problems: [], accepted: [], slowestMs: 0, slowest: "", statuses: [], acknowledgedIds: [] };
   const token = c.people.member.token;
   await pool(cases, width, async (x, i) => {
     const headers: Record<string, string> = bearer(token);
@@ -341,6 +362,7 @@ export async function runFuzz(c: FuzzContext, cases: FuzzCase[], width = 4): Pro
     if (x.write && a.status >= 200 && a.status < 300) {
       result.acceptedWrites++;
       result.accepted.push({ target: x.target, mutation: x.mutation, status: a.status });
+      result.acknowledgedIds.push(...idsIn(x.path, a.body));
     }
   });
   return result;

@@ -70,6 +70,7 @@ export async function createInstance(backend: Backend, root: string, adminUrl: s
     AUTH_SECRET,
     LAYERWISE_SEED_ON_EMPTY: "false",
     LAYERWISE_SHUTDOWN_GRACE_SECONDS: "5",
+    LAYERWISE_LOOP_FILE: path.join(os.tmpdir(), `lw-reliability-loop-${randomBytes(4).toString("hex")}.jsonl`),
     ...(backend === "pglite" ? { LAYERWISE_DATA_DIR: url.slice("pglite:".length) } : { DATABASE_URL: url }),
   };
   return { backend, url, env, base: `http://127.0.0.1:${port}`, root, child: null, log: [] };
@@ -83,7 +84,9 @@ export function openDatabase(instance: Instance): Promise<Database> {
 export async function startServer(instance: Instance, timeoutMs = 120_000): Promise<void> {
   const childEnv: NodeJS.ProcessEnv = { ...process.env, ...instance.env };
   if (instance.backend === "pglite") delete childEnv["DATABASE_URL"];
-  const child = spawn(process.execPath, ["scripts/serve.mjs"], { cwd: instance.root, env: childEnv, stdio: ["ignore", "pipe", "pipe"] });
+  // The event-loop probe (loop-probe.mjs) is loaded into the server process only when the run asks for it.
+  const probe = instance.env["LAYERWISE_LOOP_FILE"] ? ["--import", path.join(instance.root, "bench", "lib", "reliability", "loop-probe.mjs")] : [];
+  const child = spawn(process.execPath, [...probe, "scripts/serve.mjs"], { cwd: instance.root, env: childEnv, stdio: ["ignore", "pipe", "pipe"] });
   instance.child = child;
   const keep = (chunk: Buffer) => {
     for (const line of chunk.toString("utf8").split("\n")) if (line.trim() !== "") instance.log.push(line);

@@ -1,0 +1,37 @@
+// Loaded into the server under test with `node --import ./bench/lib/reliability/loop-probe.mjs` (the reliability
+// bench does this); never part of the app. It measures how long the server's event loop is held. A 20 ms timer notes
+// every turn that made it late by more than LAYERWISE_LOOP_MIN_MS (default 50 ms), with two figures: the lateness
+// (wall time, which on a machine short of CPU also counts the time the OS did not run the thread) and the time the
+// loop was busy running code since the previous tick (event-loop utilisation's active time: what the app itself held
+// the loop for). Once a second the perf_hooks delay histogram's maximum is written and reset. One JSON line each to
+// LAYERWISE_LOOP_FILE:
+//   {"at": epoch ms, "kind": "turn", "ms": lateness, "activeMs": busy}   {"at": epoch ms, "kind": "second", "max": ms, "p99": ms}
+import { appendFileSync } from "node:fs";
+import { monitorEventLoopDelay, performance } from "node:perf_hooks";
+
+const file = process.env.LAYERWISE_LOOP_FILE;
+const minMs = Number(process.env.LAYERWISE_LOOP_MIN_MS ?? 50);
+
+if (file) {
+  const write = (line) => appendFileSync(file, `${JSON.stringify(line)}\n`);
+  const period = 20;
+  let expected = performance.now() + period;
+  let elu = performance.eventLoopUtilization();
+  const tick = () => {
+    const now = performance.now();
+    const late = now - expected;
+    const used = performance.eventLoopUtilization(elu);
+    elu = performance.eventLoopUtilization();
+    if (late > minMs) write({ at: Date.now(), kind: "turn", ms: Math.round(late), activeMs: Math.round(used.active) });
+    expected = now + period;
+    setTimeout(tick, period).unref();
+  };
+  setTimeout(tick, period).unref();
+
+  const histogram = monitorEventLoopDelay({ resolution: 10 });
+  histogram.enable();
+  setInterval(() => {
+    write({ at: Date.now(), kind: "second", max: Math.round(histogram.max / 1e6), p99: Math.round(histogram.percentile(99) / 1e6) });
+    histogram.reset();
+  }, 1000).unref();
+}
