@@ -8,7 +8,7 @@ import { reagentPh } from "./aqueous";
 import { concentrate } from "./concentrate";
 import { dry } from "./drying";
 import { dissolveSolid } from "./salt-solutions";
-import { WATER } from "./library";
+import { CARBONATE, WATER } from "./library";
 import { volumeForTargetPh } from "./target-ph";
 import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
@@ -36,8 +36,13 @@ function ctx(sim: Simulator, op: Operation, step: number, portion: number, keep:
   };
 }
 
-/** Equilibrates the current stream in place (no separation) so the step shows its layers and pH. */
+/**
+ * Equilibrates the current stream in place (no separation) so the step shows its layers and pH. Its two layers
+ * are merged again, so only CO₂ leaving the water changes what carries on: a run that traces nothing (recoveries
+ * only: Monte-Carlo draws, bulk re-prediction) skips the solve when the stream holds no carbonate.
+ */
 function settle(sim: Simulator, op: Operation, step: number, reagentKey: string | null, before: AcidBaseContent | null): void {
+  if (!sim.tracing && !sim.onContact && (sim.current.sys[CARBONATE] as number) === 0) return;
   const out = sim.contact(sim.current, ctx(sim, op, step, 1, null, reagentKey, before));
   const merged = out.org;
   merged.addFrom(out.aq, 1);
