@@ -10,7 +10,7 @@
  * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
-import { daviesTerm, dissociationFactor } from "./activity";
+import { daviesTerm } from "./activity";
 import { co2SaturationM, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
@@ -61,6 +61,8 @@ export class Equilibrator implements SlopedChargeBalance {
   lastSolved = NaN;
 
   private systemTotals = new Float64Array(N_SYSTEMS);
+  /** The prepared mixture holds some acid–base system (else systemTotals is stale and counts as zero). */
+  private systemsPresent = false;
   /** Indices of the acid–base systems present in this contact, and how many. */
   private active = new Int32Array(N_SYSTEMS);
   private nActive = 0;
@@ -108,6 +110,13 @@ export class Equilibrator implements SlopedChargeBalance {
   private activityTerm = 0;
   private invGamma1 = 1;
   private readonly sysKa: Float64Array[] = SYSTEM_KA.map((k) => Float64Array.from(k));
+  /** The last log K of each component and its power of ten, and the last ion-pair δ values and theirs. */
+  private lastLogK: Float64Array;
+  private lastK: Float64Array;
+  private lastDAnion = Number.NaN;
+  private lastDCation = Number.NaN;
+  private exAnion = Number.NaN;
+  private exCation = Number.NaN;
   /** Components with an acidic or basic site, and how many. */
   private charged: Int32Array;
   private nCharged = 0;
@@ -125,6 +134,8 @@ export class Equilibrator implements SlopedChargeBalance {
     this.charged = new Int32Array(n);
     this.ownIonFactor = new Float64Array(n);
     this.amountConc = new Float64Array(n);
+    this.lastLogK = new Float64Array(n).fill(Number.NaN);
+    this.lastK = new Float64Array(n);
     this.basePairAnion = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).anion);
     this.basePairCation = Float64Array.from(lib.solvents, (s) => ionPairOffset(s).cation);
     this.pairAnion = this.basePairAnion.slice();
@@ -190,7 +201,7 @@ export class Equilibrator implements SlopedChargeBalance {
     }
     // CO₂ leaves to the headspace until H₂CO₃* is at saturation: the balance is solved with the carbonate that
     // stays dissolved at each trial pH (open system), so the gas and the pH come out of one solve.
-    const carb = this.systemTotals[CARBONATE] as number;
+    const carb = this.systemsPresent ? (this.systemTotals[CARBONATE] as number) : 0;
     this.carbonateCap = carb > 0 ? this.co2Saturation : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.setActivity(remembered && Number.isFinite(memo.ionicStrength) ? memo.ionicStrength : this.ionicStrengthEstimate(mix));
@@ -208,7 +219,7 @@ export class Equilibrator implements SlopedChargeBalance {
     }
     this.speciate(this.rootH);
     this.lastSolved = this.pH;
-    copyInto(aq.sys, this.systemTotals);
+    if (this.systemsPresent) aq.addSystems(this.systemTotals, 1);
     aq.strongCharge = mix.strongCharge;
     aq.strongZ2 = mix.strongZ2;
     aq.osmoles = mix.osmoles;
@@ -325,7 +336,10 @@ export class Equilibrator implements SlopedChargeBalance {
       const ka = SYSTEM_KA[sIdx] as Float64Array;
       const out = this.sysKa[sIdx] as Float64Array;
       // K′/K = (1/γ±)^(1 − 2z) for a species of charge z = z₀ − j (activity.ts), by repeated products.
-      let factor = dissociationFactor(SYSTEM_Z0[sIdx] as number, term);
+      const power = 1 - 2 * (SYSTEM_Z0[sIdx] as number);
+      const base = power >= 0 ? g : 1 / g;
+      let factor = 1;
+      for (let j = Math.abs(power); j > 0; j--) factor *= base;
       for (let j = 0; j < ka.length; j++) { out[j] = (ka[j] as number) * factor; factor *= g2; }
     }
   }
@@ -380,8 +394,9 @@ export class Equilibrator implements SlopedChargeBalance {
   /** Phase split, partition constants and the concentrations the charge balance reads; false without water. */
   private prepare(mix: Stream): boolean {
     const { phases } = this;
+    const systems = mix.hasSystems;
     let sysZ2 = 0;
-    for (let s = 0; s < N_SYSTEMS; s++) sysZ2 += (mix.sys[s] as number) * (SYSTEM_Z2_WEIGHT[s] as number);
+    if (systems) for (let s = 0; s < N_SYSTEMS; s++) sysZ2 += (mix.sys[s] as number) * (SYSTEM_Z2_WEIGHT[s] as number);
     phases.split(mix, sysZ2);
     this.va = phases.hasAqueous ? phases.aqueousVolume : 0;
     this.vo = phases.hasOrganic && phases.hasAqueous ? phases.organicVolume : 0;
@@ -391,13 +406,16 @@ export class Equilibrator implements SlopedChargeBalance {
     this.cationM = Math.max(0, 0.5 * (mix.strongZ2 + mix.strongCharge)) / this.va;
     this.anionM = Math.max(0, 0.5 * (mix.strongZ2 - mix.strongCharge)) / this.va;
     this.setPartition();
-    copyInto(this.systemTotals, mix.sys);
+    this.systemsPresent = systems;
     this.nActive = 0;
-    for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) {
-      const total = mix.sys[sIdx] as number;
-      if (total > 0) {
-        this.active[this.nActive++] = sIdx;
-        this.systemConc[sIdx] = total / this.va;
+    if (systems) {
+      copyInto(this.systemTotals, mix.sys);
+      for (let sIdx = 0; sIdx < N_SYSTEMS; sIdx++) {
+        const total = mix.sys[sIdx] as number;
+        if (total > 0) {
+          this.active[this.nActive++] = sIdx;
+          this.systemConc[sIdx] = total / this.va;
+        }
       }
     }
     this.strongConc = mix.strongCharge / this.va;
@@ -432,8 +450,14 @@ export class Equilibrator implements SlopedChargeBalance {
     }
     // K_ex at the reference counter-ion, per mol/L; `unpaired` marks a layer with no immiscible solvent.
     const unpaired = !(imm > 0);
-    const exAnion = unpaired ? 0 : Math.exp(dAnion * Math.LN10);
-    const exCation = unpaired ? 0 : Math.exp(dCation * Math.LN10);
+    if (dAnion !== this.lastDAnion || dCation !== this.lastDCation) {
+      this.lastDAnion = dAnion;
+      this.lastDCation = dCation;
+      this.exAnion = Math.exp(dAnion * Math.LN10);
+      this.exCation = Math.exp(dCation * Math.LN10);
+    }
+    const exAnion = unpaired ? 0 : this.exAnion;
+    const exCation = unpaired ? 0 : this.exCation;
     const perOwnIon = 1 / this.va;
     for (let c = 0; c < comps.count; c++) {
       let logK = 0;
@@ -455,7 +479,12 @@ export class Equilibrator implements SlopedChargeBalance {
         }
       }
       const own = comps.ionOffset[c] as number;
-      const kUnsalted = Math.exp(logK * Math.LN10);
+      // Contacts with the same organic solvent share log K: 10^log K is kept from the last contact.
+      if (logK !== this.lastLogK[c]) {
+        this.lastLogK[c] = logK;
+        this.lastK[c] = Math.exp(logK * Math.LN10);
+      }
+      const kUnsalted = this.lastK[c] as number;
       const kNeutral = salting === 0 ? kUnsalted : kUnsalted * Math.exp(salting * Math.LN10);
       this.kNeutral[c] = kNeutral;
       let ionFactor: number;

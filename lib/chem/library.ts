@@ -59,6 +59,8 @@ export interface CompiledReagent {
   strongZ2: number;
   osmoles: number;
   systems: Float64Array;
+  /** Some system total is not zero. */
+  hasSystems: boolean;
   /** pH of the fresh solution, filled in by reagentPh (aqueous.ts) on first use; NaN until then. */
   freshPh: number;
 }
@@ -98,7 +100,8 @@ function compileReagent(r: ReagentProps): CompiledReagent {
   const solid = r.kind === "solid";
   return {
     props: r, solid, density: r.density?.value ?? 1, molarMass: solid ? r.basis.value : 0,
-    concentration: solid ? 0 : r.basis.value, strongCharge, strongZ2, osmoles, systems, freshPh: Number.NaN,
+    concentration: solid ? 0 : r.basis.value, strongCharge, strongZ2, osmoles, systems, hasSystems: systems.some((x) => x !== 0),
+    freshPh: Number.NaN,
   };
 }
 

@@ -20,6 +20,8 @@ export class Stream {
   lastPh = NaN;
   /** Solid (filter cake or precipitate) rather than liquid. */
   solid = false;
+  /** False while every acid–base system total is zero (organic layers, most streams): their loops are skipped. */
+  hasSystems = false;
 
   constructor(nSolvents: number, nComponents: number) {
     this.solv = new Float64Array(nSolvents);
@@ -42,7 +44,7 @@ export class Stream {
   /** Adds `fraction` of another stream's contents. */
   addFrom(o: Stream, fraction: number): void {
     for (let i = 0; i < this.solv.length; i++) this.solv[i] = (this.solv[i] as number) + (o.solv[i] as number) * fraction;
-    for (let i = 0; i < this.sys.length; i++) this.sys[i] = (this.sys[i] as number) + (o.sys[i] as number) * fraction;
+    if (o.hasSystems) this.addSystems(o.sys, fraction);
     for (let i = 0; i < this.comp.length; i++) this.comp[i] = (this.comp[i] as number) + (o.comp[i] as number) * fraction;
     this.strongCharge += o.strongCharge * fraction;
     this.strongZ2 += o.strongZ2 * fraction;
@@ -52,7 +54,7 @@ export class Stream {
 
   /** Adds a volume (mL) of a reagent solution, or an amount (mmol) of a solid reagent. */
   addReagent(r: CompiledReagent, quantity: number, waterDensity: number): void {
-    for (let i = 0; i < this.sys.length; i++) this.sys[i] = (this.sys[i] as number) + (r.systems[i] as number) * quantity;
+    if (r.hasSystems) this.addSystems(r.systems, quantity);
     this.strongCharge += r.strongCharge * quantity;
     this.strongZ2 += r.strongZ2 * quantity;
     this.osmoles += r.osmoles * quantity;
@@ -70,10 +72,19 @@ export class Stream {
     return v;
   }
 
+  /** Adds `factor` times the system totals `sys`. */
+  addSystems(sys: Float64Array, factor: number): void {
+    for (let i = 0; i < this.sys.length; i++) this.sys[i] = (this.sys[i] as number) + (sys[i] as number) * factor;
+    this.hasSystems = true;
+  }
+
   clear(): void {
     // Element loops: fill() costs more than the few elements these arrays hold.
     for (let i = 0; i < this.solv.length; i++) this.solv[i] = 0;
-    for (let i = 0; i < this.sys.length; i++) this.sys[i] = 0;
+    if (this.hasSystems) {
+      for (let i = 0; i < this.sys.length; i++) this.sys[i] = 0;
+      this.hasSystems = false;
+    }
     for (let i = 0; i < this.comp.length; i++) this.comp[i] = 0;
     this.strongCharge = this.strongZ2 = this.osmoles = this.extraMassG = 0;
     this.lastPh = NaN;
@@ -82,7 +93,7 @@ export class Stream {
 
   /** Moves the aqueous solutes (not solvents or components) of `o` into this stream. */
   takeAqueousSolutes(o: Stream): void {
-    for (let i = 0; i < this.sys.length; i++) this.sys[i] = (this.sys[i] as number) + (o.sys[i] as number);
+    if (o.hasSystems) this.addSystems(o.sys, 1);
     this.strongCharge += o.strongCharge;
     this.strongZ2 += o.strongZ2;
     this.osmoles += o.osmoles;
