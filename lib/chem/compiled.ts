@@ -94,6 +94,7 @@ export class CompiledWorkup {
   private simulatorFor(lib: CompiledLibrary, n: number): Simulator {
     const sim = new Simulator(lib, n);
     sim.phMemory = this.compile.rememberPh ? [] : null;
+    sim.lean = true;
     return sim;
   }
 }

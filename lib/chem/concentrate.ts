@@ -6,7 +6,7 @@
 import { DEFAULT_SOLVENT_MOLAR_MASS, SOLVENT_MOLAR_MASS } from "./data/vapour-pressure";
 import { DEFAULT_PRESSURE_MBAR, RULE_OF_20_K, ATM_MBAR, evaporate, solventVapourPressure, vapourPressureFromBp, type EvaporationConditions } from "./evaporation";
 import { WATER } from "./library";
-import { type StepDetails } from "./operations";
+import { NO_DETAILS, type StepDetails } from "./operations";
 import { type OperationOf } from "./schema";
 import { type Simulator } from "./simulator";
 
@@ -35,11 +35,12 @@ export function concentrate(sim: Simulator, op: OperationOf<"concentrate">, step
   const { lib } = sim;
   const waterMl = cur.solv[WATER] as number;
   const volumeMl = cur.totalVolume();
-  const pressureMbar = concentrationPressure(sim, op);
   const gone = sim.newStream();
   const comps = sim.input.components;
   let volatile = false;
   for (const c of comps) if (c.bpC !== undefined) volatile = true;
+  // The pressure matters to volatile components; a lean run (simulator.ts) needs it for nothing else.
+  const pressureMbar = volatile || !sim.lean ? concentrationPressure(sim, op) : Number.NaN;
   if (volatile) {
     const ns = lib.solventKeys.length;
     const n = ns + comps.length;
@@ -69,5 +70,6 @@ export function concentrate(sim: Simulator, op: OperationOf<"concentrate">, step
   }
   sim.leave(step, gone, "evaporated", "evaporated solvent");
   sim.residue = true;
+  if (sim.lean) return NO_DETAILS;
   return { method: op.method, bathC: op.bathC, pressureMbar, waterMl, volumeMl };
 }

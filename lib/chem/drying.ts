@@ -7,7 +7,7 @@
  */
 import { DRYING_AGENT_EXCESS } from "./data/drying-agents";
 import { WATER } from "./library";
-import { type StepDetails } from "./operations";
+import { NO_DETAILS, type StepDetails } from "./operations";
 import { type OperationOf } from "./schema";
 import { type Simulator } from "./simulator";
 import { addAt } from "./stream";
@@ -64,6 +64,7 @@ export function dry(sim: Simulator, op: OperationOf<"dry">, step: number): StepD
   const water = sim.newStream();
   water.solv[WATER] = absorbedG / rhoW;
   held.addFrom(water, 1);
+  if (sim.lean) return NO_DETAILS;
   sim.leave(step, held, "drying_agent", `${agent.name} (spent)`);
   return { waterG, agentNeededG: neededG, agentRecommendedG: neededG * DRYING_AGENT_EXCESS, agentUsedG: massG,
     waterLeftG: waterG - absorbedG, holdUpMl: holdUp, rinseMl, rinsePortions: portions, defaultRinse: !op.rinse, fractionHeldUp: retained };

@@ -17,6 +17,8 @@ import { addAt } from "./stream";
 export { RETAINED_SOLVENT_BP_C } from "./concentrate";
 
 export type StepDetails = Record<string, number | string | boolean>;
+/** What a step of a lean run (simulator.ts) returns instead of its details. */
+export const NO_DETAILS: StepDetails = Object.freeze({});
 type Handler<T extends Operation["type"]> = (sim: Simulator, op: OperationOf<T>, step: number) => StepDetails;
 
 /** The perturbable numbers of step `step` (1-based) come from the simulator's parameters, not from `op`. */
@@ -56,7 +58,7 @@ const charge: Handler<"charge"> = (sim, op, step) => {
   addAt(sim.current.solv, sim.solventIndex(op.solvent), volumeMl);
   sim.residue = false;
   if (op.solvent === "water") settle(sim, op, step, null, before);
-  return { volumeMl };
+  return sim.lean ? NO_DETAILS : { volumeMl };
 };
 
 /** Reagent volume of step `step`: its volume, else its amount at the reagent's concentration, else 0. */
@@ -76,6 +78,7 @@ const quench: Handler<"quench"> = (sim, op, step) => {
   sim.current.addFrom(fresh, 1);
   sim.residue = false;
   settle(sim, op, step, op.reagent, before);
+  if (sim.lean) return NO_DETAILS;
   const gas = op.reactive?.gasPerMol !== undefined ? op.reactive.amountMmol * op.reactive.gasPerMol : 0;
   return { reagentVolumeMl: v, gasMmol: gas };
 };
@@ -85,6 +88,8 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
   const volumeMl = volumeOf(sim, step);
   const other = sim.newStream();
+  // Washes nobody reads (a lean run keeping the organic layer, nothing saved) are not combined.
+  const combine = !(sim.lean && op.keep === "organic" && op.saveAs === undefined);
   let organic = sim.current;
   for (let p = 1; p <= op.portions; p++) {
     const mix = sim.freshReagent(r, volumeMl);
@@ -92,6 +97,7 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
     mix.addFrom(organic, 1);
     const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before));
     organic = out.org;
+    if (!combine) continue;
     other.addFrom(out.aq, 1);
     other.lastPh = out.aq.lastPh;
   }
@@ -102,7 +108,7 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
     sim.current = other;
     sim.divert(step, organic, op.saveAs, "washed organic layer");
   }
-  return { portions: op.portions, reagentPh: reagentPh(r) };
+  return sim.lean ? NO_DETAILS : { portions: op.portions, reagentPh: reagentPh(r) };
 };
 
 /** n portions of organic solvent against the current stream; the extracts are combined. */
@@ -126,14 +132,14 @@ const extract: Handler<"extract"> = (sim, op, step) => {
     sim.current = aqueous;
     sim.divert(step, extracts, op.saveAs, "combined organic extracts");
   }
-  return { portions: op.portions };
+  return sim.lean ? NO_DETAILS : { portions: op.portions };
 };
 
 const separate: Handler<"separate"> = (sim, op, step) => {
   const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, sim.acidBase(sim.current)));
   sim.current = op.keep === "organic" ? out.org : out.aq;
   sim.divert(step, op.keep === "organic" ? out.aq : out.org, op.saveAs, op.keep === "organic" ? "aqueous layer" : "organic layer");
-  return {};
+  return NO_DETAILS;
 };
 
 const combine: Handler<"combine"> = (sim, op, step) => {
@@ -231,7 +237,7 @@ const filter: Handler<"filter"> = (sim, op, step) => {
     sim.divert(step, cur, op.saveAs, "filtrate");
     sim.current = solid;
   } else sim.leave(step, solid, "filter_cake", "filter cake");
-  return { fractionHeldUp: retained };
+  return sim.lean ? NO_DETAILS : { fractionHeldUp: retained };
 };
 
 /** Dispatch by a switch: a keyed lookup in a table of handlers goes megamorphic across ten operation shapes. */

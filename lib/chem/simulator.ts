@@ -69,6 +69,11 @@ export class Simulator {
   phMemory: PhMemo[] | null = null;
   /** Set while a shared simulator is in use (see predict.ts). */
   busy = false;
+  /**
+   * A run whose caller reads back the isolated stream only (a compiled work-up: Monte-Carlo draws, bulk
+   * re-prediction): the steps build no details and streams sent to waste are not recorded (saved ones are).
+   */
+  lean = false;
   private readonly pool: Stream[] = [];
   private pooled = 0;
   private readonly scratchStreams: Stream[] = [];
@@ -228,13 +233,13 @@ export class Simulator {
       const rec: SideInternal = { step, name: saveAs, fate: "saved", stream };
       this.saved.set(saveAs, rec);
       this.side.push(rec);
-    } else {
+    } else if (!this.lean) {
       this.side.push({ step, name, fate: "waste", stream });
     }
   }
 
   leave(step: number, stream: Stream, fate: SideStream["fate"], name: string): void {
-    this.side.push({ step, name, fate, stream });
+    if (!this.lean) this.side.push({ step, name, fate, stream });
   }
 }
 
