@@ -32,9 +32,10 @@ export interface PhMemo {
 const ACTIVITY_TOLERANCE = 1e-9;
 
 /** Newton steps (pH) below which the joint pH–activity refinement takes over from the search with γ held, and
- * above which it hands back; and its most steps. */
+ * above which it hands back (0.5: a Monte-Carlo draw's start, the nominal pH of its contact, is often a few tenths
+ * off, and handing back at 0.1 cost about two evaluations there); and its most steps. */
 const JOINT_ENTRY_STEP = 0.02;
-const JOINT_MAX_STEP = 0.1;
+const JOINT_MAX_STEP = 0.5;
 const MAX_JOINT_STEPS = 20;
 
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
@@ -278,7 +279,7 @@ export class Equilibrator implements SlopedChargeBalance {
     for (let iter = 0; iter < MAX_JOINT_STEPS; iter++) {
       if (!Number.isNaN(next)) {
         const term = daviesTerm(next);
-        if (Math.abs(term - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, term);
+        if (Math.abs(term - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, term, true);
       }
       const f = this.residualAt(x, h);
       const i = this.residualIonicStrength;
@@ -325,10 +326,11 @@ export class Equilibrator implements SlopedChargeBalance {
     return (0.5 * (mix.strongZ2 + Math.abs(mix.strongCharge))) / this.va;
   }
 
-  /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
-  private setActivity(i: number, term = daviesTerm(i)): void {
+  /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`; `near`: the
+   * term moved little since the last call (a joint step), so 1/γ± is rescaled by the short series of shiftH. */
+  private setActivity(i: number, term = daviesTerm(i), near = false): void {
+    const g = near ? shiftH(this.invGamma1, -this.activityTerm, this.activityTerm - term) : Math.exp(term * Math.LN10);
     this.activityTerm = term;
-    const g = Math.exp(term * Math.LN10);
     this.invGamma1 = g;
     const g2 = g * g;
     for (let k = 0; k < this.nActive; k++) {
