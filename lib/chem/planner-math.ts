@@ -8,7 +8,7 @@ import { ionLogKShift, pairingSign } from "./ion-pair";
 import { solventLogK } from "./partition";
 import { type Component } from "./schema";
 import { distributionRatio, fractionSiteCharged, type IonizableSite } from "./speciation";
-import { CO2_SATURATION_M, KW, systemFractionProtonated, systemMeanCharge } from "./aqueous";
+import { co2SaturationM, KW, systemFractionProtonated, systemMeanCharge } from "./aqueous";
 import { CARBONATE, type CompiledReagent } from "./library";
 
 /** Fraction of a component kept in the organic layer after n washes of V_w each: (1 + V_w/(D·V_org))^−n (§2.3). */
@@ -68,14 +68,16 @@ export function fractionCharged(c: Pick<Component, "pKas" | "fixedCharge">, pH: 
  * Buffer capacity of a reagent solution toward a pH (mmol per mL): the net charge of the solution at that pH
  * from its charge balance. Positive: acid (as its anion) it can take up while staying at or above pH;
  * negative: base it can take up while staying at or below pH. Carbonic acid beyond saturation leaves as CO₂
- * in a vented funnel (§2.7), so the carbonate left is capped where H₂CO₃* reaches saturation.
+ * in a vented funnel (§2.7), so the carbonate left is capped where H₂CO₃* reaches saturation under 1 atm CO₂ at
+ * the wash's temperature (°C; Henry's law with its van 't Hoff slope, as the simulator's contacts; NaN: 25 °C).
  */
-export function reagentCapacity(r: CompiledReagent, pH: number): number {
+export function reagentCapacity(r: CompiledReagent, pH: number, temperatureC = Number.NaN): number {
   const h = 10 ** -pH;
   let q = r.strongCharge + h - KW / h;
+  const saturation = co2SaturationM(temperatureC);
   r.systems.forEach((total, s) => {
     if (!(total > 0)) return;
-    const left = s === CARBONATE ? Math.min(total, CO2_SATURATION_M / systemFractionProtonated(s, h)) : total;
+    const left = s === CARBONATE ? Math.min(total, saturation / systemFractionProtonated(s, h)) : total;
     q += left * systemMeanCharge(s, h);
   });
   return q;

@@ -18,6 +18,9 @@ export interface WashGroupPlan {
   reagent: { key: string; name: string; pH: number } | null;
   volumeMl: number;
   portions: number;
+  /** Acid or base one portion takes up before its pH reaches `edgePh`, mmol (0 and NaN without a reagent). */
+  capacityMmol: number;
+  edgePh: number;
   /** Closed-form estimate at the fresh reagent's pH: fraction of each impurity left in the organic layer. */
   impurityLeft: Record<string, number>;
   /** Fraction of the product the wash keeps in the organic layer (closed form). */
@@ -34,6 +37,9 @@ export interface WashContext {
   productKeepMin: number;
   maxPortions: number;
   reagents: ReadonlyMap<string, CompiledReagent>;
+  /** Temperature the washes run at, °C (a planned wash takes the work-up's): CO₂ solubility sets a carbonate
+   * wash's capacity. */
+  temperatureC: number;
 }
 
 export interface Impurity { component: Component; d: (pH: number) => number }
@@ -90,7 +96,7 @@ export function planWashGroup(ctx: WashContext, purpose: WashGroupPlan["purpose"
   const keys = impurities.map((i) => i.component.key);
   const reasons = impurities.map((i) => `${siteText(i.component, purpose)} (two pH units past the pKa, common practice).`);
   const window = findWindow(ctx, impurities);
-  const empty = { purpose, impurities: keys, window, reagent: null, volumeMl: 0, portions: 0, impurityLeft: {}, productKept: 1 };
+  const empty = { purpose, impurities: keys, window, reagent: null, volumeMl: 0, portions: 0, capacityMmol: 0, edgePh: Number.NaN, impurityLeft: {}, productKept: 1 };
   if (!window) {
     reasons.push(`No pH removes ${keys.join(", ")} to ≤ ${pct(ctx.maxImpurityLeft)} without costing ${ctx.product.key} more than ${pct(1 - ctx.productKeepMin)} beyond what any wash costs: their ionization ranges overlap. Separate them by chromatography or crystallization, or measure their log K to refine this.`);
     return { ...empty, reasons };
@@ -127,8 +133,8 @@ export function planWashGroup(ctx: WashContext, purpose: WashGroupPlan["purpose"
   const { candidate: pick, size: choice } = pickEntry;
   const milder = sized.filter((x) => mildness(x.candidate) < mildness(pick) && x !== pickEntry);
   reasons.push(`${pick.r.props.name} (pH ${ph(pick.pH)}) is the mildest stock reagent well inside the window that does the job in a modest volume${milder.length > 0 ? ` (milder ones sit at the window's edge or need more: ${milder.map((x) => `${x.candidate.r.props.name} pH ${ph(x.candidate.pH)}, ${total(x.size)} mL`).join("; ")})` : ""}; a stronger one adds nothing and risks hydrolysing labile groups (F16).`);
-  reasons.push(`Each ${choice.volumeMl} mL portion takes up ${choice.capacityMmol.toFixed(1)} mmol of ${purpose === "remove_acids" ? "acid" : "base"} before its pH passes ${ph(choice.edge)}, against the ${choice.needMmol.toFixed(2)} mmol the first portion meets (1.2 × the impurity, F4); ${choice.portions} × ${choice.volumeMl} mL is the smallest wash that reaches the target, so the product loses least.`);
-  return { purpose, impurities: keys, window, reagent: { key: pick.key, name: pick.r.props.name, pH: pick.pH }, volumeMl: choice.volumeMl, portions: choice.portions, impurityLeft: choice.left, productKept: choice.kept, reasons };
+  reasons.push(`Each ${choice.volumeMl} mL portion takes up ${choice.capacityMmol.toFixed(1)} mmol of ${purpose === "remove_acids" ? "acid" : "base"} before its pH passes ${ph(choice.edge)}${pick.r.hasSystems && (pick.r.props.systems.carbonate ?? 0) > 0 ? ` (CO₂ beyond its solubility at ${ctx.temperatureC} °C leaving the vented funnel)` : ""}, against the ${choice.needMmol.toFixed(2)} mmol the first portion meets (1.2 × the impurity, F4); ${choice.portions} × ${choice.volumeMl} mL is the smallest wash that reaches the target, so the product loses least.`);
+  return { purpose, impurities: keys, window, reagent: { key: pick.key, name: pick.r.props.name, pH: pick.pH }, volumeMl: choice.volumeMl, portions: choice.portions, capacityMmol: choice.capacityMmol, edgePh: choice.edge, impurityLeft: choice.left, productKept: choice.kept, reasons };
 }
 
 interface PhReagent { key: string; r: CompiledReagent; pH: number }
@@ -139,7 +145,7 @@ function sizeWash(ctx: WashContext, purpose: WashGroupPlan["purpose"], impuritie
   // Capacity: the first portion meets nearly all of the impurity, so each portion must take it up while its pH
   // stays within one unit of the fresh reagent and inside the window (a larger drift is flag F4).
   const edge = purpose === "remove_acids" ? Math.max(window.low, pick.pH - 1) : Math.min(window.high, pick.pH + 1);
-  const perMl = Math.abs(reagentCapacity(pick.r, edge));
+  const perMl = Math.abs(reagentCapacity(pick.r, edge, ctx.temperatureC));
   const needMmol = 1.2 * impurities.reduce((s, i) => s + i.component.amountMmol * fractionCharged(i.component, pick.pH), 0);
   const minPortionMl = perMl > 0 ? needMmol / perMl : Infinity;
   let choice: WashSize | null = null;

@@ -106,7 +106,8 @@ export function planWorkup(input: WorkupInput, options: PlanOptions = {}, simula
   }
   const groups = (acids.length > 0 ? 1 : 0) + (bases.length > 0 ? 1 : 0) + (extractIndex >= 0 ? 1 : 0);
   const productKeepMin = 1 - (1 - opts.targetRecovery) / (groups + 1);
-  const washCtx = { product, productD, organicMl, maxImpurityLeft: opts.maxImpurityLeft, productKeepMin, maxPortions: opts.maxPortions, reagents };
+  const washCtx = { product, productD, organicMl, maxImpurityLeft: opts.maxImpurityLeft, productKeepMin, maxPortions: opts.maxPortions, reagents,
+    temperatureC: input.temperatureC };
   const washes: WashGroupPlan[] = [];
   if (bases.length > 0) washes.push(planWashGroup(washCtx, "remove_bases", bases));
   if (acids.length > 0) washes.push(planWashGroup(washCtx, "remove_acids", acids));
