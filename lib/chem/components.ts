@@ -7,7 +7,8 @@
 import { COUNTER_IONS } from "./data/counter-ions";
 import { type SolventProps } from "./data/solvents";
 import { pairingFactor, pairingSign } from "./ion-pair";
-import { type CompiledLibrary, type Library } from "./library";
+import { type AbrahamEstimate } from "./abraham";
+import { type CompiledLibrary } from "./library";
 import { emptyParameters, readComponentParameters, type WorkupParameters } from "./parameters";
 import { abrahamLogK, anchorLogP, collanderLogK, componentAbraham, cosolvencyPower, setschenowConstant } from "./partition";
 import { type Component } from "./schema";
@@ -38,6 +39,9 @@ export interface CompiledComponents {
   saltCharge: Float64Array;
   saltIons: Float64Array;
   ownPairing: Float64Array;
+  /** The components list the structural part was filled for, and each component's plan (fillComponents). */
+  plannedFor: readonly Component[] | null;
+  plans: ComponentPlan[];
 }
 
 /** Allocates the arrays for `n` components over the compiled library's solvents. */
@@ -48,73 +52,103 @@ export function allocateComponents(n: number, lib: CompiledLibrary): CompiledCom
     fixedCharge: new Int8Array(n), logK: new Float64Array(n * ns), sigma: new Float64Array(n * ns),
     setschenow: new Float64Array(n), ionOffset: new Float64Array(n), lipophilicCounterIon: new Uint8Array(n),
     pairsAsAnion: new Uint8Array(n), saltCharge: new Float64Array(n), saltIons: new Float64Array(n), ownPairing: new Float64Array(n),
+    plannedFor: null, plans: [],
   };
 }
 
-/** The component's own log K for solvent `key` from the parameters, or NaN. */
-function ownLogK(c: Component, key: string, p: WorkupParameters, start: number): number {
-  let j = start;
-  for (const k in c.logK) {
-    if (!Object.hasOwn(c.logK, k)) continue;
-    if (k === key) return p.logK[j] as number;
-    j++;
-  }
-  return Number.NaN;
+/**
+ * What fillComponents reads from a component's structure, worked out once per components list (a Monte-Carlo run
+ * refills the same list a thousand times with new numbers): which pKa values are acids, where each solvent's own
+ * log K sits among the parameters, the Abraham estimates, and the Collander line a log P is read back through.
+ */
+interface ComponentPlan {
+  acidSite: Uint8Array;
+  nAcid: number;
+  hasLogP: boolean;
+  /** Parameter slot (from logKStart) of the first own log K whose solvent has a Collander line, and that line. */
+  backSlot: number;
+  backA: number;
+  backB: number;
+  /** Abraham octanol–water estimate, or NaN. */
+  octanol: number;
+  /** Abraham estimates are anchored on this run's log P (anchorLogP). */
+  anchored: boolean;
+  /** Per compiled solvent: the slot of the component's own log K (−1: none) and the Abraham estimate. */
+  ownSlot: Int32Array;
+  abraham: Array<AbrahamEstimate | null>;
 }
 
-/**
- * log P from the parameters, or one back-calculated from the first own log K whose solvent has a Collander line;
- * NaN when neither exists. The same arithmetic as effectiveLogP (partition.ts), on the parameter values.
- */
-function parameterLogP(c: Component, ci: number, p: WorkupParameters, solvents: Library["solvents"], donor: boolean): number {
-  const logP = p.logP[ci] as number;
-  if (c.logP) return logP;
-  let j = p.logKStart[ci] as number;
-  for (const k in c.logK) {
-    if (!Object.hasOwn(c.logK, k)) continue;
-    const line = solvents[k]?.partition;
-    if (line) {
-      const l = donor ? line.donor : line.acceptor;
-      return ((p.logK[j] as number) - l.b) / l.a;
-    }
-    j++;
+function planComponent(c: Component, lib: CompiledLibrary): ComponentPlan {
+  const ns = lib.solventKeys.length;
+  const acidSite = Uint8Array.from(c.pKas, (pk) => (pk.kind === "acid" ? 1 : 0));
+  const nAcid = acidSite.reduce((n, x) => n + x, 0);
+  const donor = nAcid > 0;
+  const ownKeys = Object.keys(c.logK);
+  let backSlot = -1, backA = Number.NaN, backB = Number.NaN;
+  for (let j = 0; j < ownKeys.length && !c.logP; j++) {
+    const line = lib.lib.solvents[ownKeys[j] as string]?.partition;
+    if (!line) continue;
+    const l = donor ? line.donor : line.acceptor;
+    backSlot = j;
+    backA = l.a;
+    backB = l.b;
+    break;
   }
-  return Number.NaN;
+  const ownSlot = new Int32Array(ns).fill(-1);
+  const abraham: Array<AbrahamEstimate | null> = [];
+  for (let i = 0; i < ns; i++) {
+    const s = lib.solvents[i] as SolventProps;
+    ownSlot[i] = ownKeys.indexOf(s.key);
+    abraham.push(i > 0 && !s.waterMiscible && (ownSlot[i] as number) < 0 ? componentAbraham(c, s.key) : null);
+  }
+  return {
+    acidSite, nAcid, hasLogP: c.logP !== undefined, backSlot, backA, backB,
+    octanol: componentAbraham(c, "octanol")?.value ?? Number.NaN, anchored: anchorLogP(c) !== undefined, ownSlot, abraham,
+  };
 }
 
 /**
  * Fills every component's constants from its structure (`components`) and the numbers in `p`: acid and base
- * dissociation constants, log K of the neutral form in each immiscible solvent (own value, else the Collander
- * line from log P), cosolvency powers and Setschenow constants. No allocation once the arrays are sized.
+ * dissociation constants, log K of the neutral form in each immiscible solvent (own value, else the Abraham
+ * estimate, else the Collander line from log P), cosolvency powers and Setschenow constants. The structural part
+ * is done once per components list; a refill with new numbers allocates nothing.
  */
 export function fillComponents(out: CompiledComponents, components: readonly Component[], p: WorkupParameters, lib: CompiledLibrary): void {
   const ns = lib.solventKeys.length;
+  const same = out.plannedFor === components;
   for (let ci = 0; ci < components.length; ci++) {
     const c = components[ci] as Component;
-    if (out.keys[ci] !== c.key) out.keys[ci] = c.key;
-    out.startMmol[ci] = p.amountMmol[ci] as number;
-    out.molarMass[ci] = c.molarMass;
-    out.fixedCharge[ci] = c.fixedCharge;
-    out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
-    out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" && !c.salt ? 1 : 0;
-    out.pairsAsAnion[ci] = pairingSign(c) === "anion" ? 1 : 0;
-    fillSalt(out, ci, c);
-    const q0 = p.pKaStart[ci] as number;
-    let nAcid = 0;
-    for (const pk of c.pKas) if (pk.kind === "acid") nAcid++;
-    const acid = sizedKa(out.acidKa, ci, nAcid);
-    const base = sizedKa(out.baseKa, ci, c.pKas.length - nAcid);
-    let a = 0, b = 0;
-    for (let j = 0; j < c.pKas.length; j++) {
-      const ka = Math.exp(-(p.pKa[q0 + j] as number) * Math.LN10);
-      if ((c.pKas[j] as Component["pKas"][number]).kind === "acid") acid[a++] = ka; else base[b++] = ka;
+    if (!same) {
+      out.keys[ci] = c.key;
+      out.molarMass[ci] = c.molarMass;
+      out.fixedCharge[ci] = c.fixedCharge;
+      out.ionOffset[ci] = c.ionLogKOffset ?? Number.NaN;
+      out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" && !c.salt ? 1 : 0;
+      out.pairsAsAnion[ci] = pairingSign(c) === "anion" ? 1 : 0;
+      fillSalt(out, ci, c);
+      const plan = planComponent(c, lib);
+      out.plans[ci] = plan;
+      sizedKa(out.acidKa, ci, plan.nAcid);
+      sizedKa(out.baseKa, ci, c.pKas.length - plan.nAcid);
     }
-    const donor = nAcid > 0;
-    const effective = parameterLogP(c, ci, p, lib.lib.solvents, donor);
-    const octanol = componentAbraham(c, "octanol");
-    const logP = !Number.isNaN(effective) ? effective : octanol ? octanol.value : 0;
-    out.setschenow[ci] = c.setschenowK ?? setschenowConstant(logP);
+    const plan = out.plans[ci] as ComponentPlan;
+    out.startMmol[ci] = p.amountMmol[ci] as number;
+    const q0 = p.pKaStart[ci] as number;
+    const acid = out.acidKa[ci] as Float64Array;
+    const base = out.baseKa[ci] as Float64Array;
+    let a = 0, b = 0;
+    for (let j = 0; j < plan.acidSite.length; j++) {
+      const ka = Math.exp(-(p.pKa[q0 + j] as number) * Math.LN10);
+      if (plan.acidSite[j] === 1) acid[a++] = ka; else base[b++] = ka;
+    }
+    const donor = plan.nAcid > 0;
     const k0 = p.logKStart[ci] as number;
+    // log P from the parameters, or read back from the first own log K with a Collander line (effectiveLogP,
+    // partition.ts, on the parameter values); NaN when neither exists.
+    const effective = plan.hasLogP ? (p.logP[ci] as number)
+      : plan.backSlot >= 0 ? ((p.logK[k0 + plan.backSlot] as number) - plan.backB) / plan.backA : Number.NaN;
+    const logP = !Number.isNaN(effective) ? effective : !Number.isNaN(plan.octanol) ? plan.octanol : 0;
+    out.setschenow[ci] = c.setschenowK ?? setschenowConstant(logP);
     const row = ci * ns;
     out.logK[row] = Number.NaN;
     out.sigma[row] = 0;
@@ -126,15 +160,16 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
         continue;
       }
       out.sigma[row + i] = 0;
-      const own = ownLogK(c, s.key, p, k0);
+      const slot = plan.ownSlot[i] as number;
       // Abraham estimate (cached per component and solvent), anchored on this run's log P when that is enabled.
-      const ab = Number.isNaN(own) ? componentAbraham(c, s.key) : null;
-      out.logK[row + i] = !Number.isNaN(own) ? own
-        : ab ? abrahamLogK(ab, anchorLogP(c) === undefined ? undefined : p.logP[ci])
+      const ab = plan.abraham[i] ?? null;
+      out.logK[row + i] = slot >= 0 ? (p.logK[k0 + slot] as number)
+        : ab ? abrahamLogK(ab, plan.anchored ? p.logP[ci] : undefined)
           : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
     }
   }
   out.keys.length = components.length;
+  out.plannedFor = components;
 }
 
 /**
