@@ -10,7 +10,7 @@
  * evaluations. Components with no acidic or basic site carry no charge and are left out of the evaluations.
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
-import { daviesTerm } from "./activity";
+import { DAVIES_A, daviesTerm } from "./activity";
 import { co2SaturationM, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
@@ -186,7 +186,7 @@ export class Equilibrator implements SlopedChargeBalance {
    * Monte-Carlo run), a draw's start lies about √2 times nearer its root than the previous draw's pH would, and
    * no draw's result depends on the draw before it.
    */
-  equilibrate(mix: Stream, org: Stream, aq: Stream, guess = this.lastSolved, memo: PhMemo | null = null): void {
+  equilibrate(mix: Stream, org: Stream, aq: Stream, guess = this.lastSolved, memo: PhMemo | null = null, aqueousRead = true): void {
     const { phases, comps } = this;
     const aqueous = this.prepare(mix);
     copyInto(org.solv, phases.org);
@@ -220,6 +220,13 @@ export class Equilibrator implements SlopedChargeBalance {
     }
     this.speciate(this.rootH);
     this.lastSolved = this.pH;
+    if (!aqueousRead) {
+      for (let c = 0; c < comps.count; c++) {
+        const n = mix.comp[c] as number;
+        org.comp[c] = n - n * (this.fractionAqueous[c] as number);
+      }
+      return;
+    }
     if (this.systemsPresent) aq.addSystems(this.systemTotals, 1);
     aq.strongCharge = mix.strongCharge;
     aq.strongZ2 = mix.strongZ2;
@@ -276,14 +283,15 @@ export class Equilibrator implements SlopedChargeBalance {
    * The root, or NaN when a step grows past JOINT_MAX_STEP or leaves the range (stopPh/stopH: where it stopped).
    */
   private refine(x: number, h: number, next: number): number {
+    let nextTerm = Number.isNaN(next) ? Number.NaN : daviesTerm(next);
     for (let iter = 0; iter < MAX_JOINT_STEPS; iter++) {
-      if (!Number.isNaN(next)) {
-        const term = daviesTerm(next);
-        if (Math.abs(term - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, term, true);
-      }
+      if (!Number.isNaN(nextTerm) && Math.abs(nextTerm - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, nextTerm, true);
       const f = this.residualAt(x, h);
-      const i = this.residualIonicStrength;
-      const settled = Math.abs(daviesTerm(i) - this.activityTerm) < ACTIVITY_TOLERANCE;
+      const i = Math.max(0, this.residualIonicStrength);
+      // daviesTerm(i), and below its slope in I, from one square root.
+      const r = Math.sqrt(i);
+      const termI = DAVIES_A * (r / (1 + r) - 0.3 * i);
+      const settled = Math.abs(termI - this.activityTerm) < ACTIVITY_TOLERANCE;
       const step = this.slope < 0 ? -f / this.slope : Number.NaN;
       if (!(Math.abs(step) < JOINT_MAX_STEP)) { this.stopResidual = f; break; }
       if (settled && Math.abs(step) < NEWTON_STEP_TOLERANCE) {
@@ -293,7 +301,11 @@ export class Equilibrator implements SlopedChargeBalance {
         this.rootH = shiftH(h, x, step);
         return root;
       }
-      next = i + this.residualIonicSlope * step;
+      const dI = this.residualIonicSlope * step;
+      next = i + dI;
+      // γ for the next pH: the Davies term at I + ΔI, to first order once ΔI is below 1e-5·I (the second-order
+      // part is then far under the 1e-9 tolerance; the settled test above always takes the exact term).
+      nextTerm = r > 0 && Math.abs(dI) < 1e-5 * i ? termI + DAVIES_A * (0.5 / (r * (1 + r) * (1 + r)) - 0.3) * dI : daviesTerm(next);
       h = shiftH(h, x, step);
       x += step;
       this.stopResidual = Number.NaN;

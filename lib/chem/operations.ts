@@ -95,7 +95,7 @@ const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
     const mix = sim.freshReagent(r, volumeMl);
     const before = sim.acidBase(organic, mix);
     mix.addFrom(organic, 1);
-    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before));
+    const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before), combine);
     organic = out.org;
     if (!combine) continue;
     other.addFrom(out.aq, 1);
@@ -136,7 +136,8 @@ const extract: Handler<"extract"> = (sim, op, step) => {
 };
 
 const separate: Handler<"separate"> = (sim, op, step) => {
-  const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, sim.acidBase(sim.current)));
+  const aqueousRead = !(sim.lean && op.keep === "organic" && op.saveAs === undefined);
+  const out = sim.contact(sim.current, ctx(sim, op, step, 1, op.keep, null, sim.acidBase(sim.current)), aqueousRead);
   sim.current = op.keep === "organic" ? out.org : out.aq;
   sim.divert(step, op.keep === "organic" ? out.aq : out.org, op.saveAs, op.keep === "organic" ? "aqueous layer" : "organic layer");
   return NO_DETAILS;

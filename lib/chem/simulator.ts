@@ -101,7 +101,7 @@ export class Simulator {
     this.residue = false;
     // New arrays rather than length = 0, which V8 runs as a slower runtime call.
     if (this.saved.size > 0) this.saved.clear();
-    this.side = [];
+    if (this.side.length > 0) this.side = [];
     if (this.contacts.length > 0) this.contacts = [];
     if (this.stepTraces.length > 0) this.stepTraces = [];
     const cur = this.newStream();
@@ -182,8 +182,9 @@ export class Simulator {
     return s;
   }
 
-  /** Equilibrates a mixture into two new streams and records the contact. */
-  contact(mix: Stream, ctx: ContactContext): ContactOutcome {
+  /** Equilibrates a mixture into two new streams and records the contact. `aqueousRead` false: nothing will read
+   * the aqueous layer (a lean run discarding it), which is then left empty. */
+  contact(mix: Stream, ctx: ContactContext, aqueousRead = true): ContactOutcome {
     const org = this.newStream();
     const aq = this.newStream();
     const eq = this.eq;
@@ -197,7 +198,8 @@ export class Simulator {
         memory.push(memo);
       }
     }
-    eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved, memo);
+    const traced = this.tracing || this.onContact !== null;
+    eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved, memo, aqueousRead || traced);
     let trace: ContactTrace | null = null;
     if (this.tracing || this.onContact) trace = traceContact(this, mix, org, aq, ctx);
     const out = { org, aq, trace };
