@@ -65,8 +65,9 @@ const FAST = { steps: false, flags: false } as const;
 
 const INTERVAL_PERCENTILES = [0.025, 0.5, 0.975] as const;
 
+/** Mean, sd and percentiles of the first `count` values, which the percentile selection reorders. */
 function summarize(values: Float64Array, count: number): Interval {
-  const work = values.slice(0, count);
+  const work = count === values.length ? values : values.subarray(0, count);
   let sum = 0;
   for (let i = 0; i < count; i++) sum += work[i] as number;
   const mean = sum / count;
@@ -189,6 +190,7 @@ export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulat
       .filter((x) => x.share >= 0.05)
       .sort((a, b) => b.share - a.share)
       .slice(0, 3);
+    // After the correlations, which read the draws in order.
     components[key] = { recovery: summarize(r, ok), purityPct: summarize(purity[i] as Float64Array, ok), mainSources: shares };
   });
   return { draws, seed, failedDraws: failed, components, crudeMassMg: summarize(crude, ok), inputs: plan.sites };
