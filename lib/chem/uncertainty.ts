@@ -147,7 +147,7 @@ export function propagateUncertainty(input: WorkupInput, simulate: WorkupSimulat
   let ok = 0;
   let failed = 0;
   for (let d = 0; d < draws; d++) {
-    for (let s = 0; s < z.length; s++) z[s] = rng.normal();
+    rng.normals(z);
     if (compiled && drawInto) {
       try {
         drawInto(z);
