@@ -11,7 +11,7 @@
  * One class over 300 lines on purpose: the per-contact state the charge-balance loop reads lives in its fields.
  */
 import { DAVIES_A, daviesTerm } from "./activity";
-import { co2SaturationM, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, shiftH, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
+import { co2SaturationM, KW, NEWTON_STEP_TOLERANCE, PH_MAX, PH_MIN, solvePhWithSlope, type SlopedChargeBalance } from "./aqueous";
 import { type CompiledComponents } from "./components";
 import { CARBONATE, N_SYSTEMS, SYSTEM_KA, SYSTEM_Z0, WATER, type CompiledLibrary } from "./library";
 import { saltingOutShift } from "./partition";
@@ -60,6 +60,15 @@ export class Equilibrator implements SlopedChargeBalance {
   rootH = Number.NaN;
   /** Last solved pH, the starting guess for the next contact unless the caller gives one. */
   lastSolved = NaN;
+  /** The pH and a(H⁺) evaluate() reads, and the residual it leaves. */
+  private evalPh = Number.NaN;
+  /** refine()'s start (pH, a(H⁺), ionic strength for γ or NaN) and its root or NaN. */
+  private refineX = Number.NaN;
+  private refineH = Number.NaN;
+  private refineNext = Number.NaN;
+  private refined = Number.NaN;
+  private evalH = Number.NaN;
+  private residual = Number.NaN;
 
   private systemTotals = new Float64Array(N_SYSTEMS);
   /** The prepared mixture holds some acid–base system (else systemTotals is stale and counts as zero). */
@@ -109,6 +118,8 @@ export class Equilibrator implements SlopedChargeBalance {
   /** −log γ± the activity coefficients were last set for (daviesTerm); 1/γ± of singly charged ions; the systems'
    * concentration constants K′ at that ionic strength. */
   private activityTerm = 0;
+  /** The Davies term applyPendingActivity() sets. */
+  private pendingTerm = 0;
   private invGamma1 = 1;
   private readonly sysKa: Float64Array[] = SYSTEM_KA.map((k) => Float64Array.from(k));
   /** The last log K of each component and its power of ten, and the last ion-pair δ values and theirs. */
@@ -181,12 +192,12 @@ export class Equilibrator implements SlopedChargeBalance {
 
   /**
    * Equilibrates `mix` and writes the two layers into `org` and `aq`, which must be empty streams. The pH search
-   * starts from `memo` when it holds this contact's pH from an earlier run, else from `guess` (default: the last
-   * solved pH) and the memo keeps this run's pH. Kept from the first run (the input's own numbers, in a
+   * starts from `memo` when it holds this contact's pH from an earlier run, else from the mixture's last pH if it
+   * has one, else from the last solved pH, and the memo keeps this run's pH. Kept from the first run (the input's own numbers, in a
    * Monte-Carlo run), a draw's start lies about √2 times nearer its root than the previous draw's pH would, and
    * no draw's result depends on the draw before it.
    */
-  equilibrate(mix: Stream, org: Stream, aq: Stream, guess = this.lastSolved, memo: PhMemo | null = null, aqueousRead = true): void {
+  equilibrate(mix: Stream, org: Stream, aq: Stream, memo: PhMemo | null = null, aqueousRead = true): void {
     const { phases, comps } = this;
     const aqueous = this.prepare(mix);
     copyInto(org.solv, phases.org);
@@ -206,7 +217,8 @@ export class Equilibrator implements SlopedChargeBalance {
     this.carbonateCap = carb > 0 ? this.co2Saturation : Number.POSITIVE_INFINITY;
     const remembered = memo !== null && Number.isFinite(memo.pH);
     this.setActivity(remembered && Number.isFinite(memo.ionicStrength) ? memo.ionicStrength : this.ionicStrengthEstimate(mix));
-    this.pH = remembered ? this.solveWithActivity(memo.pH, memo.h, true) : this.solveWithActivity(guess, Number.NaN, false);
+    this.pH = remembered ? this.solveWithActivity(memo.pH, memo.h, true)
+      : this.solveWithActivity(Number.isFinite(mix.lastPh) ? mix.lastPh : this.lastSolved, Number.NaN, false);
     if (memo && !remembered) { memo.pH = this.pH; memo.h = this.rootH; memo.ionicStrength = this.ionicStrength; }
     this.carbonateCap = Number.POSITIVE_INFINITY;
     if (carb > 0) {
@@ -253,7 +265,8 @@ export class Equilibrator implements SlopedChargeBalance {
   private solveWithActivity(guess: number, guessH: number, nearRoot: boolean): number {
     let x = guess, h = guessH, known = Number.NaN;
     if (nearRoot) {
-      const root = this.refine(x, h > 0 ? h : Math.exp(-x * Math.LN10), Number.NaN);
+      this.refineFrom(x, h > 0 ? h : Math.exp(-x * Math.LN10), Number.NaN);
+      const root = this.refined;
       if (!Number.isNaN(root)) return root;
       x = this.stopPh; h = this.stopH; known = this.stopResidual;
     }
@@ -261,7 +274,8 @@ export class Equilibrator implements SlopedChargeBalance {
     h = this.rootH;
     if (x > PH_MIN && x < PH_MAX) {
       // The search's last evaluation lies one step short of x: γ from the ionic strength expected at x.
-      const root = this.refine(x, h, this.residualIonicStrength + this.residualIonicSlope * (x - this.lastEvaluatedPh));
+      this.refineFrom(x, h, this.residualIonicStrength + this.residualIonicSlope * (x - this.lastEvaluatedPh));
+      const root = this.refined;
       if (!Number.isNaN(root)) return root;
       x = this.stopPh; h = this.stopH; known = this.stopResidual;
     } else known = Number.NaN;
@@ -280,13 +294,31 @@ export class Equilibrator implements SlopedChargeBalance {
 
   /**
    * Joint Newton steps on pH and γ from pH x (h = 10^−x), γ first reset for ionic strength `next` (NaN: kept).
-   * The root, or NaN when a step grows past JOINT_MAX_STEP or leaves the range (stopPh/stopH: where it stopped).
+   * The root, or NaN when a step grows past JOINT_MAX_STEP or leaves the range (stopPh/stopH: where it stopped),
+   * left in `refined`.
    */
-  private refine(x: number, h: number, next: number): number {
+  private refineFrom(x: number, h: number, next: number): void {
+    this.refineX = x;
+    this.refineH = h;
+    this.refineNext = next;
+    this.refine();
+  }
+
+  /** refineFrom on the start in the fields: a number passed to or returned from a call that is not inlined is
+   * boxed, as is a loop variable that starts as a parameter, and these steps run some thirty times a draw. */
+  private refine(): void {
+    let x = this.refineX, h = this.refineH, next = this.refineNext;
     let nextTerm = Number.isNaN(next) ? Number.NaN : daviesTerm(next);
+    this.refined = Number.NaN;
     for (let iter = 0; iter < MAX_JOINT_STEPS; iter++) {
-      if (!Number.isNaN(nextTerm) && Math.abs(nextTerm - this.activityTerm) >= ACTIVITY_TOLERANCE) this.setActivity(next, nextTerm, true);
-      const f = this.residualAt(x, h);
+      if (!Number.isNaN(nextTerm) && Math.abs(nextTerm - this.activityTerm) >= ACTIVITY_TOLERANCE) {
+        this.pendingTerm = nextTerm;
+        this.applyPendingActivity();
+      }
+      this.evalPh = x;
+      this.evalH = h;
+      this.evaluate();
+      const f = this.residual;
       const i = Math.max(0, this.residualIonicStrength);
       // daviesTerm(i), and below its slope in I, from one square root.
       const r = Math.sqrt(i);
@@ -298,21 +330,21 @@ export class Equilibrator implements SlopedChargeBalance {
         const root = x + step;
         if (!(root > PH_MIN && root < PH_MAX)) { this.stopResidual = f; break; }
         this.ionicStrength = i;
-        this.rootH = shiftH(h, x, step);
-        return root;
+        this.rootH = Math.exp(-root * Math.LN10);
+        this.refined = root;
+        return;
       }
       const dI = this.residualIonicSlope * step;
       next = i + dI;
       // γ for the next pH: the Davies term at I + ΔI, to first order once ΔI is below 1e-5·I (the second-order
       // part is then far under the 1e-9 tolerance; the settled test above always takes the exact term).
       nextTerm = r > 0 && Math.abs(dI) < 1e-5 * i ? termI + DAVIES_A * (0.5 / (r * (1 + r) * (1 + r)) - 0.3) * dI : daviesTerm(next);
-      h = shiftH(h, x, step);
       x += step;
+      h = Math.exp(-x * Math.LN10);
       this.stopResidual = Number.NaN;
     }
     this.stopPh = x;
     this.stopH = h;
-    return Number.NaN;
   }
 
   /**
@@ -338,10 +370,16 @@ export class Equilibrator implements SlopedChargeBalance {
     return (0.5 * (mix.strongZ2 + Math.abs(mix.strongCharge))) / this.va;
   }
 
-  /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`; `near`: the
-   * term moved little since the last call (a joint step), so 1/γ± is rescaled by the short series of shiftH. */
-  private setActivity(i: number, term = daviesTerm(i), near = false): void {
-    const g = near ? shiftH(this.invGamma1, -this.activityTerm, this.activityTerm - term) : Math.exp(term * Math.LN10);
+  /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
+  private setActivity(i: number): void {
+    this.pendingTerm = daviesTerm(i);
+    this.applyPendingActivity();
+  }
+
+  /** setActivity for the Davies term in `pendingTerm` (a field, not an argument: see evaluate()). */
+  private applyPendingActivity(): void {
+    const term = this.pendingTerm;
+    const g = Math.exp(term * Math.LN10);
     this.activityTerm = term;
     this.invGamma1 = g;
     const g2 = g * g;
@@ -518,12 +556,25 @@ export class Equilibrator implements SlopedChargeBalance {
    * sets `slope` to its derivative in pH (a sum of negative terms: −ln10 times the buffer capacities).
    */
   residualAt(pH: number, a: number): number {
+    this.evalPh = pH;
+    this.evalH = a;
+    this.evaluate();
+    return this.residual;
+  }
+
+  /**
+   * residualAt on the pH and a(H⁺) in `evalPh` and `evalH`, the result in `residual`: the joint steps call it so,
+   * since a call that passes or returns a number allocates a box for it unless the call is inlined, and this
+   * one is too large to be (about a fifth of a Monte-Carlo run's time went to those boxes and their collection).
+   */
+  private evaluate(): void {
     solverStats.evaluations++;
+    const pH = this.evalPh;
     this.lastEvaluatedPh = pH;
     // `a` is a(H⁺); with concentration constants (setActivity) the balance runs on [H⁺] = a/γ±, and sites on
     // h = a (acids: K′ = K/γ±; bases: K′ = K·γ±, so x = a/(a + K′·…) keeps the same form).
     const g = this.invGamma1;
-    const h = a;
+    const h = this.evalH;
     const hInv = 1 / h;
     const hc = h * g;
     const oh = KW * hInv * g;
@@ -609,7 +660,7 @@ export class Equilibrator implements SlopedChargeBalance {
     this.slope = -Math.LN10 * df;
     this.residualIonicStrength = 0.5 * cz2;
     this.residualIonicSlope = 0.5 * Math.LN10 * dcz2;
-    return f;
+    this.residual = f;
   }
 
   /** Speciation and distribution of every component at the solved pH (a(H⁺) = h). */

@@ -67,6 +67,8 @@ export class Simulator {
   /** pH at each contact of the first run since the memory was emptied, where the same contact's pH search starts
    * in later runs (Monte Carlo); null for a run that must not depend on the runs before it. */
   phMemory: PhMemo[] | null = null;
+  /** Temperature the equilibrator was last set to, °C. */
+  private temperatureC = Number.NaN;
   /** Set while a shared simulator is in use (see predict.ts). */
   busy = false;
   /**
@@ -78,11 +80,13 @@ export class Simulator {
   private pooled = 0;
   private readonly scratchStreams: Stream[] = [];
   private contactIndex = 0;
+  private readonly untracedOutcome: ContactOutcome;
 
   constructor(readonly lib: CompiledLibrary, readonly componentCount: number) {
     this.comps = allocateComponents(componentCount, lib);
     this.eq = new Equilibrator(lib, this.comps);
     this.current = this.newStream();
+    this.untracedOutcome = { org: this.current, aq: this.current, trace: null };
   }
 
   /** Starts a run of `input` with the numbers in `params` (read from it, or perturbed). */
@@ -133,7 +137,11 @@ export class Simulator {
       const index = i + 1;
       const firstContact = this.contacts.length;
       const sideBefore = this.side.length;
-      this.eq.setTemperature(op.temperatureC ?? this.input.temperatureC);
+      const temperatureC = op.temperatureC ?? this.input.temperatureC;
+      if (temperatureC !== this.temperatureC) {
+        this.temperatureC = temperatureC;
+        this.eq.setTemperature(temperatureC);
+      }
       const details = applyOperation(this, op, index);
       if (this.tracing) this.stepTraces.push({ index, type: op.type, details, firstContact, contactCount: this.contacts.length - firstContact });
       afterStep?.(index, op, details, sideBefore);
@@ -199,10 +207,13 @@ export class Simulator {
       }
     }
     const traced = this.tracing || this.onContact !== null;
-    eq.equilibrate(mix, org, aq, Number.isFinite(mix.lastPh) ? mix.lastPh : eq.lastSolved, memo, aqueousRead || traced);
+    eq.equilibrate(mix, org, aq, memo, aqueousRead || traced);
     let trace: ContactTrace | null = null;
-    if (this.tracing || this.onContact) trace = traceContact(this, mix, org, aq, ctx);
-    const out = { org, aq, trace };
+    if (traced) trace = traceContact(this, mix, org, aq, ctx);
+    // Untraced, the caller reads the two layers at once: one outcome object serves every contact.
+    const out = traced ? { org, aq, trace } : this.untracedOutcome;
+    out.org = org;
+    out.aq = aq;
     if (trace) this.contacts.push(trace);
     this.onContact?.(ctx, out);
     return out;
