@@ -45,6 +45,8 @@ export class RegistrationRejected extends ValidationError {
 
 /** Rows per insert, with a turn of the event loop between inserts (lib/workers/next-turn.ts). */
 const INSERT_CHUNK = 100;
+/** Structures per duplicate lookup, with a turn of the event loop between lookups. */
+const LOOKUP_CHUNK = 250;
 /** Records read per engine task: about a second of a thread for ordinary molecules. */
 const READ_SLICE = 100;
 
@@ -112,9 +114,11 @@ async function readOffThread(input: RegisterCompounds): Promise<ReadRecordsResul
 async function existingDuplicates(db: Db, groupId: string, candidates: CandidateRecord[]) {
   const ids = new Map<string, { id: string; name: string }>();
   const smiles = candidates.map((c) => c.structure.canonicalSmiles);
-  for (let i = 0; i < smiles.length; i += 1000) {
+  // A few hundred values per query: a thousand-value list took over a second of the event loop on PGlite (the query
+  // is compiled and run within one turn).
+  for (let i = 0; i < smiles.length; i += LOOKUP_CHUNK) {
     const found = await db.compound.findMany({
-      where: { groupId, canonicalSmiles: { in: smiles.slice(i, i + 1000) } },
+      where: { groupId, canonicalSmiles: { in: smiles.slice(i, i + LOOKUP_CHUNK) } },
       select: { id: true, name: true, canonicalSmiles: true },
     });
     for (const f of found) ids.set(f.canonicalSmiles, { id: f.id, name: f.name });

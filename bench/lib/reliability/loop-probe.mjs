@@ -8,11 +8,13 @@
 //   {"at": epoch ms, "kind": "turn", "ms": lateness, "activeMs": busy}   {"at": epoch ms, "kind": "second", "max": ms, "p99": ms}
 import { appendFileSync } from "node:fs";
 import { monitorEventLoopDelay, performance } from "node:perf_hooks";
+import { isMainThread } from "node:worker_threads";
 
 const file = process.env.LAYERWISE_LOOP_FILE;
 const minMs = Number(process.env.LAYERWISE_LOOP_MIN_MS ?? 50);
 
-if (file) {
+// `--import` runs in every thread of the process, the engine threads too; only the main thread answers requests.
+if (file && isMainThread) {
   const write = (line) => appendFileSync(file, `${JSON.stringify(line)}\n`);
   const period = 20;
   let expected = performance.now() + period;
