@@ -1,14 +1,14 @@
 import { type ReactNode } from "react";
 import { AppShell } from "@/components/shell/app-shell";
 import { Providers } from "@/components/shell/providers";
-import { requireMember, type MemberContext } from "@/lib/authz";
+import { requireMember, signedInGroups, type MemberContext } from "@/lib/authz";
 import { pageFailure } from "@/lib/authz/page";
 import { UnauthenticatedError } from "@/lib/errors";
-import { listMyGroups } from "@/lib/groups/queries";
 
 /**
  * The signed-in frame. It only decides what the frame shows: every page below runs its own guard, because a
- * layout is not re-rendered on every navigation and so cannot protect the pages inside it.
+ * layout is not re-rendered on every navigation and so cannot protect the pages inside it. The frame's membership and
+ * the group switcher's list come from the one account read the page's own guard uses in the same request.
  */
 export default async function SignedInLayout({ children }: { children: ReactNode }) {
   let member: MemberContext;
@@ -19,7 +19,7 @@ export default async function SignedInLayout({ children }: { children: ReactNode
     if (error instanceof UnauthenticatedError) return <>{children}</>;
     pageFailure(error);
   }
-  const groups = await listMyGroups(member.user.id);
+  const groups = await signedInGroups();
   return (
     <Providers>
       <AppShell member={member} groups={groups}>

@@ -1,7 +1,7 @@
 // THE authorization guard. Every page loader, server action and route handler gets its MemberContext from here
 // (through requireMember in ./index.ts); nothing else decides who may see or change a group's data.
 // This file does not touch the request, so integration tests can call resolveMember with explicit credentials.
-import { getDb } from "@/lib/db/client";
+import { getDb, type Db } from "@/lib/db/client";
 import { ForbiddenError, NoMembershipError, NotFoundError, UnauthenticatedError } from "@/lib/errors";
 import { hashApiToken, looksLikeApiToken } from "@/lib/authz/api-token-format";
 import { assertRoleCan, roleCan, type Permission, type RoleName } from "@/lib/authz/permissions";
@@ -65,41 +65,77 @@ async function membershipForToken(token: string, options: GuardOptions) {
 
 export const SESSION_ENDED_MESSAGE = "Your session has ended (signed out, password changed or removed from a group). Sign in again.";
 
+/** What the guard and the signed-in frame need to know about a session's user, read in one statement. */
+export interface SessionAccount {
+  user: { id: string; email: string; name: string; sessionVersion: number };
+  /** The user's memberships with their groups, ordered by group name (the group switcher's order). */
+  memberships: { role: string; group: { id: string; name: string; slug: string }; joinedRank: number }[];
+}
+
+interface AccountRow {
+  userId: string;
+  email: string;
+  userName: string;
+  sessionVersion: number;
+  role: string | null;
+  groupId: string | null;
+  groupName: string | null;
+  groupSlug: string | null;
+  joinedRank: number | null;
+}
+
+/**
+ * The user, their session version and every membership with its group, in one statement (Prisma would send one
+ * query per relation: user, memberships, groups). Null when the user no longer exists.
+ */
+export async function loadSessionAccount(userId: string, db?: Db): Promise<SessionAccount | null> {
+  const client = db ?? (await getDb());
+  const rows = await client.$queryRaw<AccountRow[]>`
+    SELECT u.id AS "userId", u.email, u.name AS "userName", u."sessionVersion",
+           m.role::text AS role, g.id AS "groupId", g.name AS "groupName", g.slug AS "groupSlug",
+           (CASE WHEN m.id IS NULL THEN NULL ELSE row_number() OVER (ORDER BY m."createdAt", m.id) END)::int AS "joinedRank"
+      FROM "User" u
+      LEFT JOIN "Membership" m ON m."userId" = u.id
+      LEFT JOIN "Group" g ON g.id = m."groupId"
+     WHERE u.id = ${userId}
+     ORDER BY g.name, g.id`;
+  const first = rows[0];
+  if (!first) return null;
+  return {
+    user: { id: first.userId, email: first.email, name: first.userName, sessionVersion: first.sessionVersion },
+    memberships: rows.flatMap((r) => r.groupId !== null && r.role !== null && r.joinedRank !== null
+      ? [{ role: r.role, group: { id: r.groupId, name: r.groupName ?? "", slug: r.groupSlug ?? "" }, joinedRank: r.joinedRank }]
+      : []),
+  };
+}
+
+/** Loads a session's account; the app passes one that reads once per request (./index.ts). */
+export type AccountLoader = (userId: string) => Promise<SessionAccount | null>;
+
 /**
  * Refuses a session token minted before the user's session version was last raised (sign-out, password change,
  * removal from a group): the JWT itself cannot be recalled, so the guard compares it with the database each time.
  */
-export async function assertSessionCurrent(userId: string, sessionVersion: number | undefined): Promise<void> {
-  const db = await getDb();
-  const user = await db.user.findUnique({ where: { id: userId }, select: { sessionVersion: true } });
-  if (!user) throw new UnauthenticatedError("Your account no longer exists. Sign in again.");
-  if (user.sessionVersion !== (sessionVersion ?? 0)) throw new UnauthenticatedError(SESSION_ENDED_MESSAGE);
+export function assertSessionCurrent(account: SessionAccount | null, sessionVersion: number | undefined): SessionAccount {
+  if (!account) throw new UnauthenticatedError("Your account no longer exists. Sign in again.");
+  if (account.user.sessionVersion !== (sessionVersion ?? 0)) throw new UnauthenticatedError(SESSION_ENDED_MESSAGE);
+  return account;
 }
 
-async function membershipForSession(userId: string, activeGroupId: string | null, sessionVersion: number | undefined, options: GuardOptions) {
-  await assertSessionCurrent(userId, sessionVersion);
-  const db = await getDb();
+function membershipForSession(account: SessionAccount, activeGroupId: string | null, options: GuardOptions) {
+  const user = { id: account.user.id, email: account.user.email, name: account.user.name };
+  const pick = (m: SessionAccount["memberships"][number] | undefined) => (m ? { role: m.role, group: m.group, user } : undefined);
   if (options.group) {
-    const named = await db.membership.findFirst({
-      where: { userId, group: { OR: [{ id: options.group }, { slug: options.group }] } },
-      select: memberSelect,
-    });
+    const named = pick(account.memberships.find((m) => m.group.id === options.group || m.group.slug === options.group));
     if (!named) throw new NotFoundError("group");
     return named;
   }
-  if (activeGroupId) {
-    const active = await db.membership.findFirst({ where: { userId, groupId: activeGroupId }, select: memberSelect });
-    if (active) return active;
-  }
+  const active = activeGroupId ? pick(account.memberships.find((m) => m.group.id === activeGroupId)) : undefined;
+  if (active) return active;
   // No active group yet, or the user has since left it: fall back to the group joined first.
-  const first = await db.membership.findFirst({
-    where: { userId },
-    orderBy: [{ createdAt: "asc" }, { id: "asc" }],
-    select: memberSelect,
-  });
+  const first = pick([...account.memberships].sort((a, b) => a.joinedRank - b.joinedRank)[0]);
   if (first) return first;
-  const exists = await db.user.findUnique({ where: { id: userId }, select: { id: true } });
-  throw exists ? new NoMembershipError() : new UnauthenticatedError("Your account no longer exists. Sign in again.");
+  throw new NoMembershipError();
 }
 
 /**
@@ -111,6 +147,7 @@ export async function resolveMember(
   credentials: Credentials | null,
   permission: Permission,
   options: GuardOptions = {},
+  loadAccount: AccountLoader = loadSessionAccount,
 ): Promise<MemberContext> {
   if (!credentials) throw new UnauthenticatedError();
   if (credentials.kind === "token" && options.sessionOnly) {
@@ -119,7 +156,7 @@ export async function resolveMember(
   const membership =
     credentials.kind === "token"
       ? await membershipForToken(credentials.token, options)
-      : await membershipForSession(credentials.userId, credentials.activeGroupId, credentials.sessionVersion, options);
+      : membershipForSession(assertSessionCurrent(await loadAccount(credentials.userId), credentials.sessionVersion), credentials.activeGroupId, options);
   assertRoleCan(membership.role, permission);
   const context: MemberContext = { user: membership.user, group: membership.group, role: membership.role, via: credentials.kind };
   assertMaySeePerson(context, options.person);

@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
+import { requestGuard } from "@/lib/authz";
 import { found, resolveMember } from "@/lib/authz/guard";
 import { newApiToken } from "@/lib/authz/api-token-format";
 import { PERMISSIONS, assertRoleCan, permissionsOf, roleCan, type Permission, type RoleName } from "@/lib/authz/permissions";
@@ -84,6 +85,24 @@ describeWithAppDatabase("the guard", (t) => {
     await expect(resolveMember(sessionOf(people.both, groupA.id), "data:write")).rejects.toBeInstanceOf(ForbiddenError);
     // A session naming a group the user is not in never opens that group.
     await expect(resolveMember(sessionOf(people.lead, groupB.id), "data:read")).resolves.toMatchObject({ group: { id: groupA.id } });
+  });
+
+  it("falls back to the group joined first, and lists the user's groups by name for the switcher", async () => {
+    // Joined Zymase Lab first, then Aldol and Birch: the join order is not the name order.
+    const zymase = await makeGroup(t.db, "Zymase Lab");
+    const { user } = await makeMember(t.db, zymase.id, "viewer", "Joined Late Elsewhere");
+    await t.db.membership.create({ data: { groupId: groupA.id, userId: user.id, role: "lead", createdAt: new Date(Date.now() + 1000) } });
+    await t.db.membership.create({ data: { groupId: groupB.id, userId: user.id, role: "member", createdAt: new Date(Date.now() + 2000) } });
+    await expect(resolveMember(sessionOf(user.id, null), "data:read")).resolves.toMatchObject({ group: { id: zymase.id }, role: "viewer" });
+    await expect(resolveMember(sessionOf(user.id, null), "data:read", { group: groupB.slug })).resolves.toMatchObject({ group: { id: groupB.id }, role: "member" });
+    const guard = requestGuard(() => Promise.resolve(sessionOf(user.id, groupA.id)), () => Promise.resolve(t.db));
+    await expect(guard.requireMember("members:manage")).resolves.toMatchObject({ group: { id: groupA.id }, role: "lead" });
+    expect(await guard.signedInGroups()).toEqual([
+      { id: groupA.id, name: "Aldol Lab", slug: groupA.slug, role: "lead" },
+      { id: groupB.id, name: "Birch Lab", slug: groupB.slug, role: "member" },
+      { id: zymase.id, name: "Zymase Lab", slug: zymase.slug, role: "viewer" },
+    ]);
+    await expect(requestGuard(() => Promise.resolve(sessionOf(people.outsider)), () => Promise.resolve(t.db)).signedInGroups()).resolves.toEqual([]);
   });
 
   it("refuses nobody, a deleted account, and someone in no group", async () => {

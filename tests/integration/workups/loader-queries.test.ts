@@ -1,9 +1,17 @@
 // The read paths behind the workup list, workup page and review page send a fixed number of SQL statements however
 // many workups the group holds (no query per row), and the workup page does not look its workup up more than once.
-// Counted on a real in-memory PGlite: every statement Prisma sends runs.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+// A whole page request (the signed-in frame's guard and group switcher, the page's own guard, the page's loaders) is
+// held to its measured statement count, so a rise fails here. Counted on a real in-memory PGlite: every statement
+// Prisma sends runs.
+import { createRequire } from "node:module";
+import path from "node:path";
+import * as React from "react";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { memberNames } from "@/app/(app)/workups/_lib/editor-data";
 import { compoundChoices, flaggedWorkups } from "@/app/(app)/workups/_lib/list-data";
+import { listAttachments } from "@/lib/attachments/service";
+import { requestGuard, type RequestGuard } from "@/lib/authz";
+import { jobsStatus } from "@/lib/jobs/status";
 import { loadReview } from "@/lib/review/queries";
 import { listVersions } from "@/lib/workups/history";
 import { groupLibrary } from "@/lib/workups/library";
@@ -11,7 +19,51 @@ import { reportOutcome } from "@/lib/workups/outcome";
 import { getWorkupDetail, listWorkups } from "@/lib/workups/queries";
 import { createWorkup, updateWorkup } from "@/lib/workups/service";
 import { createCountingDb, type CountingDb } from "@/tests/integration/helpers/counting-db";
-import { exampleSpec, header, makeLab, type Lab } from "./fixtures";
+import { completeIntervals, exampleSpec, header, makeLab, type Lab } from "./fixtures";
+
+// Pages are React server components: "react" resolves to React's server build there (the react-server condition),
+// whose cache() is what makes the guard read once per request. The same build here.
+vi.mock("react", () => createRequire(import.meta.url)(path.resolve("node_modules", "react", "react.react-server.js")) as Record<string, unknown>);
+
+interface ServerDispatcher { getCacheForType: <T>(create: () => T) => T; cacheSignal: () => null; getOwner: () => null }
+
+/**
+ * Runs `fn` as one server request: React's server renderer gives every request a fresh cache that all cache() calls
+ * inside it share, through the dispatcher on its server internals; this installs such a dispatcher for the call.
+ */
+async function inOneRequest<T>(fn: () => Promise<T>): Promise<T> {
+  const internals = (React as unknown as { __SERVER_INTERNALS_DO_NOT_USE_OR_WARN_USERS_THEY_CANNOT_UPGRADE: { A: ServerDispatcher | null } })
+    .__SERVER_INTERNALS_DO_NOT_USE_OR_WARN_USERS_THEY_CANNOT_UPGRADE;
+  const caches = new Map<unknown, unknown>();
+  const dispatcher: ServerDispatcher = {
+    getCacheForType: <C>(create: () => C): C => {
+      if (!caches.has(create)) caches.set(create, create());
+      return caches.get(create) as C;
+    },
+    cacheSignal: () => null,
+    getOwner: () => null,
+  };
+  const previous = internals.A;
+  internals.A = dispatcher;
+  try {
+    return await fn();
+  } finally {
+    internals.A = previous;
+  }
+}
+
+/** What every signed-in page does before its loaders: the frame (app/(app)/layout.tsx), then the page's own guard. */
+async function frameAndGuard(guard: RequestGuard) {
+  await guard.requireMember("data:read", { sessionOnly: true });
+  await guard.signedInGroups();
+  return guard.requireMember("data:read", { sessionOnly: true });
+}
+
+/**
+ * Statements per page request on a warm instance (library cached), the signed-in frame included. Lower them when a
+ * change sends fewer; a rise fails here.
+ */
+const PAGE_STATEMENTS = { list: 9, detail: 15, review: 7 };
 
 /** Intervals are not looked at here: a few draws keep the set-up quick. */
 const QUICK = { draws: 20 };
@@ -40,6 +92,8 @@ describe("statements per page load", () => {
   }
 
   const viewer = () => ({ groupId: lab.groupId, userId: lab.lead.userId, isLead: true });
+  /** The app's guard (lib/authz/index.ts) over the lead's session and the counted database. */
+  let guard: RequestGuard;
   const loaders = {
     list: () => Promise.all([
       listWorkups(c.db, lab.groupId, {}), flaggedWorkups(c.db, lab.groupId), compoundChoices(c.db, lab.groupId), groupLibrary(c.db, lab.groupId),
@@ -50,19 +104,35 @@ describe("statements per page load", () => {
     ]),
     review: () => loadReview(c.db, viewer(), {}),
   };
+  /** Whole page requests as app/(app)/workups/page.tsx, workups/[id]/page.tsx and review/page.tsx make them. */
+  const pages = {
+    list: () => inOneRequest(async () => {
+      await frameAndGuard(guard);
+      return loaders.list();
+    }),
+    detail: (id: string) => inOneRequest(async () => {
+      await frameAndGuard(guard);
+      return Promise.all([loaders.detail(id), listAttachments(c.db, lab.groupId, id)]);
+    }),
+    review: () => inOneRequest(async () => {
+      await frameAndGuard(guard);
+      return Promise.all([loaders.review(), jobsStatus(c.db, lab.groupId)]);
+    }),
+  };
 
-  async function counts(): Promise<Record<keyof typeof loaders, number>> {
+  async function counts(): Promise<Record<keyof typeof pages, number>> {
     await groupLibrary(c.db, lab.groupId); // the instance's copy of the library is warm on a running server
     return {
-      list: (await c.count(loaders.list)).statements.length,
-      detail: (await c.count(() => loaders.detail(ids[0]!))).statements.length,
-      review: (await c.count(loaders.review)).statements.length,
+      list: (await c.count(pages.list)).statements.length,
+      detail: (await c.count(() => pages.detail(ids[0]!))).statements.length,
+      review: (await c.count(pages.review)).statements.length,
     };
   }
 
   beforeAll(async () => {
     c = await createCountingDb();
     lab = await makeLab(c.db, "Counting Lab");
+    guard = requestGuard(() => Promise.resolve({ kind: "session", userId: lab.lead.userId, activeGroupId: lab.groupId, sessionVersion: 0 }), () => Promise.resolve(c.db));
   });
   afterAll(async () => {
     await c?.dispose();
@@ -72,11 +142,24 @@ describe("statements per page load", () => {
     await addWorkups(2);
     const few = await counts();
     await addWorkups(6);
+    await completeIntervals(c.db);
     const many = await counts();
     expect(many).toEqual(few);
     expect((await c.count(loaders.list)).result[0].rows).toHaveLength(8);
     expect((await c.count(loaders.review)).result.rows).toHaveLength(8);
   }, 240_000);
+
+  it("holds each page request to its measured statements: the frame and the page's guard read the account once", async () => {
+    // The signed-in frame (membership, group switcher) and the page's guard: one statement for the whole request
+    // (user, session version, memberships with their groups), where the frame and guard once sent nine.
+    const frame = await c.count(() => inOneRequest(() => frameAndGuard(guard)));
+    expect(frame.result).toMatchObject({ role: "lead", group: { id: lab.groupId }, user: { id: lab.lead.userId } });
+    expect(frame.statements).toHaveLength(1);
+    // Nothing is kept between requests: the next one reads again (a removal from the group shows at once).
+    expect((await c.count(() => inOneRequest(() => frameAndGuard(guard)))).statements).toHaveLength(1);
+    // Per page: that statement and the page's loaders (measured; see bench/results/load-summary.md).
+    expect(await counts()).toEqual(PAGE_STATEMENTS);
+  });
 
   it("looks the workup up once on its page", async () => {
     const { statements } = await c.count(() => loaders.detail(ids[1]!));
