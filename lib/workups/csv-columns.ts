@@ -17,6 +17,7 @@ export const CSV_COLUMNS: readonly CsvColumn[] = [
   { name: "chemist_email", imported: true, doc: "optional; must be a member of the importing group" },
   { name: "chemist_name", imported: false, doc: "export only" },
   { name: "notebook_ref", imported: true, doc: "optional" },
+  { name: "notebook_url", imported: true, doc: "optional, the http(s) address of the electronic notebook entry" },
   { name: "scale_mmol", imported: true, doc: "optional, mmol of the limiting reagent" },
   { name: "expected_product_mmol", imported: true, doc: "optional, theoretical product" },
   { name: "assayed_product_mmol", imported: true, doc: "optional, product assayed before the workup" },

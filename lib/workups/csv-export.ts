@@ -12,7 +12,7 @@ import { workupListFilterSchema } from "./schemas";
 const BATCH = 500;
 
 const exportSelect = {
-  id: true, title: true, performedOn: true, chemistId: true, notebookRef: true, scaleMmol: true, expectedProductMmol: true,
+  id: true, title: true, performedOn: true, chemistId: true, notebookRef: true, notebookUrl: true, scaleMmol: true, expectedProductMmol: true,
   assayedProductMmol: true, version: true, status: true, flagged: true, deviationPct: true, solventKeys: true, spec: true,
   outcome: { select: { isolatedMassMg: true, purityPct: true, purityMethod: true, notes: true, recoveryPct: true } },
   predictions: {
@@ -30,7 +30,7 @@ function cells(w: ExportRecord, people: Map<string, { name: string; email: strin
   const chemist = w.chemistId ? people.get(w.chemistId) : undefined;
   return {
     id: w.id, title: w.title, performed_on: dayOf(w.performedOn), chemist_email: chemist?.email, chemist_name: chemist?.name,
-    notebook_ref: w.notebookRef, scale_mmol: w.scaleMmol, expected_product_mmol: w.expectedProductMmol, assayed_product_mmol: w.assayedProductMmol,
+    notebook_ref: w.notebookRef, notebook_url: w.notebookUrl, scale_mmol: w.scaleMmol, expected_product_mmol: w.expectedProductMmol, assayed_product_mmol: w.assayedProductMmol,
     isolated_mass_mg: w.outcome?.isolatedMassMg, purity_pct: w.outcome?.purityPct, purity_method: w.outcome?.purityMethod,
     outcome_notes: w.outcome?.notes || null, version: w.version, status: w.status, flagged: w.flagged,
     reported_recovery_pct: w.outcome?.recoveryPct, predicted_recovery_pct: pct(p?.productRecovery), predicted_low_pct: pct(p?.recoveryLow),

@@ -31,7 +31,7 @@ export interface ReadRow {
 }
 
 const COLUMN_OF_HEADER: Record<string, string> = {
-  title: "title", performedOn: "performed_on", chemistId: "chemist_email", notebookRef: "notebook_ref",
+  title: "title", performedOn: "performed_on", chemistId: "chemist_email", notebookRef: "notebook_ref", notebookUrl: "notebook_url",
   scaleMmol: "scale_mmol", expectedProductMmol: "expected_product_mmol", assayedProductMmol: "assayed_product_mmol",
 };
 const COLUMN_OF_OUTCOME: Record<string, string> = {
@@ -91,6 +91,7 @@ export function readRow(cells: Record<string, string>, context: RowContext): Rea
   const { spec, links } = readSpec(cells, context, fail);
   const header = {
     title: cells["title"] ?? "", performedOn: cells["performed_on"] ?? "", chemistId, notebookRef: cells["notebook_ref"] ?? "",
+    notebookUrl: cells["notebook_url"] ?? "",
     scaleMmol: numeric(cells["scale_mmol"]), expectedProductMmol: numeric(cells["expected_product_mmol"]),
     assayedProductMmol: numeric(cells["assayed_product_mmol"]),
   };

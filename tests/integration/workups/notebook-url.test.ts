@@ -2,6 +2,9 @@
 // kept in every version snapshot and carried by the group's JSON export and import.
 import { beforeAll, expect, it } from "vitest";
 import { ValidationError } from "@/lib/errors";
+import { parseCsv } from "@/lib/workups/csv";
+import { exportWorkupsCsv } from "@/lib/workups/csv-export";
+import { importWorkupsCsv } from "@/lib/workups/csv-import";
 import { type GroupExport } from "@/lib/workups/export-format";
 import { exportGroup } from "@/lib/workups/group-export";
 import { importGroup } from "@/lib/workups/group-import";
@@ -68,5 +71,26 @@ describeEachDatabase("the notebook entry's address", (t) => {
     const error = await importGroup(t.db, empty.lead, hostile).catch((e: unknown) => e);
     expect((error as ValidationError).fieldErrors["workups.0.notebookUrl"]).toEqual(["Notebook entry address must be a web address starting with http:// or https://"]);
     expect(await t.db.workup.count()).toBe(before);
+  });
+
+  it("is a column of the CSV export, and comes back in through the CSV import; a bad one is refused by column", async () => {
+    let csv = "";
+    for await (const chunk of exportWorkupsCsv(t.db, lab.groupId, { q: header().title })) csv += chunk;
+    const table = parseCsv(csv);
+    expect(table.columns).toContain("notebook_url");
+    expect(table.rows.map((r) => [r.cells["id"], r.cells["notebook_url"]])).toEqual([[id, ENTRY]]);
+
+    const target = await makeLab(t.db, "Perkin Lab");
+    const imported = await importWorkupsCsv(t.db, target.lead, csv, QUICK);
+    expect(imported.ok).toBe(true);
+    if (!imported.ok) return;
+    expect(await t.db.workup.findUniqueOrThrow({ where: { id: imported.created[0]!.id }, select: { notebookUrl: true } })).toEqual({ notebookUrl: ENTRY });
+
+    const before = await footprint(t.db);
+    const hostile = await importWorkupsCsv(t.db, target.lead, csv.replace(ENTRY, "javascript:alert(1)"), QUICK);
+    expect(hostile.ok).toBe(false);
+    if (hostile.ok) return;
+    expect(hostile.errors.map((e) => [e.row, e.column, e.message])).toEqual([[1, "notebook_url", "Notebook entry address must be a web address starting with http:// or https://"]]);
+    expect(await footprint(t.db)).toEqual(before);
   });
 });
