@@ -4,7 +4,7 @@
  * compiled library's solvents (only those the work-up uses). Refilled in place from the work-up's parameters on
  * every run: Monte-Carlo draws change log P, log K and pKa, and the arithmetic is a few dozen operations.
  */
-import { COUNTER_IONS } from "./data/counter-ions";
+import { COUNTER_IONS, type CounterIonKey } from "./data/counter-ions";
 import { type SolventProps } from "./data/solvents";
 import { pairingFactor, pairingSign } from "./ion-pair";
 import { type AbrahamEstimate } from "./abraham";
@@ -39,6 +39,17 @@ export interface CompiledComponents {
   saltCharge: Float64Array;
   saltIons: Float64Array;
   ownPairing: Float64Array;
+  /** 1 for a component with ion-pair extraction constants of its own (schema ionPairLogKex): its charged form
+   * then partitions by them, not by the solvent's class value (equilibrium.ts). */
+  pairConstants: Uint8Array;
+  /** log K_ex with the reference counter-ion (Cl⁻ for cations, Na⁺ for anions) and with the component's own
+   * salt counter-ion, component c and solvent i at [c * nSolvents + i]; NaN where none is known. */
+  pairRef: Float64Array;
+  pairOwn: Float64Array;
+  /** Counter-ions of a weighed salt per parent (0 without one), and log10 of how much better its own ion pairs
+   * than the reference ion (data/counter-ions.ts `pairing`). */
+  saltPerParent: Float64Array;
+  ownPairingLog: Float64Array;
   /** The components list the structural part was filled for, and each component's plan (fillComponents). */
   plannedFor: readonly Component[] | null;
   plans: ComponentPlan[];
@@ -52,6 +63,8 @@ export function allocateComponents(n: number, lib: CompiledLibrary): CompiledCom
     fixedCharge: new Int8Array(n), logK: new Float64Array(n * ns), sigma: new Float64Array(n * ns),
     setschenow: new Float64Array(n), ionOffset: new Float64Array(n), lipophilicCounterIon: new Uint8Array(n),
     pairsAsAnion: new Uint8Array(n), saltCharge: new Float64Array(n), saltIons: new Float64Array(n), ownPairing: new Float64Array(n),
+    pairConstants: new Uint8Array(n), pairRef: new Float64Array(n * ns), pairOwn: new Float64Array(n * ns),
+    saltPerParent: new Float64Array(n), ownPairingLog: new Float64Array(n),
     plannedFor: null, plans: [],
   };
 }
@@ -76,6 +89,11 @@ interface ComponentPlan {
   /** Per compiled solvent: the slot of the component's own log K (−1: none) and the Abraham estimate. */
   ownSlot: Int32Array;
   abraham: Array<AbrahamEstimate | null>;
+  /** Per own extraction constant: its compiled solvent (−1: not in this work-up), whether its counter-ion is
+   * the reference ion (bit 1) or the component's own salt ion (bit 2), and the ion's pairing (log units). */
+  pairSolvent: Int32Array;
+  pairRole: Uint8Array;
+  pairOffset: Float64Array;
 }
 
 function planComponent(c: Component, lib: CompiledLibrary): ComponentPlan {
@@ -101,9 +119,14 @@ function planComponent(c: Component, lib: CompiledLibrary): ComponentPlan {
     ownSlot[i] = ownKeys.indexOf(s.key);
     abraham.push(i > 0 && !s.waterMiscible && (ownSlot[i] as number) < 0 ? componentAbraham(c, s.key) : null);
   }
+  const reference: CounterIonKey = pairingSign(c) === "anion" ? "sodium" : "chloride";
+  const ownIon = c.salt?.counterIon;
   return {
     acidSite, nAcid, hasLogP: c.logP !== undefined, backSlot, backA, backB,
     octanol: componentAbraham(c, "octanol")?.value ?? Number.NaN, anchored: anchorLogP(c) !== undefined, ownSlot, abraham,
+    pairSolvent: Int32Array.from(c.ionPairLogKex, (k) => lib.solventIndex.get(k.solvent) ?? -1),
+    pairRole: Uint8Array.from(c.ionPairLogKex, (k) => (k.counterIon === reference ? 1 : 0) | (k.counterIon === ownIon ? 2 : 0)),
+    pairOffset: Float64Array.from(c.ionPairLogKex, (k) => COUNTER_IONS[k.counterIon].pairing),
   };
 }
 
@@ -167,9 +190,42 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
         : ab ? abrahamLogK(ab, plan.anchored ? p.logP[ci] : undefined)
           : !Number.isNaN(effective) && s.partition ? collanderLogK(effective, s, donor) : logP;
     }
+    if (plan.pairSolvent.length > 0) fillPairConstants(out, ci, plan, p, ns);
   }
   out.keys.length = components.length;
   out.plannedFor = components;
+}
+
+/**
+ * The component's extraction constants per solvent from the parameters: with the reference ion as stated, else
+ * from its own ion's, else from another ion's, less that ion's pairing; with its own salt ion as stated, else the
+ * reference one plus the own ion's pairing (the additivity of ion contributions, data/counter-ions.ts).
+ */
+function fillPairConstants(out: CompiledComponents, ci: number, plan: ComponentPlan, p: WorkupParameters, ns: number): void {
+  const row = ci * ns;
+  const e0 = p.ionPairStart[ci] as number;
+  for (let i = 0; i < ns; i++) { out.pairRef[row + i] = Number.NaN; out.pairOwn[row + i] = Number.NaN; }
+  for (let j = 0; j < plan.pairSolvent.length; j++) {
+    const si = plan.pairSolvent[j] as number;
+    if (si < 0) continue;
+    const role = plan.pairRole[j] as number;
+    const v = p.ionPairLogKex[e0 + j] as number;
+    if ((role & 1) !== 0) out.pairRef[row + si] = v;
+    if ((role & 2) !== 0) out.pairOwn[row + si] = v;
+  }
+  const ownLog = out.ownPairingLog[ci] as number;
+  const salted = (out.saltPerParent[ci] as number) > 0;
+  for (let i = 1; i < ns; i++) {
+    let ref = out.pairRef[row + i] as number;
+    let own = out.pairOwn[row + i] as number;
+    if (Number.isNaN(ref) && !Number.isNaN(own)) ref = own - ownLog;
+    for (let j = 0; j < plan.pairSolvent.length && Number.isNaN(ref); j++) {
+      if (plan.pairSolvent[j] === i && plan.pairRole[j] === 0) ref = (p.ionPairLogKex[e0 + j] as number) - (plan.pairOffset[j] as number);
+    }
+    if (Number.isNaN(own) && salted) own = ref + ownLog;
+    out.pairRef[row + i] = ref;
+    out.pairOwn[row + i] = own;
+  }
 }
 
 /**
@@ -179,13 +235,18 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
  * ion pairs with the component beyond what the reference ion of its sign would (pairing factor).
  */
 function fillSalt(out: CompiledComponents, ci: number, c: Component): void {
+  out.pairConstants[ci] = c.ionPairLogKex.length > 0 ? 1 : 0;
   if (!c.salt) {
     out.saltCharge[ci] = 0;
     out.saltIons[ci] = 0;
     out.ownPairing[ci] = 0;
+    out.saltPerParent[ci] = 0;
+    out.ownPairingLog[ci] = 0;
     return;
   }
   const n = c.salt.perParent;
+  out.saltPerParent[ci] = n;
+  out.ownPairingLog[ci] = COUNTER_IONS[c.salt.counterIon].pairing;
   const fixed = c.fixedCharge !== 0;
   out.saltCharge[ci] = fixed ? 0 : COUNTER_IONS[c.salt.counterIon].charge * n;
   out.saltIons[ci] = fixed ? 0 : n;

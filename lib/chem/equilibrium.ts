@@ -540,6 +540,10 @@ export class Equilibrator implements SlopedChargeBalance {
       const kNeutral = salting === 0 ? kUnsalted : kUnsalted * Math.exp(salting * Math.LN10);
       this.kNeutral[c] = kNeutral;
       let ionFactor: number;
+      if (Number.isNaN(own) && comps.pairConstants[c] === 1) {
+        this.kIon[c] = unpaired ? 0 : this.pairedIonRatio(c);
+        continue;
+      }
       if (!Number.isNaN(own)) ionFactor = this.ownIonFactor[c] as number;
       else if (comps.lipophilicCounterIon[c] === 1) ionFactor = this.tenTo(dLegacy);
       else {
@@ -549,6 +553,53 @@ export class Equilibrator implements SlopedChargeBalance {
       }
       this.kIon[c] = kUnsalted * ionFactor;
     }
+  }
+
+  /**
+   * Distribution ratio of the charged form of component c from its own extraction constants (components.ts),
+   * the solvent's class value standing in for a solvent it has none for; mixed solvents by the log-linear rule.
+   * With K_ref and K_own the constants with the water's reference counter-ions (pool P, mol/L) and with its own
+   * salt ion, D = K_ref·P + K_own·[X⁻]. A permanent ion brings its own counter-ion into the water with it (not in
+   * the strong-ion pool), and what pairs into the organic layer takes that ion along, so with n mmol of the ion
+   * and p·n of its counter-ion in V_aq and V_org mL the free ion q and free counter-ion x (mol/L) solve
+   *   n = q·V_aq + q·V_org·(K_own·x + K_ref·P),   p·n = x·(V_aq + K_own·q·V_org),
+   * a quadratic in q (mass action with depletion: a more concentrated salt extracts a larger share). An acid's or
+   * base's salt ion is already in the pool: D = K_ref·P + (K_own − K_ref)·[X⁻]own.
+   */
+  private pairedIonRatio(c: number): number {
+    const { phases, lib, comps } = this;
+    const ns = lib.solventKeys.length;
+    const imm = phases.immiscibleVolume;
+    const anion = comps.pairsAsAnion[c] === 1;
+    const ownLog = comps.ownPairingLog[c] as number;
+    let logRef = 0, logOwn = 0;
+    for (let i = 1; i < ns; i++) {
+      const v = phases.org[i] as number;
+      if (v <= 0 || lib.miscible[i]) continue;
+      const w = v / imm;
+      const k = comps.logK[c * ns + i] as number;
+      const measured = comps.pairRef[c * ns + i] as number;
+      const ref = Number.isNaN(measured) ? (Number.isNaN(k) ? 0 : k) + ((anion ? this.pairAnion[i] : this.pairCation[i]) as number) : measured;
+      const ownMeasured = comps.pairOwn[c * ns + i] as number;
+      logRef += w * ref;
+      logOwn += w * (Number.isNaN(ownMeasured) ? ref + ownLog : ownMeasured);
+    }
+    const kRef = Math.exp(logRef * Math.LN10);
+    const kOwn = Math.exp(logOwn * Math.LN10);
+    const pool = anion ? this.cationM : this.anionM;
+    const perParent = comps.saltPerParent[c] as number;
+    const n = this.amounts[c] as number;
+    const va = this.va, vo = this.vo;
+    if (!(perParent > 0)) return kRef * pool;
+    if (comps.fixedCharge[c] === 0) return kRef * pool + (kOwn - kRef) * (perParent * n) / va;
+    const m = perParent * n;
+    if (!(n > 0) || !(vo > 0)) return kRef * pool + (kOwn * m) / va;
+    const a = va + vo * kRef * pool;
+    const e = kOwn * vo;
+    const b = a * va + e * (m - n);
+    const root = Math.sqrt(b * b + 4 * a * e * n * va);
+    const q = b >= 0 ? (2 * n * va) / (b + root) : (root - b) / (2 * a * e);
+    return (n - q * va) / (q * vo);
   }
 
   /**

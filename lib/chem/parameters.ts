@@ -1,6 +1,6 @@
 /**
  * The numbers of a work-up that change between predictions of the same procedure: each component's log P, own
- * log K values, pKa values and amount; the starting volumes; each operation's volume, amount, target pH and rinse
+ * log K values, pKa values, ion-pair extraction constants and amount; the starting volumes; each operation's volume, amount, target pH and rinse
  * volume. The simulator reads them from these flat arrays rather than from the input objects, so a Monte-Carlo
  * draw or a bulk re-prediction rewrites numbers in place instead of building a perturbed copy of the input.
  */
@@ -16,6 +16,10 @@ export interface WorkupParameters {
   /** pKa values, component c's in its listed order from pKaStart[c]. */
   pKa: Float64Array;
   pKaStart: Int32Array;
+  /** The components' own ion-pair extraction constants (log K_ex), component c's in listed order from
+   * ionPairStart[c]. */
+  ionPairLogKex: Float64Array;
+  ionPairStart: Int32Array;
   amountMmol: Float64Array;
   mixtureSolventMl: Float64Array;
   mixtureReagentMl: Float64Array;
@@ -35,7 +39,7 @@ const EMPTY_INT = new Int32Array(0);
 
 export function emptyParameters(): WorkupParameters {
   return {
-    logP: EMPTY, logK: EMPTY, logKStart: EMPTY_INT, pKa: EMPTY, pKaStart: EMPTY_INT, amountMmol: EMPTY,
+    logP: EMPTY, logK: EMPTY, logKStart: EMPTY_INT, pKa: EMPTY, pKaStart: EMPTY_INT, ionPairLogKex: EMPTY, ionPairStart: EMPTY_INT, amountMmol: EMPTY,
     mixtureSolventMl: EMPTY, mixtureReagentMl: EMPTY, volumeMl: EMPTY, operationAmountMmol: EMPTY, targetPh: EMPTY, rinseMl: EMPTY,
     ionPairShift: EMPTY,
   };
@@ -44,10 +48,11 @@ export function emptyParameters(): WorkupParameters {
 /** Reads the component parameters (log P, own log K, pKa, amount) of `components` into `out`. */
 export function readComponentParameters(comps: readonly Component[], out: WorkupParameters): void {
   const n = comps.length;
-  let nLogK = 0, nPKa = 0;
+  let nLogK = 0, nPKa = 0, nPair = 0;
   for (const c of comps) {
     for (const key in c.logK) if (Object.hasOwn(c.logK, key)) nLogK++;
     nPKa += c.pKas.length;
+    nPair += c.ionPairLogKex.length;
   }
   out.logP = sized(out.logP, n);
   out.amountMmol = sized(out.amountMmol, n);
@@ -55,18 +60,23 @@ export function readComponentParameters(comps: readonly Component[], out: Workup
   out.pKa = sized(out.pKa, nPKa);
   out.logKStart = sizedInt(out.logKStart, n + 1);
   out.pKaStart = sizedInt(out.pKaStart, n + 1);
-  let k = 0, q = 0;
+  out.ionPairLogKex = sized(out.ionPairLogKex, nPair);
+  out.ionPairStart = sizedInt(out.ionPairStart, n + 1);
+  let k = 0, q = 0, e = 0;
   for (let ci = 0; ci < n; ci++) {
     const c = comps[ci] as Component;
     out.logP[ci] = c.logP ? c.logP.value : Number.NaN;
     out.amountMmol[ci] = c.amountMmol;
     out.logKStart[ci] = k;
     out.pKaStart[ci] = q;
+    out.ionPairStart[ci] = e;
     for (const key in c.logK) if (Object.hasOwn(c.logK, key)) out.logK[k++] = (c.logK[key] as LogValue).value;
     for (const p of c.pKas) out.pKa[q++] = p.value;
+    for (const x of c.ionPairLogKex) out.ionPairLogKex[e++] = x.value;
   }
   out.logKStart[n] = k;
   out.pKaStart[n] = q;
+  out.ionPairStart[n] = e;
 }
 
 /** Reads the parameters of `input` into `out`, reallocating only the arrays whose length changes. `solventKeys`:
@@ -103,6 +113,7 @@ export function readParameters(input: WorkupInput, out: WorkupParameters = empty
 export function copyParameters(p: WorkupParameters): WorkupParameters {
   return {
     logP: p.logP.slice(), logK: p.logK.slice(), logKStart: p.logKStart.slice(), pKa: p.pKa.slice(), pKaStart: p.pKaStart.slice(),
+    ionPairLogKex: p.ionPairLogKex.slice(), ionPairStart: p.ionPairStart.slice(),
     amountMmol: p.amountMmol.slice(), mixtureSolventMl: p.mixtureSolventMl.slice(), mixtureReagentMl: p.mixtureReagentMl.slice(),
     volumeMl: p.volumeMl.slice(), operationAmountMmol: p.operationAmountMmol.slice(), targetPh: p.targetPh.slice(), rinseMl: p.rinseMl.slice(),
     ionPairShift: p.ionPairShift.slice(),
@@ -114,6 +125,7 @@ export function assignParameters(to: WorkupParameters, from: WorkupParameters): 
   to.logP.set(from.logP);
   to.logK.set(from.logK);
   to.pKa.set(from.pKa);
+  to.ionPairLogKex.set(from.ionPairLogKex);
   to.amountMmol.set(from.amountMmol);
   to.mixtureSolventMl.set(from.mixtureSolventMl);
   to.mixtureReagentMl.set(from.mixtureReagentMl);

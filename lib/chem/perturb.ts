@@ -3,7 +3,7 @@
  * sites are found once, and each draw rebuilds only the objects that change (no deep clone, no validation).
  *
  * Standard uncertainties (one standard deviation) when a value carries no `se` of its own:
- *  - log P / log K: estimated 0.7 (the issue's figure; §2.11 gives 0.5–1 for predicted log P), literature 0.2,
+ *  - log P / log K, and ion-pair extraction constants (log K_ex): estimated 0.7 (the issue's figure; §2.11 gives 0.5–1 for predicted log P), literature 0.2,
  *    measured 0.1, group 0.3 (a pooled group value normally states its own se);
  *  - pKa: estimated 0.7, literature 0.1, measured 0.05, group 0.2 (§2.2: ±0.5 for predicted values;
  *    the rest from memory);
@@ -52,6 +52,8 @@ interface ComponentPlan {
   logP: number;
   logK: Array<[string, number]>;
   pKa: number[];
+  /** The component's extraction constants for solvents the work-up uses: their index and sd. */
+  ionPair: Array<[number, number]>;
 }
 
 interface OperationPlan {
@@ -61,7 +63,7 @@ interface OperationPlan {
   rinse: number;
 }
 
-type ParameterField = "logP" | "logK" | "pKa" | "mixtureSolventMl" | "mixtureReagentMl" | "volumeMl" | "operationAmountMmol" | "targetPh" | "rinseMl" | "ionPairShift";
+type ParameterField = "logP" | "logK" | "pKa" | "ionPairLogKex" | "mixtureSolventMl" | "mixtureReagentMl" | "volumeMl" | "operationAmountMmol" | "targetPh" | "rinseMl" | "ionPairShift";
 
 /** Solvents whose ion-pair constants are uncertain in this work-up, with their index in the library's solvent
  * order and standard uncertainty: water-immiscible ones, when some component can carry a charge. */
@@ -87,13 +89,15 @@ export interface PerturbationPlan {
   parameterDrawer(nominal: WorkupParameters, out: WorkupParameters): (z: Float64Array) => void;
 }
 
-function componentPlan(c: Component, d: UncertaintyDefaults, extraLogSd: number): ComponentPlan {
+function componentPlan(c: Component, d: UncertaintyDefaults, extraLogSd: number, used: ReadonlySet<string>): ComponentPlan {
   const hasOwnLogK = Object.keys(c.logK).length > 0;
   return {
     // The solvent translation of an estimate from log P adds its own error; a solvent-specific value does not.
     logP: c.logP ? Math.hypot(c.logP.se ?? d.logP[c.logP.provenance], hasOwnLogK ? 0 : extraLogSd) : 0,
     logK: Object.entries(c.logK).map(([solvent, v]) => [solvent, v.se ?? d.logP[v.provenance]]),
     pKa: c.pKas.map((p) => p.se ?? d.pKa[p.provenance]),
+    // An extraction constant is a log partition ratio: the log P figures by provenance when it states no se.
+    ionPair: c.ionPairLogKex.flatMap((k, j): Array<[number, number]> => (used.has(k.solvent) ? [[j, k.se ?? d.logP[k.provenance]]] : [])),
   };
 }
 
@@ -131,12 +135,15 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
   };
   // The translation error per component: the Abraham model's validated figure where it applies (partition.ts).
   const immiscible = immiscibleSolvents(input);
-  const comps = input.components.map((c) => componentPlan(c, defaults, componentTranslationSd(c, immiscible, extraLogSd)));
+  const used = new Set(engineSolventKeys(input));
+  const comps = input.components.map((c) => componentPlan(c, defaults, componentTranslationSd(c, immiscible, extraLogSd), used));
   let logKAt = 0, pKaAt = 0;
   comps.forEach((p, i) => {
     if (p.logP > 0) site(`components.${i}.logP`, p.logP, "log", "logP", i);
     for (const [solvent, sd] of p.logK) site(`components.${i}.logK.${solvent}`, sd, "log", "logK", logKAt++);
     p.pKa.forEach((sd, j) => site(`components.${i}.pKas.${j}`, sd, "pKa", "pKa", pKaAt++));
+    const pairStart = input.components.slice(0, i).reduce((n, c) => n + c.ionPairLogKex.length, 0);
+    for (const [j, sd] of p.ionPair) site(`components.${i}.ionPairLogKex.${j}`, sd, "log", "ionPairLogKex", pairStart + j);
   });
   input.mixture.solvents.forEach((_, i) => site(`mixture.solvents.${i}.volumeMl`, defaults.volumeRelative, "relative", "mixtureSolventMl", i));
   input.mixture.reagents.forEach((_, i) => site(`mixture.reagents.${i}.volumeMl`, defaults.volumeRelative, "relative", "mixtureReagentMl", i));
@@ -171,7 +178,15 @@ export function planPerturbation(input: WorkupInput, defaults: UncertaintyDefaul
           }
         }
         const pKas = p.pKa.length > 0 ? c.pKas.map((pk, j) => ({ ...pk, value: pk.value + (p.pKa[j] ?? 0) * next() })) : c.pKas;
-        return { ...c, logP, logK, pKas };
+        let ionPairLogKex = c.ionPairLogKex;
+        if (p.ionPair.length > 0) {
+          ionPairLogKex = [...c.ionPairLogKex];
+          for (const [j, sd] of p.ionPair) {
+            const k = c.ionPairLogKex[j];
+            if (k) ionPairLogKex[j] = { ...k, value: k.value + sd * next() };
+          }
+        }
+        return { ...c, logP, logK, pKas, ionPairLogKex };
       });
       const mixture = {
         solvents: input.mixture.solvents.map((s) => ({ ...s, volumeMl: scale(s.volumeMl, defaults.volumeRelative, next()) })),

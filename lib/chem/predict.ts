@@ -104,7 +104,10 @@ export function checkLibraryReferences(w: WorkupInput, lib: Library): Validation
       const near = suggestKey(key, solventKeys);
       issues.push({ path: `components.${i}.logK.${key}`, message: `log K for unknown solvent '${key}'${near ? `; did you mean '${near}'?` : ""}` });
     }
-    if (!c.logP && Object.keys(c.logK).length === 0) issues.push({ path: `components.${i}.logP`, message: `component '${c.key}' needs logP or a logK for a solvent` });
+    c.ionPairLogKex.forEach((k, j) => solvent(`components.${i}.ionPairLogKex.${j}.solvent`, k.solvent, true));
+    // A permanent ion with its own extraction constants has no neutral form for a log P to describe.
+    const pairedIon = c.fixedCharge !== 0 && c.ionPairLogKex.length > 0;
+    if (!c.logP && Object.keys(c.logK).length === 0 && !pairedIon) issues.push({ path: `components.${i}.logP`, message: `component '${c.key}' needs logP or a logK for a solvent` });
   });
   return issues;
 }

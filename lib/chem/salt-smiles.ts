@@ -66,3 +66,25 @@ export function parentMolarMass(saltMolarMass: number, salt: SaltFromSmiles, fix
   const proton = fixedCharge !== 0 ? 0 : x.charge < 0 ? 1.008 : -1.008;
   return saltMolarMass - salt.perParent * (x.molarMass + proton) - salt.water * WATER_MOLAR_MASS;
 }
+
+/**
+ * The permanent charge a parent SMILES shows without a structure toolkit: +1 for one quaternary nitrogen or
+ * phosphorus written as a bracket atom with no hydrogen ("[N+]", "[n+]", "[P+]": a tetraalkylammonium, an
+ * N-alkylpyridinium, a phosphonium) when no other atom carries a charge; 0 otherwise (a protonated amine
+ * "[NH+]" is a salt of a base, a nitro group carries "[O-]" beside its "[N+]").
+ */
+export function permanentChargeFromSmiles(smiles: string): number {
+  const charged = smiles.match(/\[[^\]]*[+-]\d*\]/g) ?? [];
+  return charged.length === 1 && /^\[(?:N|n|P)\+1?\]$/.test(charged[0]) ? 1 : 0;
+}
+
+/**
+ * Carbons in each chain of a symmetric tetra-n-alkylammonium ion written as a SMILES of unbranched carbon
+ * chains around one "[N+]" (C[N+](C)(C)C, CCCC[N+](CCCC)(CCCC)CCCC, [N+](CC)(CC)(CC)CC), or null.
+ */
+export function tetraalkylammoniumChain(smiles: string): number | null {
+  if (!/^[C()]*\[N\+\][C()]*$/.test(smiles)) return null;
+  const chains = smiles.split(/\[N\+\]|[()]/).filter((x) => x.length > 0);
+  const n = chains[0]?.length ?? 0;
+  return chains.length === 4 && n > 0 && chains.every((x) => x.length === n) ? n : null;
+}

@@ -6,8 +6,10 @@
 import { z } from "zod";
 import { componentAmountSchema, finiteNumber, pHSchema, massSchema, temperatureSchema, volumeSchema } from "./schema-quantities";
 import { operationSchema } from "./schema-operations";
-import { COUNTER_ION_KEYS, saltMolarMass } from "./data/counter-ions";
-import { parentMolarMass, saltFromSmiles } from "./salt-smiles";
+import { COUNTER_ION_KEYS, COUNTER_IONS, saltMolarMass, type CounterIonKey } from "./data/counter-ions";
+import { pairingSign } from "./ion-pair";
+import { TETRAALKYLAMMONIUM_EXTRACTION, type ExtractionConstant } from "./data/ion-pair-constants";
+import { parentMolarMass, permanentChargeFromSmiles, saltFromSmiles, tetraalkylammoniumChain } from "./salt-smiles";
 import { planOptionsSchema } from "./schema-plan";
 import { strictObject } from "./schema-strict";
 import { toMmol } from "./units";
@@ -43,6 +45,21 @@ export const pKaSchema = strictObject({
 
 const descriptor = (name: string, min: number, max: number) =>
   finiteNumber(name).refine((v) => v >= min && v <= max, { error: `${name} must be between ${min} and ${max}` });
+/**
+ * A measured ion-pair extraction constant of the component with a counter-ion into a solvent:
+ *   log K_ex = log([component⁺X⁻]org / ([component⁺]aq·[X⁻]aq)), K_ex in L/mol
+ * (or with a cation for a component that pairs as an anion). It takes the place of the solvent's class value
+ * (ion-pair.ts) for that solvent.
+ */
+export const ionPairConstantSchema = strictObject({
+  solvent: z.string().trim().min(1, { error: "solvent is required" }),
+  counterIon: z.enum(COUNTER_ION_KEYS, { error: () => `counterIon must be one of ${COUNTER_ION_KEYS.join(", ")}` }),
+  value: finiteNumber("log K_ex").refine((v) => v >= -12 && v <= 12, { error: "log K_ex must be between −12 and 12" }),
+  provenance,
+  source: z.string().max(500).optional(),
+  se: standardError.optional(),
+});
+
 export const abrahamDescriptorsSchema = strictObject({
   E: descriptor("E", -2, 6), S: descriptor("S", -1, 10), A: descriptor("A", 0, 3), B: descriptor("B", 0, 6),
   V: descriptor("V", 0.1, 10), L: descriptor("L", -2, 40).optional(),
@@ -66,13 +83,18 @@ export const componentSchema = strictObject({
   /** Partition coefficient for a named solvent (group or literature value); overrides the estimate from log P. */
   logK: z.record(z.string(), logValueSchema).default({}),
   pKas: z.array(pKaSchema).max(12, { error: "at most 12 pKa values" }).default([]),
-  /** Permanent charge of every form (quaternary ammonium +1); paired with an inert counter-ion. */
-  fixedCharge: z.number().int().min(-4).max(4).default(0),
+  /** Permanent charge of every form (quaternary ammonium +1); paired with an inert counter-ion. Default: +1 when
+   * the SMILES shows one quaternary N or P and no other charged atom (salt-smiles.ts), else 0. */
+  fixedCharge: z.number().int().min(-4).max(4).optional(),
   /** Counter-ion of the charged form: lipophilic ions (TFA, OTf, OTs, BF₄, PF₆, I⁻) pair into chlorinated solvents. */
   counterIon: z.enum(["hydrophilic", "lipophilic"]).optional(),
   /** log K_ion − log K_neutral when known, used as is at every counter-ion concentration; default: the
    * ion-pair model (ion-pair.ts). */
   ionLogKOffset: z.number().min(-12).max(2).optional(),
+  /** Measured ion-pair extraction constants (log K_ex for a solvent and a counter-ion), used in place of the
+   * solvent's class value; a symmetric tetra-n-alkylammonium ion recognised from its SMILES gets the published
+   * ones it does not state itself (data/ion-pair-constants.ts). */
+  ionPairLogKex: z.array(ionPairConstantSchema).max(40, { error: "at most 40 ion-pair constants" }).default([]),
   /** Weighed as a salt: `molarMass` is then the parent's (neutral molecule as drawn, or the cation of a
    * quaternary ammonium) and a mass amount converts through the salt's molar mass; the counter-ion enters the
    * aqueous charge balance and the ion-pair extraction (e.g. { counterIon: "chloride" } for an amine
@@ -94,10 +116,13 @@ export const componentSchema = strictObject({
   tags: z.array(z.enum(COMPONENT_TAGS)).default([]),
   waterSoluble: z.boolean().optional(),
   notes: z.string().max(5000).optional(),
-}).transform(({ amount, ...c }) => {
+}).transform(({ amount, fixedCharge: givenCharge, ionPairLogKex: given, ...raw }) => {
+  const drawn = raw.smiles ? saltFromSmiles(raw.smiles) : null;
+  const parentSmiles = drawn?.parentSmiles ?? raw.smiles;
+  const fixedCharge = givenCharge ?? (parentSmiles ? permanentChargeFromSmiles(parentSmiles) : 0);
+  const c = { ...raw, fixedCharge, ionPairLogKex: withPublishedConstants(given, parentSmiles, fixedCharge) };
   if (c.salt) return { ...c, amountMmol: toMmol(amount.value, amount.unit, saltMolarMass(c.molarMass, c.salt.counterIon, c.salt.perParent, c.fixedCharge)) };
   // A salt drawn as a multi-fragment SMILES: molarMass is the whole salt's (as computed from that SMILES).
-  const drawn = c.smiles ? saltFromSmiles(c.smiles) : null;
   if (!drawn) return { ...c, amountMmol: toMmol(amount.value, amount.unit, c.molarMass) };
   return {
     ...c,
@@ -106,6 +131,22 @@ export const componentSchema = strictObject({
     amountMmol: toMmol(amount.value, amount.unit, c.molarMass),
   };
 });
+
+/** The component's own constants, then the published ones of a symmetric tetra-n-alkylammonium ion for the
+ * solvent and counter-ion pairs it does not state. */
+function withPublishedConstants(given: z.output<typeof ionPairConstantSchema>[], parentSmiles: string | undefined, fixedCharge: number): z.output<typeof ionPairConstantSchema>[] {
+  const chain = fixedCharge === 1 && parentSmiles ? tetraalkylammoniumChain(parentSmiles) : null;
+  const table = chain === null ? undefined : TETRAALKYLAMMONIUM_EXTRACTION[chain];
+  if (!table) return given;
+  const out = [...given];
+  for (const [solvent, byIon] of Object.entries(table)) {
+    for (const [counterIon, k] of Object.entries(byIon) as [CounterIonKey, ExtractionConstant][]) {
+      if (given.some((x) => x.solvent === solvent && x.counterIon === counterIon)) continue;
+      out.push({ solvent, counterIon, value: k.logKex, provenance: "literature", source: k.source, se: k.se });
+    }
+  }
+  return out;
+}
 
 const mixtureSchema = strictObject({
   /** Reaction solvents (and water) present at the start of the work-up. */
@@ -156,6 +197,7 @@ export const workupInputSchema = strictObject({
   w.components.forEach((c, i) => {
     if (seen.has(c.key)) ctx.addIssue({ code: "custom", path: ["components", i, "key"], message: `duplicate component key '${c.key}'` });
     seen.add(c.key);
+    checkIonPairConstants(c, i, ctx);
   });
   const saved = new Set<string>();
   w.operations.forEach((op, i) => {
@@ -187,6 +229,24 @@ export const workupInputSchema = strictObject({
     : w.components;
   return { ...w, components, options: o, temperatureC: temperature ?? 20, funnelMl: funnel };
 });
+
+/** A component's own extraction constants: a counter-ion of the opposite sign to its charged form, one value per
+ * solvent and counter-ion. */
+function checkIonPairConstants(c: z.output<typeof componentSchema>, i: number, ctx: z.RefinementCtx): void {
+  const sign = pairingSign(c);
+  const seenPairs = new Set<string>();
+  c.ionPairLogKex.forEach((k, j) => {
+    const path = ["components", i, "ionPairLogKex", j];
+    const ion = COUNTER_IONS[k.counterIon];
+    if ((ion.charge < 0) !== (sign === "cation")) {
+      const wanted = sign === "cation" ? "an anion (chloride, bromide, iodide, …)" : "a cation (sodium, potassium, lithium)";
+      ctx.addIssue({ code: "custom", path: [...path, "counterIon"], message: `${k.counterIon} cannot pair with '${c.key}', whose charged form is ${sign === "cation" ? "a cation" : "an anion"}: give ${wanted}` });
+    }
+    const pair = `${k.solvent}\u0000${k.counterIon}`;
+    if (seenPairs.has(pair)) ctx.addIssue({ code: "custom", path, message: `a second log K_ex for ${k.counterIon} in '${k.solvent}'` });
+    seenPairs.add(pair);
+  });
+}
 
 export type WorkupInputRaw = z.input<typeof workupInputSchema>;
 export type WorkupInput = z.output<typeof workupInputSchema> & {

@@ -61,9 +61,21 @@ function reference(values: number[]): Interval {
   return { p025: percentile(sorted, 0.025), p50: percentile(sorted, 0.5), p975: percentile(sorted, 0.975), mean, sd };
 }
 
+/** Tetrabutylammonium bromide with naphthalene, taken from water into chloroform (its published extraction
+ * constants are uncertain inputs too). */
+const quaternary = workupInputSchema.parse({
+  components: [
+    { key: "tbab", name: "Tetrabutylammonium bromide", role: "reagent", molarMass: 322.37, amount: { value: 2, unit: "mmol" }, smiles: "CCCC[N+](CCCC)(CCCC)CCCC.[Br-]" },
+    { key: "naphthalene", name: "Naphthalene", role: "product", molarMass: 128.17, amount: { value: 5, unit: "mmol" }, logP: { value: 3.34, provenance: "literature" } },
+  ],
+  mixture: { solvents: [{ solvent: "water", volume: { value: 40, unit: "mL" } }] },
+  operations: [{ type: "extract", solvent: "chcl3", volume: { value: 20, unit: "mL" }, portions: 2, keep: "organic" }, { type: "wash", reagent: "brine", volume: { value: 20, unit: "mL" } }],
+});
+
 const cases: Array<[string, WorkupInput]> = [
   ...readdirSync("examples").filter((f) => f.endsWith(".json")).sort().map((f): [string, WorkupInput] => [f, example(f)]),
   ["bench work-up", workupInputSchema.parse(benchWorkup())],
+  ["tetrabutylammonium bromide into chloroform", quaternary],
 ];
 
 describe("Monte-Carlo draw loop against perturbed copies simulated in full", () => {
