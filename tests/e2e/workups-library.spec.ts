@@ -43,3 +43,22 @@ test("a member reads an entry's values and sources but cannot edit or add", asyn
   const response = await page.goto("/library/solvents/new");
   expect(response?.status()).toBe(403);
 });
+
+test("the library's key explains every mark and abbreviated heading in a real table, and each table is named", async ({ page }) => {
+  await signIn(page, PEOPLE.memberA);
+  await page.goto("/library");
+  const key = page.getByRole("table", { name: "What the marks and abbreviated headings in the tables below mean." });
+  await expect(key).toBeVisible();
+  await expect(key.getByRole("columnheader")).toHaveText(["Mark or heading", "Reads as", "Meaning"]);
+  // Every abbreviated heading of the tables has its row, read out by name.
+  for (const term of ["density", "boiling point", "solvent in water", "water in the solvent", "strength", "drying capacity", "hold-up", "entry key"]) {
+    await expect(key.getByRole("rowheader", { name: term, exact: true })).toBeVisible();
+  }
+  await expect(key.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "recalled value" }) })).toContainText("not checked in a source");
+  await expect(key.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "changed by the group" }) })).toContainText("group lead replaced");
+  // The data tables carry their own names, and the headings spell their symbols out.
+  const solvents = page.getByRole("table", { name: /^Solvents:/ });
+  await expect(solvents.getByRole("columnheader", { name: /ρ/ }).locator("abbr")).toHaveAttribute("title", "density");
+  await expect(page.getByRole("table", { name: /^Aqueous reagents and salts:/ })).toBeVisible();
+  await expect(page.getByRole("table", { name: /^Drying agents:/ })).toBeVisible();
+});

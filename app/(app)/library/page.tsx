@@ -1,4 +1,5 @@
 import Link from "next/link";
+import type React from "react";
 import { can } from "@/lib/authz";
 import { requirePageMember } from "@/lib/authz/page";
 import { Card, PageHeader } from "@/components/ui/page-header";
@@ -23,6 +24,43 @@ function V({ v, digits = 2 }: { v: Sourced | null | undefined; digits?: number }
   return <span title={`${v.source} (${v.confidence.replace(/_/g, " ")})`} className={unsure ? "text-amber-800" : undefined}>{shown}{unsure ? "*" : ""}</span>;
 }
 
+/** What the tables' marks, symbols and abbreviated headings mean. */
+const KEY: [mark: React.ReactNode, label: string, meaning: string][] = [
+  ["Key", "entry key", "The short name a workup description uses for the entry (in its JSON and the CSV's spec_json)."],
+  [<abbr key="rho" title="density">ρ (g/mL)</abbr>, "density", "Density in grams per millilitre, at the temperature its source gives (hover a value for the source)."],
+  [<abbr key="bp" title="boiling point">bp (°C)</abbr>, "boiling point", "Normal boiling point (at 1 atm) in degrees Celsius."],
+  ["In water (wt %)", "solvent in water", "How much of the solvent dissolves in water, percent by weight; “miscible” when they mix in any ratio."],
+  ["Water in it (wt %)", "water in the solvent", "How much water the wet solvent holds, percent by weight."],
+  ["mol/L (solid: g/mol)", "strength", "A solution's concentration in moles per litre; for a solid added as such, its molar mass."],
+  ["Capacity (g water/g)", "drying capacity", "Water a drying agent takes up per gram of agent."],
+  ["Hold-up (mL/g)", "hold-up", "Solution left behind on the drying agent per gram, lost unless rinsed out."],
+  [<span key="star" className="text-amber-800">0.87*</span>, "recalled value", "Amber with a star: recalled or assumed, not checked in a source; a measured value from the group should replace it."],
+  [<span key="dash" className="text-stone-400">—</span>, "no value", "No value: not known, or it does not apply (a solid has no solution density)."],
+  [<Badge key="shipped">shipped</Badge>, "shipped", "The value shipped with Layerwise, with its published source."],
+  [<Badge key="changed" tone="accent">changed by the group</Badge>, "changed by the group", "A shipped entry whose values a group lead replaced with the group's own."],
+  [<Badge key="added" tone="high">added by the group</Badge>, "added by the group", "An entry the group added."],
+];
+
+function LibraryKey() {
+  return (
+    <table className="min-w-full text-sm" data-testid="library-key">
+      <caption className="mb-2 text-left text-xs text-stone-500">What the marks and abbreviated headings in the tables below mean.</caption>
+      <thead className="text-left text-xs text-stone-500">
+        <tr><th scope="col" className="py-1 pr-3 font-normal">Mark or heading</th><th scope="col" className="pr-3 font-normal">Reads as</th><th scope="col" className="font-normal">Meaning</th></tr>
+      </thead>
+      <tbody className="divide-y divide-stone-100">
+        {KEY.map(([mark, label, meaning]) => (
+          <tr key={label}>
+            <td className="py-1.5 pr-3 whitespace-nowrap tabular-nums">{mark}</td>
+            <th scope="row" className="pr-3 text-left font-normal text-stone-700">{label}</th>
+            <td className="text-stone-600">{meaning}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 export default async function LibraryPage() {
   const member = await requirePageMember("data:read", { returnTo: "/library" });
   const lib = await libraryListing(await getDb(), member.group.id);
@@ -33,7 +71,7 @@ export default async function LibraryPage() {
     <>
       <PageHeader
         title="Solvent and wash library"
-        description={`The solvents, aqueous reagents and drying agents ${member.group.name}'s predictions use. Values marked * are recalled rather than checked in a source: a measured value from the group should replace them. Hover a value for its source.`}
+        description={`The solvents, aqueous reagents and drying agents ${member.group.name}'s predictions use. Values marked * are recalled rather than checked in a source: a measured value from the group should replace them. Hover a value for its source; the key below explains every mark and heading.`}
         actions={lead ? (
           <>
             <Link href="/library/solvents/new" className={buttonClass("secondary")}>Add a solvent</Link>
@@ -42,11 +80,15 @@ export default async function LibraryPage() {
         ) : <span className="text-sm text-stone-500">Only a group lead can change the library.</span>}
       />
       <div className="space-y-6">
+        <Card title="Key to the tables">
+          <div className="overflow-x-auto"><LibraryKey /></div>
+        </Card>
         <Card title="Solvents">
           <div className="overflow-x-auto">
             <table className="min-w-full text-sm">
+              <caption className="sr-only">Solvents: density, boiling point, mutual solubility with water, notes and origin of each value (see the key)</caption>
               <thead className="text-left text-xs text-stone-500">
-                <tr><th scope="col" className="py-1 pr-3 font-normal">Name</th><th scope="col" className="pr-3 font-normal">Key</th><th scope="col" className="pr-3 text-right font-normal">ρ (g/mL)</th><th scope="col" className="pr-3 text-right font-normal">bp (°C)</th><th scope="col" className="pr-3 text-right font-normal">In water (wt %)</th><th scope="col" className="pr-3 text-right font-normal">Water in it (wt %)</th><th scope="col" className="pr-3 font-normal">Notes</th><th scope="col" className="font-normal">Origin</th></tr>
+                <tr><th scope="col" className="py-1 pr-3 font-normal">Name</th><th scope="col" className="pr-3 font-normal">Key</th><th scope="col" className="pr-3 text-right font-normal"><abbr title="density">ρ</abbr> (g/mL)</th><th scope="col" className="pr-3 text-right font-normal"><abbr title="boiling point">bp</abbr> (°C)</th><th scope="col" className="pr-3 text-right font-normal">In water (wt %)</th><th scope="col" className="pr-3 text-right font-normal">Water in it (wt %)</th><th scope="col" className="pr-3 font-normal">Notes</th><th scope="col" className="font-normal">Origin</th></tr>
               </thead>
               <tbody className="divide-y divide-stone-100">
                 {lib.solvents.map(({ props: s, origin }) => (
@@ -68,8 +110,9 @@ export default async function LibraryPage() {
         <Card title="Aqueous reagents and salts">
           <div className="overflow-x-auto">
             <table className="min-w-full text-sm">
+              <caption className="sr-only">Aqueous reagents and salts: use, strength, density and origin of each value (see the key)</caption>
               <thead className="text-left text-xs text-stone-500">
-                <tr><th scope="col" className="py-1 pr-3 font-normal">Name</th><th scope="col" className="pr-3 font-normal">Key</th><th scope="col" className="pr-3 font-normal">Used as</th><th scope="col" className="pr-3 text-right font-normal">mol/L (solid: g/mol)</th><th scope="col" className="pr-3 text-right font-normal">ρ (g/mL)</th><th scope="col" className="font-normal">Origin</th></tr>
+                <tr><th scope="col" className="py-1 pr-3 font-normal">Name</th><th scope="col" className="pr-3 font-normal">Key</th><th scope="col" className="pr-3 font-normal">Used as</th><th scope="col" className="pr-3 text-right font-normal">mol/L (solid: g/mol)</th><th scope="col" className="pr-3 text-right font-normal"><abbr title="density">ρ</abbr> (g/mL)</th><th scope="col" className="font-normal">Origin</th></tr>
               </thead>
               <tbody className="divide-y divide-stone-100">
                 {lib.reagents.map(({ props: r, origin }) => (
@@ -89,6 +132,7 @@ export default async function LibraryPage() {
         <Card title="Drying agents">
           <p className="mb-2 text-xs text-stone-500">Shipped with the engine; not editable per group yet.</p>
           <table className="min-w-full text-sm">
+            <caption className="sr-only">Drying agents: water capacity, hold-up and speed (see the key)</caption>
             <thead className="text-left text-xs text-stone-500"><tr><th scope="col" className="py-1 pr-3 font-normal">Name</th><th scope="col" className="pr-3 text-right font-normal">Capacity (g water/g)</th><th scope="col" className="pr-3 text-right font-normal">Hold-up (mL/g)</th><th scope="col" className="font-normal">Speed</th></tr></thead>
             <tbody className="divide-y divide-stone-100">
               {lib.dryingAgents.map((a) => (
