@@ -111,6 +111,7 @@ async function main(): Promise<void> {
         const report = phaseReport(phase, from, Date.now(), readLoopFile(instance.env["LAYERWISE_LOOP_FILE"] ?? ""), seen);
         loop.push(report);
         const h = report.heavy;
+        if (Object.keys(report.openDuringLongHolds).length > 0) console.log(`  requests open during holds over 1 s: ${JSON.stringify(report.openDuringLongHolds)}`);
         console.log(`  event loop during ${phase}: held at most ${report.maxLoopHeldMs} ms (${report.heldOver1s} holds over 1 s), max delay ${report.maxLoopDelayMs} ms; prober max ${report.probe.maxMs} ms (p99 ${report.probe.p99Ms} ms); heavy: ${Object.entries(h).map(([k, v]) => `${k} ${v.requests} (${JSON.stringify(v.statuses)}, median ${v.medianMs} ms)`).join(", ")}`);
       }
     };

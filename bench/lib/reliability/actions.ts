@@ -9,7 +9,7 @@ import path from "node:path";
 import ts from "typescript";
 import { calleeName, callsIn, isExported, parse } from "../../../tests/support/source-scan";
 import { roleCan, type RoleName } from "@/lib/authz/permissions";
-import { type MatrixContext, groupADigest, leakIn } from "./authz";
+import { type MatrixContext, groupADigest, groupAJobsIdle, leakIn } from "./authz";
 import { templateOf, type Requirement } from "./routes";
 import { ask, bearer, type Answer } from "./http";
 
@@ -195,8 +195,11 @@ export async function runActionMatrix(c: MatrixContext, actions: ActionEndpoint[
       const aimAtA = expected !== "allowed" || pr.group !== "A";
       const args = argumentsFor(a, c, aimAtA);
       const refusal = expected === "signin" || expected === "forbidden";
-      const before = refusal || pr.group === "B" ? await groupADigest(c) : "";
+      const digest = refusal || pr.group === "B";
+      if (digest) await groupAJobsIdle(c);
+      const before = digest ? await groupADigest(c) : "";
       const answer = await send(c, a, pr, args);
+      if (digest) await groupAJobsIdle(c);
       const resultStatus = resultStatusOf(answer.body);
       let verdict: ActionCell["verdict"] = "ok";
       let why: string | undefined;

@@ -129,6 +129,18 @@ function digestOf(parts: Answer[]): string {
   return h.digest("hex");
 }
 
+/** Long enough for a permitted import while heavy requests run beside the matrix (a request given up on would still write). */
+const MATRIX_TIMEOUT_MS = 300_000;
+
+/** Waits (up to a minute) until group A has no background job queued or running. */
+export async function groupAJobsIdle(c: MatrixContext): Promise<void> {
+  for (let i = 0; i < 120; i++) {
+    const res = await ask(c.base, "/api/v1/jobs", { headers: bearer(c.people.lead.token) });
+    if (res.status === 200 && (JSON.parse(res.body) as { active: unknown[] }).active.length === 0) return;
+    await new Promise((r) => setTimeout(r, 500));
+  }
+}
+
 /** Group A's data as its lead sees them, for "a refused write changed nothing". */
 export async function groupADigest(c: MatrixContext): Promise<string> {
   const t = c.people.lead.token;
@@ -224,6 +236,8 @@ async function prepare(c: MatrixContext, e: Endpoint): Promise<{ values: Record<
       const neutral = [c.people.marker, c.recordsA.workupId, c.recordsA.compoundId].reduce((text, s) => text.split(s).join(""), csv.body);
       return { values, template: { contentType: "text/csv", body: neutral, strict: true } };
     }
+    case "POST /api/v1/workups/[id]/outcome/found-cause":
+      return { values, template: json({ cause: "emulsion_loss", note: "reliability matrix" }) };
     case "GET /api/v1/workups/[id]/diff":
       return { values, template: { query: "?from=1&to=1", strict: true } };
     case "GET /api/depict/structure":
@@ -269,9 +283,13 @@ export async function runMatrix(c: MatrixContext, endpoints: Endpoint[]): Promis
         if (e.kind === "page") headers["accept"] = "text/html";
         const write = e.method !== "GET";
         const refusedWrite = write && expected !== "allowed" && expected !== "open";
+        // Group A's background jobs (intervals computed after a save, inference after an outcome) write after the
+        // write that queued them was answered: the digest of a refused write is taken with none running.
+        if (refusedWrite) await groupAJobsIdle(c);
         const before = refusedWrite ? await groupADigest(c) : "";
-        const answer = await ask(c.base, filled.path + query, { method: e.method, headers, body: write ? template.body : undefined });
+        const answer = await ask(c.base, filled.path + query, { method: e.method, headers, body: write ? template.body : undefined, timeoutMs: MATRIX_TIMEOUT_MS });
         let { verdict, why } = judge(e, expected, answer, template.strict && !variant.person);
+        if (refusedWrite) await groupAJobsIdle(c);
         if (verdict !== "violation" && refusedWrite && (await groupADigest(c)) !== before) {
           verdict = "violation";
           why = "a refused write changed group A's data";
@@ -280,7 +298,7 @@ export async function runMatrix(c: MatrixContext, endpoints: Endpoint[]): Promis
           // The wall must not show existence: the same request for ids that exist nowhere answers the same.
           const ghostValues = Object.fromEntries(Object.entries(values).map(([k, v]) => [k, OWNED_PARAMS.includes(k) ? newId() : v]));
           const ghostPath = fill(e.template, ghostValues).path;
-          const ghost = await ask(c.base, ghostPath + query, { method: e.method, headers, body: write ? template.body : undefined });
+          const ghost = await ask(c.base, ghostPath + query, { method: e.method, headers, body: write ? template.body : undefined, timeoutMs: MATRIX_TIMEOUT_MS });
           if (shape(e, answer, values) !== shape(e, ghost, ghostValues)) {
             verdict = "violation";
             why = `another group's record answers differently from a missing one (${answer.status} vs ${ghost.status})`;

@@ -143,6 +143,7 @@ export interface LoopLine {
   kind: "turn" | "second";
   ms?: number;
   activeMs?: number;
+  inFlight?: string[];
   max?: number;
   p99?: number;
 }
@@ -174,6 +175,8 @@ export interface PhaseLoopReport {
    * time the OS did not run the thread (on a shared machine short of CPU, seconds at times).
    */
   maxLoopDelayMs: number;
+  /** Requests open during holds over 1 s (the prober's GET /api/v1/me left out), with how many such holds each. */
+  openDuringLongHolds: Record<string, number>;
   probe: { requests: number; maxMs: number; p99Ms: number; medianMs: number };
   heavy: Record<string, { requests: number; statuses: Record<string, number>; medianMs: number; maxMs: number }>;
 }
@@ -197,6 +200,8 @@ export function phaseReport(phase: string, from: number, to: number, loop: LoopL
     heldOver1s: held.filter((t) => t > 1000).length,
     heldOver250ms: held.filter((t) => t > 250).length,
     maxLoopDelayMs: Math.max(0, ...seconds, ...turns),
+    openDuringLongHolds: inside.filter((l) => l.kind === "turn" && (l.activeMs ?? 0) > 1000).flatMap((l) => l.inFlight ?? [])
+      .filter((r) => r !== "GET /api/v1/me").reduce<Record<string, number>>((m, r) => ({ ...m, [r]: (m[r] ?? 0) + 1 }), {}),
     probe: { requests: probeMs.length, maxMs: Math.max(0, ...probeMs), p99Ms: quantile(probeMs, 0.99), medianMs: quantile(probeMs, 0.5) },
     heavy,
   };
