@@ -8,9 +8,11 @@
  *     compiled work-up per worker (each new work-up loaded into it), and with every step, flag and caution.
  * The machine is shared: the load average (1, 5, 15 min) is printed before and after the figures, and so are
  * charge-balance evaluations per prediction and per draw, which do not depend on the load.
- * `--no-bulk` skips part 3 (the two-worker run, which occupies both cores for a while).
+ * `--no-bulk` skips part 3 (the two-worker run, which occupies both cores for a while); `--out file.json` also
+ * writes the summary record there.
  * Each figure is the median of several runs; the last line printed is one JSON object with every number.
  */
+import { writeFileSync } from "node:fs";
 import { availableParallelism, loadavg } from "node:os";
 import { pathToFileURL } from "node:url";
 import { Worker, isMainThread, parentPort, workerData } from "node:worker_threads";
@@ -163,7 +165,7 @@ async function main(): Promise<void> {
   const machine = () => ({ cores: availableParallelism(), loadAverage: loadavg().map((x) => Number(x.toFixed(2))) });
   if (process.argv.includes("--no-bulk")) {
     console.log(loadLine());
-    console.log(JSON.stringify({ ...summary, ...machine() }));
+    report({ ...summary, ...machine() });
     return;
   }
 
@@ -179,11 +181,20 @@ async function main(): Promise<void> {
   console.log(`re-predicting 100,000 work-ups (every step, flags and cautions) on ${workers} workers: ${bulkFull.seconds.toFixed(2)} s, ${bulkFull.withStartup.toFixed(2)} s with start-up (median of 3)`);
 
   console.log(loadLine());
-  console.log(JSON.stringify({
+  report({
     ...summary,
     bulk100kFastSeconds: Number(bulkFast.seconds.toFixed(3)), bulk100kFullSeconds: Number(bulkFull.seconds.toFixed(3)),
     bulk100kFullWithStartupSeconds: Number(bulkFull.withStartup.toFixed(3)), workers, ...machine(),
-  }));
+  });
+}
+
+/** Prints the summary record, and writes it to the file after `--out` when one is given. */
+function report(record: Record<string, unknown>): void {
+  const line = JSON.stringify(record);
+  console.log(line);
+  const at = process.argv.indexOf("--out");
+  const file = at >= 0 ? process.argv[at + 1] : undefined;
+  if (file) writeFileSync(file, `${JSON.stringify(record, null, 2)}\n`);
 }
 
 // Run only as the entry script, so that other scripts can import benchWorkup.
