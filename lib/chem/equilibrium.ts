@@ -62,13 +62,13 @@ export class Equilibrator implements SlopedChargeBalance {
   lastSolved = NaN;
   /** The pH and a(H⁺) evaluate() reads, and the residual it leaves. */
   private evalPh = Number.NaN;
+  private evalH = Number.NaN;
+  private residual = Number.NaN;
   /** refine()'s start (pH, a(H⁺), ionic strength for γ or NaN) and its root or NaN. */
   private refineX = Number.NaN;
   private refineH = Number.NaN;
   private refineNext = Number.NaN;
   private refined = Number.NaN;
-  private evalH = Number.NaN;
-  private residual = Number.NaN;
 
   private systemTotals = new Float64Array(N_SYSTEMS);
   /** The prepared mixture holds some acid–base system (else systemTotals is stale and counts as zero). */
@@ -193,9 +193,10 @@ export class Equilibrator implements SlopedChargeBalance {
   /**
    * Equilibrates `mix` and writes the two layers into `org` and `aq`, which must be empty streams. The pH search
    * starts from `memo` when it holds this contact's pH from an earlier run, else from the mixture's last pH if it
-   * has one, else from the last solved pH, and the memo keeps this run's pH. Kept from the first run (the input's own numbers, in a
-   * Monte-Carlo run), a draw's start lies about √2 times nearer its root than the previous draw's pH would, and
-   * no draw's result depends on the draw before it.
+   * has one, else from the last solved pH, and the memo keeps this run's pH. Kept from the first run (the input's
+   * own numbers, in a Monte-Carlo run), a draw's start lies about √2 times nearer its root than the previous
+   * draw's pH would, and no draw's result depends on the draw before it. `aqueousRead` false: nobody reads the
+   * aqueous layer (a lean run discarding it), which is then left empty.
    */
   equilibrate(mix: Stream, org: Stream, aq: Stream, memo: PhMemo | null = null, aqueousRead = true): void {
     const { phases, comps } = this;
@@ -616,7 +617,7 @@ export class Equilibrator implements SlopedChargeBalance {
   /**
    * residualAt on the pH and a(H⁺) in `evalPh` and `evalH`, the result in `residual`: the joint steps call it so,
    * since a call that passes or returns a number allocates a box for it unless the call is inlined, and this
-   * one is too large to be (about a fifth of a Monte-Carlo run's time went to those boxes and their collection).
+   * one is too large to be (a Monte-Carlo draw allocated some kilobytes of such boxes).
    */
   private evaluate(): void {
     solverStats.evaluations++;
