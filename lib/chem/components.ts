@@ -96,38 +96,64 @@ interface ComponentPlan {
   pairOffset: Float64Array;
 }
 
-function planComponent(c: Component, lib: CompiledLibrary): ComponentPlan {
+const NO_SLOTS = new Int32Array(0);
+const NO_ROLES = new Uint8Array(0);
+const NO_OFFSETS = new Float64Array(0);
+
+/** `plan` refilled for component c (a new one if there is none): in place, since bulk re-prediction plans every
+ * stored work-up it loads, and typed arrays are dear to allocate. */
+function planComponent(c: Component, lib: CompiledLibrary, plan: ComponentPlan | undefined): ComponentPlan {
   const ns = lib.solventKeys.length;
-  const acidSite = Uint8Array.from(c.pKas, (pk) => (pk.kind === "acid" ? 1 : 0));
-  const nAcid = acidSite.reduce((n, x) => n + x, 0);
-  const donor = nAcid > 0;
-  const ownKeys = Object.keys(c.logK);
-  let backSlot = -1, backA = Number.NaN, backB = Number.NaN;
-  for (let j = 0; j < ownKeys.length && !c.logP; j++) {
-    const line = lib.lib.solvents[ownKeys[j] as string]?.partition;
-    if (!line) continue;
-    const l = donor ? line.donor : line.acceptor;
-    backSlot = j;
-    backA = l.a;
-    backB = l.b;
-    break;
+  const p: ComponentPlan = plan ?? {
+    acidSite: new Uint8Array(c.pKas.length), nAcid: 0, hasLogP: false, backSlot: -1, backA: Number.NaN, backB: Number.NaN,
+    octanol: Number.NaN, anchored: false, ownSlot: new Int32Array(ns), abraham: [], pairSolvent: NO_SLOTS, pairRole: NO_ROLES, pairOffset: NO_OFFSETS,
+  };
+  if (p.acidSite.length !== c.pKas.length) p.acidSite = new Uint8Array(c.pKas.length);
+  let nAcid = 0;
+  for (let j = 0; j < c.pKas.length; j++) {
+    const acid = (c.pKas[j] as Component["pKas"][number]).kind === "acid";
+    p.acidSite[j] = acid ? 1 : 0;
+    if (acid) nAcid++;
   }
-  const ownSlot = new Int32Array(ns).fill(-1);
-  const abraham: Array<AbrahamEstimate | null> = [];
+  p.nAcid = nAcid;
+  p.hasLogP = c.logP !== undefined;
+  // Own log K values sit in the parameters in the record's key order.
+  p.ownSlot.fill(-1);
+  p.backSlot = -1;
+  let j = 0;
+  for (const key in c.logK) {
+    if (!Object.hasOwn(c.logK, key)) continue;
+    const i = lib.solventIndex.get(key);
+    if (i !== undefined) p.ownSlot[i] = j;
+    const line = p.backSlot < 0 && !c.logP ? lib.lib.solvents[key]?.partition : undefined;
+    if (line) {
+      const l = nAcid > 0 ? line.donor : line.acceptor;
+      p.backSlot = j;
+      p.backA = l.a;
+      p.backB = l.b;
+    }
+    j++;
+  }
+  p.abraham.length = ns;
   for (let i = 0; i < ns; i++) {
     const s = lib.solvents[i] as SolventProps;
-    ownSlot[i] = ownKeys.indexOf(s.key);
-    abraham.push(i > 0 && !s.waterMiscible && (ownSlot[i] as number) < 0 ? componentAbraham(c, s.key) : null);
+    p.abraham[i] = i > 0 && !s.waterMiscible && (p.ownSlot[i] as number) < 0 ? componentAbraham(c, s.key) : null;
+  }
+  p.octanol = componentAbraham(c, "octanol")?.value ?? Number.NaN;
+  p.anchored = anchorLogP(c) !== undefined;
+  const pairs = c.ionPairLogKex;
+  if (pairs.length === 0) {
+    p.pairSolvent = NO_SLOTS;
+    p.pairRole = NO_ROLES;
+    p.pairOffset = NO_OFFSETS;
+    return p;
   }
   const reference: CounterIonKey = pairingSign(c) === "anion" ? "sodium" : "chloride";
   const ownIon = c.salt?.counterIon;
-  return {
-    acidSite, nAcid, hasLogP: c.logP !== undefined, backSlot, backA, backB,
-    octanol: componentAbraham(c, "octanol")?.value ?? Number.NaN, anchored: anchorLogP(c) !== undefined, ownSlot, abraham,
-    pairSolvent: Int32Array.from(c.ionPairLogKex, (k) => lib.solventIndex.get(k.solvent) ?? -1),
-    pairRole: Uint8Array.from(c.ionPairLogKex, (k) => (k.counterIon === reference ? 1 : 0) | (k.counterIon === ownIon ? 2 : 0)),
-    pairOffset: Float64Array.from(c.ionPairLogKex, (k) => COUNTER_IONS[k.counterIon].pairing),
-  };
+  p.pairSolvent = Int32Array.from(pairs, (k) => lib.solventIndex.get(k.solvent) ?? -1);
+  p.pairRole = Uint8Array.from(pairs, (k) => (k.counterIon === reference ? 1 : 0) | (k.counterIon === ownIon ? 2 : 0));
+  p.pairOffset = Float64Array.from(pairs, (k) => COUNTER_IONS[k.counterIon].pairing);
+  return p;
 }
 
 /**
@@ -149,7 +175,7 @@ export function fillComponents(out: CompiledComponents, components: readonly Com
       out.lipophilicCounterIon[ci] = c.counterIon === "lipophilic" && !c.salt ? 1 : 0;
       out.pairsAsAnion[ci] = pairingSign(c) === "anion" ? 1 : 0;
       fillSalt(out, ci, c);
-      const plan = planComponent(c, lib);
+      const plan = planComponent(c, lib, out.plans[ci]);
       out.plans[ci] = plan;
       sizedKa(out.acidKa, ci, plan.nAcid);
       sizedKa(out.baseKa, ci, c.pKas.length - plan.nAcid);
