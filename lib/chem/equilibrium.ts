@@ -87,6 +87,9 @@ export class Equilibrator implements SlopedChargeBalance {
   private amounts: Float64Array;
   /** K_ion/K_neutral of components that state their own ion offset; the last solvent offset and its power. */
   private ownIonFactor: Float64Array;
+  /** K_N·V_org/V_aq and K_ion·V_org/V_aq of the charged components in this contact, as the balance reads them. */
+  private kNeutralRatio: Float64Array;
+  private kIonRatio: Float64Array;
   private lastOffset = Number.NaN;
   private lastOffsetFactor = Number.NaN;
   /** Ion-pair δ of each solvent for organic anions and cations (ion-pair.ts), and per contact the strong cations
@@ -121,6 +124,8 @@ export class Equilibrator implements SlopedChargeBalance {
   /** The Davies term applyPendingActivity() sets. */
   private pendingTerm = 0;
   private invGamma1 = 1;
+  /** γ± of singly charged ions (1/invGamma1): a base's K′ = K·γ±. */
+  private gamma1 = 1;
   private readonly sysKa: Float64Array[] = SYSTEM_KA.map((k) => Float64Array.from(k));
   /** The last log K of each component and its power of ten, and the last ion-pair δ values and theirs. */
   private lastLogK: Float64Array;
@@ -145,6 +150,8 @@ export class Equilibrator implements SlopedChargeBalance {
     this.amounts = new Float64Array(n);
     this.charged = new Int32Array(n);
     this.ownIonFactor = new Float64Array(n);
+    this.kNeutralRatio = new Float64Array(n);
+    this.kIonRatio = new Float64Array(n);
     this.amountConc = new Float64Array(n);
     this.lastLogK = new Float64Array(n).fill(Number.NaN);
     this.lastK = new Float64Array(n);
@@ -383,6 +390,7 @@ export class Equilibrator implements SlopedChargeBalance {
     const g = Math.exp(term * Math.LN10);
     this.activityTerm = term;
     this.invGamma1 = g;
+    this.gamma1 = 1 / g;
     const g2 = g * g;
     for (let k = 0; k < this.nActive; k++) {
       const sIdx = this.active[k] as number;
@@ -478,6 +486,11 @@ export class Equilibrator implements SlopedChargeBalance {
       this.amountConc[c] = (this.amounts[c] as number) / this.va;
     }
     this.voOverVa = this.vo / this.va;
+    for (let k = 0; k < this.nCharged; k++) {
+      const c = this.charged[k] as number;
+      this.kNeutralRatio[c] = (this.kNeutral[c] as number) * this.voOverVa;
+      this.kIonRatio[c] = (this.kIon[c] as number) * this.voOverVa;
+    }
     return true;
   }
 
@@ -626,6 +639,7 @@ export class Equilibrator implements SlopedChargeBalance {
     // `a` is a(H⁺); with concentration constants (setActivity) the balance runs on [H⁺] = a/γ±, and sites on
     // h = a (acids: K′ = K/γ±; bases: K′ = K·γ±, so x = a/(a + K′·…) keeps the same form).
     const g = this.invGamma1;
+    const gamma = this.gamma1;
     const h = this.evalH;
     const hInv = 1 / h;
     const hc = h * g;
@@ -665,7 +679,7 @@ export class Equilibrator implements SlopedChargeBalance {
       f += conc * (z0 - mean);
       df += conc * (lost2 / sum - mean * mean);
     }
-    const { comps, voOverVa } = this;
+    const { comps } = this;
     for (let k = 0; k < this.nCharged; k++) {
       const c = this.charged[k] as number;
       const nc = this.amountConc[c] as number;
@@ -685,7 +699,7 @@ export class Equilibrator implements SlopedChargeBalance {
         dSites += v;
       }
       for (let i = 0; i < base.length; i++) {
-        const ka = (base[i] as number) / g;
+        const ka = (base[i] as number) * gamma;
         const x = h / (h + ka);
         const v = x * (1 - x);
         f0 *= 1 - x;
@@ -700,11 +714,11 @@ export class Equilibrator implements SlopedChargeBalance {
         f0 = 0;
         if (Math.abs(fixedCharge) >= sites) { sites = Math.abs(fixedCharge); dSites = 0; }
       }
-      const kN = this.kNeutral[c] as number, kI = this.kIon[c] as number;
-      const fa = 1 / (1 + (kN * f0 + kI * (1 - f0)) * voOverVa);
+      const aN = this.kNeutralRatio[c] as number, aI = this.kIonRatio[c] as number;
+      const fa = 1 / (1 + aI + (aN - aI) * f0);
       f += nc * fa * z;
       // d fa/d pH = −fa²·(vo/va)·(kN − kI)·f₀·z·ln10; the ln10 is applied to the whole slope below.
-      const dfa = fixed ? 0 : -fa * fa * voOverVa * (kN - kI) * f0 * z;
+      const dfa = fixed ? 0 : -fa * fa * (aN - aI) * f0 * z;
       df += nc * (fa * dz - dfa * z);
       cz2 += nc * fa * sites;
       dcz2 += nc * (fa * dSites + sites * dfa);
