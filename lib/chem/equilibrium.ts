@@ -38,6 +38,11 @@ const JOINT_ENTRY_STEP = 0.02;
 const JOINT_MAX_STEP = 0.5;
 const MAX_JOINT_STEPS = 20;
 
+/** 1/k! for the series of e^u the joint steps use for the small changes of 10^−pH and 1/γ± between steps (a
+ * call to Math.exp leaves compiled code for a C function); cut where the next term is below 1e-17, as shiftH
+ * (aqueous.ts) cuts it. */
+const E2 = 1 / 2, E3 = 1 / 6, E4 = 1 / 24, E5 = 1 / 120, E6 = 1 / 720, E7 = 1 / 5040, E8 = 1 / 40320;
+
 /** Weight of each system's total in the ionic strength estimate, max(1, z₀²). */
 const SYSTEM_Z2_WEIGHT = Float64Array.from(SYSTEM_Z0, (z0) => Math.max(1, z0 * z0));
 
@@ -321,7 +326,7 @@ export class Equilibrator implements SlopedChargeBalance {
     for (let iter = 0; iter < MAX_JOINT_STEPS; iter++) {
       if (!Number.isNaN(nextTerm) && Math.abs(nextTerm - this.activityTerm) >= ACTIVITY_TOLERANCE) {
         this.pendingTerm = nextTerm;
-        this.applyPendingActivity();
+        this.applyPendingActivity(true);
       }
       this.evalPh = x;
       this.evalH = h;
@@ -348,7 +353,11 @@ export class Equilibrator implements SlopedChargeBalance {
       // part is then far under the 1e-9 tolerance; the settled test above always takes the exact term).
       nextTerm = r > 0 && Math.abs(dI) < 1e-5 * i ? termI + DAVIES_A * (0.5 / (r * (1 + r) * (1 + r)) - 0.3) * dI : daviesTerm(next);
       x += step;
-      h = Math.exp(-x * Math.LN10);
+      const u = -step * Math.LN10;
+      const au = Math.abs(u);
+      h = au <= 0.005 ? h * (1 + u * (1 + u * (E2 + u * (E3 + u * (E4 + u * E5)))))
+        : au <= 0.05 ? h * (1 + u * (1 + u * (E2 + u * (E3 + u * (E4 + u * (E5 + u * (E6 + u * (E7 + u * E8))))))))
+          : Math.exp(-x * Math.LN10);
       this.stopResidual = Number.NaN;
     }
     this.stopPh = x;
@@ -381,13 +390,18 @@ export class Equilibrator implements SlopedChargeBalance {
   /** Sets the activity coefficients (Davies) and the concentration constants for ionic strength `i`. */
   private setActivity(i: number): void {
     this.pendingTerm = daviesTerm(i);
-    this.applyPendingActivity();
+    this.applyPendingActivity(false);
   }
 
-  /** setActivity for the Davies term in `pendingTerm` (a field, not an argument: see evaluate()). */
-  private applyPendingActivity(): void {
+  /** setActivity for the Davies term in `pendingTerm` (a field, not an argument: see evaluate()); `step`: a joint
+   * step's small change, for which 1/γ± is rescaled by the series above rather than computed afresh. */
+  private applyPendingActivity(step: boolean): void {
     const term = this.pendingTerm;
-    const g = Math.exp(term * Math.LN10);
+    const u = (term - this.activityTerm) * Math.LN10;
+    const au = Math.abs(u);
+    const g = step && au <= 0.005 ? this.invGamma1 * (1 + u * (1 + u * (E2 + u * (E3 + u * (E4 + u * E5)))))
+      : step && au <= 0.05 ? this.invGamma1 * (1 + u * (1 + u * (E2 + u * (E3 + u * (E4 + u * (E5 + u * (E6 + u * (E7 + u * E8))))))))
+        : Math.exp(term * Math.LN10);
     this.activityTerm = term;
     this.invGamma1 = g;
     this.gamma1 = 1 / g;
