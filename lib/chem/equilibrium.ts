@@ -343,7 +343,9 @@ export class Equilibrator implements SlopedChargeBalance {
         const root = x + step;
         if (!(root > PH_MIN && root < PH_MAX)) { this.stopResidual = f; break; }
         this.ionicStrength = i;
-        this.rootH = Math.exp(-root * Math.LN10);
+        // A step under the Newton tolerance: the series' first terms carry 10^−x to 10^−root.
+        const u = -step * Math.LN10;
+        this.rootH = h * (1 + u * (1 + u * (E2 + u * (E3 + u * (E4 + u * E5)))));
         this.refined = root;
         return;
       }
