@@ -12,7 +12,7 @@ import { CARBONATE, WATER } from "./library";
 import { volumeForTargetPh } from "./target-ph";
 import { type OperationOf, type Operation } from "./schema";
 import { type AcidBaseContent, type ContactContext, type Simulator } from "./simulator";
-import { addAt } from "./stream";
+import { addAt, type Stream } from "./stream";
 
 export { RETAINED_SOLVENT_BP_C } from "./concentrate";
 
@@ -87,14 +87,25 @@ const quench: Handler<"quench"> = (sim, op, step) => {
 const aqueousPortions: Handler<"wash" | "back_extract"> = (sim, op, step) => {
   const r = sim.reagent(op.reagent);
   const volumeMl = volumeOf(sim, step);
-  const other = sim.newStream();
   // Washes nobody reads (a lean run keeping the organic layer, nothing saved) are not combined.
   const combine = !(sim.lean && op.keep === "organic" && op.saveAs === undefined);
+  const other = combine ? sim.newStream() : sim.current;
   let organic = sim.current;
   for (let p = 1; p <= op.portions; p++) {
-    const mix = sim.freshReagent(r, volumeMl);
-    const before = sim.acidBase(organic, mix);
-    mix.addFrom(organic, 1);
+    let mix: Stream;
+    let before: AcidBaseContent | null = null;
+    if (sim.lean) {
+      // The organic layer is consumed by the contact, so a lean run adds the portion to it in place (the same
+      // sums as a fresh portion with the layer added).
+      mix = organic;
+      mix.addReagent(r, volumeMl, sim.lib.density[WATER] as number);
+      mix.lastPh = reagentPh(r);
+      mix.solid = false;
+    } else {
+      mix = sim.freshReagent(r, volumeMl);
+      before = sim.acidBase(organic, mix);
+      mix.addFrom(organic, 1);
+    }
     const out = sim.contact(mix, ctx(sim, op, step, p, op.keep, op.reagent, before), combine);
     organic = out.org;
     if (!combine) continue;
