@@ -214,7 +214,7 @@ export class Equilibrator implements SlopedChargeBalance {
     const { phases, comps } = this;
     const aqueous = this.prepare(mix);
     copyInto(org.solv, phases.org);
-    copyInto(aq.solv, phases.aq);
+    if (aqueousRead) copyInto(aq.solv, phases.aq);
     this.co2Mmol = 0;
     if (!aqueous) {
       copyInto(org.comp, mix.comp);

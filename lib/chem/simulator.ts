@@ -81,12 +81,14 @@ export class Simulator {
   private readonly scratchStreams: Stream[] = [];
   private contactIndex = 0;
   private readonly untracedOutcome: ContactOutcome;
+  private readonly unreadStream: Stream;
 
   constructor(readonly lib: CompiledLibrary, readonly componentCount: number) {
     this.comps = allocateComponents(componentCount, lib);
     this.eq = new Equilibrator(lib, this.comps);
     this.current = this.newStream();
     this.untracedOutcome = { org: this.current, aq: this.current, trace: null };
+    this.unreadStream = new Stream(lib.solventKeys.length, this.comps.count);
   }
 
   /** Starts a run of `input` with the numbers in `params` (read from it, or perturbed). */
@@ -193,8 +195,10 @@ export class Simulator {
   /** Equilibrates a mixture into two new streams and records the contact. `aqueousRead` false: nothing will read
    * the aqueous layer (a lean run discarding it), which is then left empty. */
   contact(mix: Stream, ctx: ContactContext, aqueousRead = true): ContactOutcome {
+    const traced = this.tracing || this.onContact !== null;
     const org = this.newStream();
-    const aq = this.newStream();
+    // An aqueous layer nobody reads is left empty: one stream, never cleared, stands for all of them.
+    const aq = aqueousRead || traced ? this.newStream() : this.unreadStream;
     const eq = this.eq;
     const k = this.contactIndex++;
     const memory = this.phMemory;
@@ -206,7 +210,6 @@ export class Simulator {
         memory.push(memo);
       }
     }
-    const traced = this.tracing || this.onContact !== null;
     eq.equilibrate(mix, org, aq, memo, aqueousRead || traced);
     let trace: ContactTrace | null = null;
     if (traced) trace = traceContact(this, mix, org, aq, ctx);
